@@ -1,0 +1,64 @@
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import express from 'express';
+import helmet from 'helmet';
+import type { Sequelize } from 'sequelize';
+import { createPassport } from './auth/passport';
+import { createSession } from './auth/session';
+import type { Config } from './config';
+import { errorHandler, notFoundApi } from './errors';
+import { adminRouter } from './routes/admin';
+import { authRouter } from './routes/auth';
+import { healthRouter } from './routes/health';
+
+export interface AppDeps {
+  config: Config;
+  sequelize: Sequelize;
+}
+
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+export function createApplication({ config, sequelize }: AppDeps) {
+  const app = express();
+  app.set('trust proxy', config.trustProxy ? 1 : false);
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { 'script-src': ["'self'"], 'connect-src': ["'self'", 'ws:', 'wss:'], 'upgrade-insecure-requests': null },
+      },
+    }),
+  );
+
+  const session = createSession(sequelize, config);
+  const passport = createPassport();
+  const onLogout = new Set<(sessionId: string) => void>();
+
+  const api = express.Router();
+  api.use(express.json({ limit: '100kb' }));
+  api.use(session.middleware);
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use('/health', healthRouter(sequelize));
+  api.use('/auth', authRouter(passport, config, { onLogout: (sid) => onLogout.forEach((fn) => fn(sid)) }));
+  api.use('/admin', adminRouter());
+  api.use(notFoundApi);
+  app.use('/api', api);
+
+  const clientDir = resolve(config.clientDir);
+  if (existsSync(resolve(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(resolve(clientDir, 'index.html')));
+  }
+  app.use(errorHandler);
+
+  return {
+    app,
+    session,
+    passport,
+    /** Lets the realtime layer hear of sign-outs, to close that session's sockets. */
+    onLogout: (fn: (sessionId: string) => void) => onLogout.add(fn),
+    close: () => session.close(),
+  };
+}
+
+export type Application = ReturnType<typeof createApplication>;

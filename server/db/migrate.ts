@@ -1,0 +1,18 @@
+import type { Sequelize } from 'sequelize';
+import { SequelizeStorage, Umzug } from 'umzug';
+import * as m0001 from './migrations/0001-users-and-sessions';
+
+const MIGRATIONS = [m0001];
+
+export function migrator(sequelize: Sequelize) {
+  return new Umzug({
+    migrations: MIGRATIONS.map((m) => ({ name: m.name, up: m.up, down: m.down })),
+    context: sequelize.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize }),
+    logger: undefined,
+  });
+}
+
+export async function migrate(sequelize: Sequelize) {
+  await migrator(sequelize).up();
+}

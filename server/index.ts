@@ -1,0 +1,47 @@
+import { createServer } from 'node:http';
+import { createApplication } from './app';
+import { loadConfig, type Config } from './config';
+import { openDatabase } from './db';
+import { migrate } from './db/migrate';
+import { seedDemo } from './db/seed';
+import { attachRealtime } from './realtime';
+
+/** Opens the database, migrates, seeds the demo on an empty database, and listens. */
+export async function startServer(config: Config) {
+  const sequelize = await openDatabase(config.databaseUrl);
+  await migrate(sequelize);
+  if (config.seedDemo && (await seedDemo(config.bcryptRounds))) console.log('Seeded the Harbor Lane demo accounts.');
+  const application = createApplication({ config, sequelize });
+  const httpServer = createServer(application.app);
+  const io = attachRealtime(httpServer, application);
+  await new Promise<void>((resolve) => httpServer.listen(config.port, resolve));
+  const address = httpServer.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+
+  async function close() {
+    await io.close();
+    application.close();
+    await sequelize.close();
+  }
+  return { httpServer, io, sequelize, port, close };
+}
+
+/** Starts Rackside and closes it cleanly on SIGTERM or SIGINT. */
+export function serve(config: Config) {
+  startServer(config)
+    .then(({ port, close }) => {
+      console.log(`Rackside is ready on http://localhost:${port}`);
+      const stop = () => {
+        close().finally(() => process.exit(0));
+      };
+      process.once('SIGTERM', stop);
+      process.once('SIGINT', stop);
+    })
+    .catch((err) => {
+      console.error('Rackside could not start:', err);
+      process.exit(1);
+    });
+}
+
+const isMain = process.argv[1] && import.meta.url === new URL(`file://${process.argv[1]}`).href;
+if (isMain) serve(loadConfig());

@@ -1,0 +1,70 @@
+import bcrypt from 'bcryptjs';
+import { Router, type Request } from 'express';
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import type { createPassport } from '../auth/passport';
+import { loginSchema, registerSchema } from '../../shared/protocol';
+import type { Config } from '../config';
+import { User } from '../db/models';
+import { badInput, HttpError } from '../errors';
+
+function logIn(req: Request, user: User): Promise<void> {
+  // passport 0.7 regenerates the session id here, so a session fixed before sign-in is worthless.
+  return new Promise((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
+}
+
+export function authRouter(passport: ReturnType<typeof createPassport>, config: Config, hooks: { onLogout?: (sessionId: string) => void } = {}) {
+  const router = Router();
+
+  const loginLimiter = rateLimit({
+    windowMs: config.loginRateLimit.windowMs,
+    limit: config.loginRateLimit.max,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    // Count attempts per address and e-mail, so one guessed account cannot be hammered from one place.
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    skipSuccessfulRequests: true,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many sign-in attempts. Please wait a few minutes and try again.' } });
+    },
+  });
+
+  router.post('/register', async (req, res) => {
+    const parsed = registerSchema.safeParse(req.body ?? {});
+    if (!parsed.success) throw badInput(parsed.error);
+    const { email, password, displayName } = parsed.data;
+    if (await User.findOne({ where: { email } })) {
+      throw new HttpError(409, 'EMAIL_TAKEN', 'An account with this e-mail already exists. Sign in instead.', { email: 'This e-mail already has an account.' });
+    }
+    const user = await User.create({ email, displayName, passwordHash: await bcrypt.hash(password, config.bcryptRounds) });
+    await logIn(req, user);
+    res.status(201).json({ user: user.toPublic() });
+  });
+
+  router.post('/login', loginLimiter, async (req, res, next) => {
+    const parsed = loginSchema.safeParse(req.body ?? {});
+    if (!parsed.success) throw badInput(parsed.error);
+    req.body = parsed.data;
+    const user = await new Promise<User | false>((resolve, reject) =>
+      passport.authenticate('local', (err: unknown, found: User | false) => (err ? reject(err) : resolve(found)))(req, res, next),
+    );
+    if (!user) throw new HttpError(401, 'BAD_CREDENTIALS', 'That e-mail and password do not match. Check them and try again.');
+    await logIn(req, user);
+    res.json({ user: user.toPublic() });
+  });
+
+  router.post('/logout', async (req, res) => {
+    const sessionId = req.sessionID;
+    await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
+    await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
+    if (sessionId) hooks.onLogout?.(sessionId);
+    res.clearCookie('rackside.sid');
+    res.json({ ok: true });
+  });
+
+  router.get('/me', (req, res) => {
+    if (!req.user) throw new HttpError(401, 'UNAUTHENTICATED', 'You are not signed in.');
+    res.json({ user: req.user.toPublic() });
+  });
+
+  return router;
+}

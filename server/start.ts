@@ -1,0 +1,22 @@
+/** `npm start`: builds the client when it is missing or older than its sources, then serves everything. */
+import { execSync } from 'node:child_process';
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+import { loadConfig } from './config';
+import { serve } from './index';
+
+function newestChange(path: string): number {
+  const stat = statSync(path);
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  return Math.max(stat.mtimeMs, ...readdirSync(path).map((name) => newestChange(join(path, name))));
+}
+
+const config = loadConfig({ NODE_ENV: 'production', ...process.env });
+const builtIndex = join(config.clientDir, 'index.html');
+const sources = ['src', 'shared', 'index.html', 'vite.config.ts'].filter((p) => existsSync(p));
+if (!existsSync(builtIndex) || statSync(builtIndex).mtimeMs < Math.max(...sources.map(newestChange))) {
+  console.log('Building the client…');
+  execSync('npx vite build', { stdio: 'inherit' });
+}
+
+serve(config);

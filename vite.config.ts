@@ -1,0 +1,48 @@
+/// <reference types="vitest/config" />
+import { defineConfig } from 'vite';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+const serverPort = Number(process.env.PORT ?? 3000);
+
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  build: { outDir: 'dist/client', emptyOutDir: true },
+  server: {
+    port: 5173,
+    proxy: {
+      '/api': `http://localhost:${serverPort}`,
+      '/socket.io': { target: `ws://localhost:${serverPort}`, ws: true },
+    },
+  },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'unit',
+          environment: 'node',
+          include: ['tests/unit/**/*.test.ts', 'shared/**/*.test.ts'],
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'server',
+          environment: 'node',
+          include: ['tests/server/**/*.test.ts'],
+          testTimeout: 20_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'client',
+          environment: 'jsdom',
+          include: ['tests/client/**/*.test.tsx', 'src/**/*.test.tsx'],
+          setupFiles: ['tests/client/setup.ts'],
+        },
+      },
+    ],
+  },
+});
