@@ -48,7 +48,9 @@ export type RuleCode =
   | 'WRONG_COUNT'
   | 'BLIND_NOT_ALLOWED'
   | 'NOT_READY'
-  | 'BAD_ACTION';
+  | 'BAD_ACTION'
+  /** A withdraw with nothing committed (for instance after the pass resolved). */
+  | 'NOT_COMMITTED';
 
 export type Result<S = ExchangeState> =
   | { ok: true; state: S }
@@ -74,6 +76,8 @@ export interface PassRecord {
   forwarded: Record<Seat, string[]>;
   /** Seat → tile ids that landed in its rack. */
   received: Record<Seat, string[]>;
+  /** Seat → how many tiles it chose to pass blind (0 outside the blind phases). */
+  blind: Record<Seat, number>;
 }
 
 /**
@@ -118,10 +122,20 @@ export interface ExchangeView {
   passSize: number;
   /** Whether a blind pass is allowed in this phase. */
   blindAllowed: boolean;
-  /** Courtesy: the viewer's own ask and agreed count (all seats for 'host' and 'replay'). */
+  /**
+   * Courtesy asks and agreed counts: a seat sees its own while the asks are open and every
+   * seat's once they settle; 'host' and 'replay' always see all; 'spectator' none.
+   */
   asks: Partial<Record<Seat, CourtesyCount>>;
   agreed: Partial<Record<Seat, CourtesyCount>>;
+  /** Stop votes (true = stop), shown like the asks: own while voting, all once settled. */
   votes: Partial<Record<Seat, boolean>>;
-  /** Resolved passes as this viewer may see them; full for 'replay' and 'host'. */
+  /**
+   * Resolved passes as this viewer may see them; full for 'replay' and 'host'. A seat sees its
+   * own sent and received ids and everyone's blind counts; every forwarded list is empty.
+   * A spectator sees the phases and blind counts only.
+   */
   history: PassRecord[];
+  /** The kind of every tile id this view mentions, and of no other. */
+  kinds: Record<string, TileKind>;
 }
