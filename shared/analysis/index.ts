@@ -1,0 +1,21 @@
+/** Judging a rack: the pattern format, tiles away, pass advice, rack summaries and the starter list. */
+export {
+  HAND_SIZE,
+  JOKER_MIN_GROUP,
+  MAX_GROUP_SIZE,
+  MIN_GROUP_SIZE,
+  SUIT_LETTERS,
+  groupLabel,
+  type Group,
+  type Pattern,
+  type RankRef,
+  type SuitLetter,
+  type SuitRef,
+} from './pattern';
+export { patternSchema, validatePattern, validatePatternList } from './schema';
+export { enumerateAssignments, groupKind, type Assignment } from './compile';
+export { bestAway, fitDetail, rankPatterns, tilesAway, tilesAwayCounts, countsOf, type FitDetail, type RankedPattern } from './away';
+export { advisePass, defaultFocus, DEFENCE, PASS_SIZE, passChoices, type AdviceContext, type PassAdvice } from './advice';
+export { summarizeRack, type RackSummary } from './summary';
+export { STARTER_FAMILIES, starterPatterns } from './starter-patterns';
+export * from './bots';

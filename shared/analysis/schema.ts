@@ -1,0 +1,45 @@
+/** The full pattern schema and the checker that explains, in words, what is wrong. */
+import { feasibilityIssues } from './compile';
+import { groupLabel, patternShape, semanticIssues, type Pattern } from './pattern';
+
+/** Structure first; then the sizes, jokers, rank ranges and whether real tiles could ever fill it. */
+export const patternSchema = patternShape.superRefine((value, ctx) => {
+  // Range errors in single fields are already reported; the whole-pattern rules need sound fields.
+  if (!patternShape.safeParse(value).success) return;
+  const pattern = value as Pattern;
+  const basic = semanticIssues(pattern);
+  const issues = basic.length > 0 ? basic : feasibilityIssues(pattern);
+  for (const issue of issues) {
+    ctx.addIssue({ code: 'custom', message: issue.message, path: issue.group === undefined ? ['groups'] : ['groups', issue.group] });
+  }
+});
+
+/**
+ * Check anything that claims to be a pattern. Returns readable errors (empty when valid), each
+ * naming the pattern id and, where one group is at fault, which group ("group 2 of 5", counting from 1).
+ */
+export function validatePattern(candidate: unknown): string[] {
+  const parsed = patternSchema.safeParse(candidate);
+  if (parsed.success) return [];
+  const raw = candidate as { id?: unknown; groups?: unknown } | null;
+  const id = typeof raw?.id === 'string' && raw.id ? raw.id : '(no id)';
+  const count = Array.isArray(raw?.groups) ? raw.groups.length : 0;
+  return parsed.error.issues.map((issue) => {
+    const [head, index] = issue.path;
+    const where =
+      head === 'groups' && typeof index === 'number' ? `, ${groupLabel(index, count)}` : head !== undefined && head !== 'groups' ? `, ${String(head)}` : '';
+    return `Pattern "${id}"${where}: ${issue.message}`;
+  });
+}
+
+/** Validate a whole list: every pattern, and ids unique. */
+export function validatePatternList(list: unknown[]): string[] {
+  const errors = list.flatMap((p) => validatePattern(p));
+  const seen = new Set<string>();
+  for (const p of list as { id?: unknown }[]) {
+    if (typeof p?.id !== 'string') continue;
+    if (seen.has(p.id)) errors.push(`Pattern "${p.id}": another pattern in this list has the same id.`);
+    seen.add(p.id);
+  }
+  return errors;
+}
