@@ -1,0 +1,180 @@
+import fc from 'fast-check';
+import { expect, test } from 'vitest';
+import { act, canResolve, createExchange, replay, resolve, viewFor, type ExchangeState } from '../../../shared/exchange';
+import { rngFor } from '../../../shared/random';
+import { SEATS, dealtRackSize } from '../../../shared/seats';
+import { fullSet } from '../../../shared/tiles';
+import { allIds, allKinds, illegalAction, jokerCounts, legalAction } from './helpers';
+
+const options = fc.record({
+  seed: fc.string({ maxLength: 24 }),
+  jokers: fc.boolean(),
+  secondCharleston: fc.boolean(),
+  courtesy: fc.boolean(),
+});
+
+const step = fc.record({
+  kind: fc.constantFrom('legal', 'legal', 'legal', 'illegal', 'resolve'),
+  seat: fc.constantFrom(...SEATS),
+  salt: fc.nat(),
+});
+
+/** Long enough to reach the end of most exchanges. */
+const steps = fc.array(step, { minLength: 20, maxLength: 160, size: 'max' });
+
+const runs = { numRuns: 120 };
+
+/** Applies a random mix of legal actions, illegal actions and resolve calls, checking `check` after each. */
+function drive(
+  opts: { seed: string; jokers: boolean; secondCharleston: boolean; courtesy: boolean },
+  steps: { kind: string; seat: (typeof SEATS)[number]; salt: number }[],
+  check: (state: ExchangeState, before: ExchangeState, refused: boolean) => void,
+): ExchangeState {
+  let state = createExchange({ ...opts, seed: opts.seed || 'blank' });
+  steps.forEach(({ kind, seat, salt }, index) => {
+    const rng = rngFor('property', salt, index);
+    const before = state;
+    const snapshot = JSON.stringify(state);
+    let refused = false;
+    if (kind === 'resolve') {
+      const result = resolve(state);
+      expect(result.ok).toBe(canResolve(before));
+      if (result.ok) state = result.state;
+      else refused = true;
+    } else if (kind === 'illegal') {
+      const action = illegalAction(state, seat, rng);
+      const result = act(state, seat, action);
+      expect(result.ok, JSON.stringify(action)).toBe(false);
+      refused = true;
+    } else {
+      // The named seat acts if it has something to do, else the next seat that has.
+      const order = [...SEATS.slice(SEATS.indexOf(seat)), ...SEATS.slice(0, SEATS.indexOf(seat))];
+      let actor = seat;
+      let action = null;
+      for (const candidate of order) {
+        action = legalAction(state, candidate, rng);
+        actor = candidate;
+        if (action) break;
+      }
+      if (!action) return;
+      const result = act(state, actor, action);
+      if (!result.ok) throw new Error(`${result.code}: ${result.message} for ${JSON.stringify(action)}`);
+      state = result.state;
+    }
+    expect(JSON.stringify(before)).toBe(snapshot);
+    check(state, before, refused);
+  });
+  return state;
+}
+
+test('every tile is present exactly once across the racks and the wall', () => {
+  fc.assert(
+    fc.property(options, steps, (opts, steps) => {
+      const expected = fullSet(opts.jokers).sort();
+      drive(opts, steps, (state) => {
+        expect(allKinds(state)).toEqual(expected);
+        expect(new Set(allIds(state)).size).toBe(expected.length);
+      });
+    }),
+    runs,
+  );
+});
+
+test('racks stay at 14 and 13 through every pass', () => {
+  fc.assert(
+    fc.property(options, steps, (opts, steps) => {
+      drive(opts, steps, (state) => {
+        for (const seat of SEATS) expect(state.racks[seat]).toHaveLength(dealtRackSize(seat));
+      });
+    }),
+    runs,
+  );
+});
+
+test('jokers never change seat', () => {
+  fc.assert(
+    fc.property(options, steps, (opts, steps) => {
+      const jokers = jokerCounts(createExchange({ ...opts, seed: opts.seed || 'blank' }));
+      const jokerIds = (state: ExchangeState) =>
+        SEATS.map((seat) => state.racks[seat].filter((tile) => tile.kind === 'joker').map((tile) => tile.id).sort());
+      const start = jokerIds(createExchange({ ...opts, seed: opts.seed || 'blank' }));
+      drive(opts, steps, (state) => {
+        expect(jokerCounts(state)).toEqual(jokers);
+        expect(jokerIds(state)).toEqual(start);
+      });
+    }),
+    runs,
+  );
+});
+
+test('an illegal action never changes the state', () => {
+  fc.assert(
+    fc.property(options, steps, (opts, steps) => {
+      drive(opts, steps, (state, before, refused) => {
+        if (refused) expect(state).toBe(before);
+      });
+    }),
+    runs,
+  );
+});
+
+test('replay reproduces the state', () => {
+  fc.assert(
+    fc.property(options, steps, (opts, steps) => {
+      const state = drive(opts, steps, () => {});
+      expect(replay(state.options, state.log)).toStrictEqual(state);
+      expect(JSON.parse(JSON.stringify(state))).toStrictEqual(state);
+    }),
+    runs,
+  );
+});
+
+test('a seat’s view never shows another rack or a tile it forwarded blind', () => {
+  fc.assert(
+    fc.property(options, steps, (opts, steps) => {
+      const state = drive(opts, steps, () => {});
+      for (const seat of SEATS) {
+        const view = viewFor(state, seat);
+        expect(Object.keys(view.racks)).toEqual([seat]);
+        const allowed = new Set([
+          ...state.racks[seat].map((tile) => tile.id),
+          ...state.history.flatMap((record) => [...record.sent[seat], ...record.received[seat]]),
+        ]);
+        for (const id of Object.keys(view.kinds)) expect(allowed.has(id)).toBe(true);
+        // A tile forwarded blind shows only if the seat knows it in the open: in its rack,
+        // or sent or received by it in some pass.
+        const seen = JSON.stringify(view);
+        state.history.forEach((record, index) => {
+          for (const id of record.forwarded[seat]) if (!allowed.has(id)) expect(seen).not.toContain(`"${id}"`);
+          expect(view.history[index].forwarded[seat]).toEqual([]);
+        });
+      }
+    }),
+    runs,
+  );
+});
+
+test('four random legal players always finish the exchange', () => {
+  fc.assert(
+    fc.property(options, fc.nat(), (opts, salt) => {
+      let state = createExchange({ ...opts, seed: opts.seed || 'blank' });
+      const rng = rngFor('players', salt);
+      for (let guard = 0; state.phase !== 'done'; guard++) {
+        expect(guard).toBeLessThan(2000);
+        if (canResolve(state)) {
+          state = (resolve(state) as { state: ExchangeState }).state;
+          continue;
+        }
+        for (const seat of SEATS) {
+          const action = legalAction(state, seat, rng);
+          if (!action) continue;
+          const result = act(state, seat, action);
+          if (result.ok) state = result.state;
+          if (state.phase === 'done') break;
+        }
+      }
+      expect(replay(state.options, state.log)).toStrictEqual(state);
+    }),
+    { numRuns: 100 },
+  );
+});
