@@ -33,7 +33,7 @@ export type CourtesyCount = 0 | 1 | 2 | 3;
 export type Action =
   /** Tile ids from the seat's own rack; tiles.length + blind = 3 (courtesy: = the agreed count). */
   | { type: 'pass'; tiles: string[]; blind?: number }
-  /** Take back a committed pass before it resolves. */
+  /** Take back a committed pass, a "continue" vote or a courtesy ask before it settles. */
   | { type: 'withdraw' }
   /** In 'vote'; one stop ends the Charleston. */
   | { type: 'vote'; stop: boolean }
