@@ -17,8 +17,8 @@ export interface AdviceContext {
   blindAllowed: boolean;
   /** Tiles to send; default 3 (a courtesy pass sends the agreed count). */
   count?: number;
-  /** How many of the closest patterns to keep in view; by default more early, fewer late. */
-  focus?: number;
+  /** Keep in view every pattern within this many tiles of the closest; by default wider early, narrower late. */
+  margin?: number;
 }
 
 export interface PassAdvice {
@@ -29,7 +29,7 @@ export interface PassAdvice {
   /** Higher is better: minus the expected tiles away after the pass, weighted over the focus patterns, minus the defence penalty. */
   score: number;
   reasons: string[];
-  /** The closest pattern this advice was judged against, and how far the kept tiles are from it. */
+  /** The pattern the kept tiles are closest to, and how far they are from it before new tiles arrive. */
   toward: { id: string; name: string; away: number } | null;
 }
 
@@ -43,12 +43,13 @@ export const DEFENCE = {
   flower: 0.15,
 } as const;
 
+/** The most patterns one piece of advice weighs at once. */
+export const MAX_FOCUS = 8;
+
 /** Early passes keep more patterns in view; late ones narrow down. */
-export function defaultFocus(phase: Phase): number {
-  if (phase === 'first-right') return 5;
-  if (phase === 'first-across' || phase === 'first-left') return 4;
-  if (phase === 'courtesy-pass') return 2;
-  return 3;
+export function defaultMargin(phase: Phase): number {
+  if (phase === 'first-right' || phase === 'first-across') return 2;
+  return 1;
 }
 
 interface Focus {
@@ -135,17 +136,20 @@ export function advisePass(hand: readonly TileKind[], list: readonly Pattern[], 
   const rackLimit = Math.min(hand.length, HAND_SIZE);
 
   const ranked = standings(counts, list);
-  const focusCount = Math.max(1, context.focus ?? defaultFocus(context.phase));
-  const focus: Focus[] = ranked.slice(0, focusCount).map(({ pattern, c, away }, i) => {
+  const best = ranked.length > 0 ? ranked[0].away : HAND_SIZE;
+  const margin = Math.max(0, context.margin ?? defaultMargin(context.phase));
+  const near = ranked.filter((r) => r.away <= best + margin).slice(0, MAX_FOCUS);
+  // A pattern one tile further counts half as much.
+  const focus: Focus[] = near.map(({ pattern, c, away }) => {
     const candidates: number[] = [];
     for (let a = 0; a < c.starts.length - 1; a++) if (HAND_SIZE - fitAt(c, a, counts) <= away + count) candidates.push(a);
-    return { pattern, c, away, weight: 0.5 ** i, candidates };
+    return { pattern, c, away, weight: 0.5 ** (away - best), candidates };
   });
   const weightSum = focus.reduce((sum, f) => sum + f.weight, 0) || 1;
 
   // How widely useful each kind is across the nearer half of the list: a small tie-breaker.
   const breadth = new Float64Array(KIND_COUNT);
-  for (const { c, assignment: a } of ranked.slice(0, Math.max(focusCount, Math.ceil(ranked.length / 2)))) {
+  for (const { c, assignment: a } of ranked.slice(0, Math.max(near.length, Math.ceil(ranked.length / 2)))) {
     for (let i = c.starts[a]; i < c.starts[a + 1]; i += 3) breadth[c.flat[i]] += 1 / ranked.length;
   }
 
@@ -187,12 +191,25 @@ export function advisePass(hand: readonly TileKind[], list: readonly Pattern[], 
         blind,
         score: -(expected / weightSum) - defence.penalty - spread,
         reasons: reasonsFor(counts, passed, blind, focus, aways, defence),
-        toward: focus.length > 0 ? { id: focus[0].pattern.id, name: focus[0].pattern.name, away: aways[0] } : null,
+        toward: focus.length > 0 ? towardOf(focus[closestAfter(focus, aways)].pattern, aways[closestAfter(focus, aways)]) : null,
       });
     }
   }
   out.sort((a, b) => b.score - a.score || a.blind - b.blind || keyOf(a).localeCompare(keyOf(b)));
   return out;
+}
+
+/** The focus pattern the kept tiles are closest to; ties go to the one the pass costs least, then to the closer before. */
+function closestAfter(focus: Focus[], aways: number[]): number {
+  let at = 0;
+  for (let i = 1; i < aways.length; i++) {
+    if (aways[i] < aways[at] || (aways[i] === aways[at] && aways[i] - focus[i].away < aways[at] - focus[at].away)) at = i;
+  }
+  return at;
+}
+
+function towardOf(pattern: Pattern, away: number): PassAdvice['toward'] {
+  return { id: pattern.id, name: pattern.name, away };
 }
 
 function keyOf(advice: PassAdvice): string {
@@ -209,13 +226,17 @@ function reasonsFor(
 ): string[] {
   const reasons: string[] = [];
   if (focus.length > 0) {
-    const { pattern, away } = focus[0];
-    const lost = aways[0] - away;
-    reasons.push(
-      lost === 0
+    const closest = closestAfter(focus, aways);
+    const lostAt = (i: number) => aways[i] - focus[i].away;
+    const say = (i: number) => {
+      const { pattern, away } = focus[i];
+      const lost = lostAt(i);
+      return lost === 0
         ? `keeps every tile "${pattern.name}" uses (${away} away)`
-        : `gives up ${numberWord(lost)} tile${lost > 1 ? 's' : ''} "${pattern.name}" uses (${away} → ${aways[0]} away)`,
-    );
+        : `gives up ${numberWord(lost)} tile${lost > 1 ? 's' : ''} "${pattern.name}" uses (${away} → ${aways[i]} away)`;
+    };
+    reasons.push(say(closest));
+    if (closest !== 0 && lostAt(0) > 0) reasons.push(say(0));
   }
 
   const kept: string[] = [];

@@ -15,7 +15,7 @@ export {
 export { patternSchema, validatePattern, validatePatternList } from './schema';
 export { enumerateAssignments, groupKind, type Assignment } from './compile';
 export { bestAway, fitDetail, rankPatterns, tilesAway, tilesAwayCounts, countsOf, type FitDetail, type RankedPattern } from './away';
-export { advisePass, defaultFocus, DEFENCE, PASS_SIZE, passChoices, type AdviceContext, type PassAdvice } from './advice';
+export { advisePass, defaultMargin, DEFENCE, MAX_FOCUS, PASS_SIZE, passChoices, type AdviceContext, type PassAdvice } from './advice';
 export { summarizeRack, type RackSummary } from './summary';
 export { STARTER_FAMILIES, starterPatterns } from './starter-patterns';
 export * from './bots';

@@ -1,0 +1,163 @@
+import fc from 'fast-check';
+import { combinations } from 'mathjs';
+import { expect, test } from 'vitest';
+import { advisePass, countsOf, DEFENCE, passChoices, starterPatterns, tilesAway, type PassAdvice } from '../../../shared/analysis';
+import { PHASES } from '../../../shared/exchange';
+import { fullSet, TILE_KINDS, type TileKind } from '../../../shared/tiles';
+import { rack } from './helpers';
+
+const distinct13: TileKind[] = ['bam1', 'bam5', 'bam9', 'crack2', 'crack6', 'dot3', 'dot7', 'wind-n', 'wind-e', 'dragon-red', 'dragon-green', 'flower', 'dot9'];
+const distinct14: TileKind[] = [...distinct13, 'crack9'];
+
+test('every 3-tile choice from 13 and from 14 tiles is offered once', () => {
+  expect(passChoices(countsOf(distinct13), 3)).toHaveLength(combinations(13, 3)); // mathjs combinations(13, 3) = 286
+  expect(passChoices(countsOf(distinct14), 3)).toHaveLength(combinations(14, 3)); // mathjs combinations(14, 3) = 364
+  expect(advisePass(distinct13, starterPatterns, { phase: 'first-right', blindAllowed: false })).toHaveLength(combinations(13, 3));
+  expect(advisePass(distinct14, starterPatterns, { phase: 'first-right', blindAllowed: false })).toHaveLength(combinations(14, 3));
+});
+
+test('with blind allowed, every choice of 2, 1 or 0 own tiles is added', () => {
+  const all = advisePass(distinct13, starterPatterns, { phase: 'first-left', blindAllowed: true });
+  // mathjs combinations(13, k) for k = 3, 2, 1, 0
+  expect(all).toHaveLength(combinations(13, 3) + combinations(13, 2) + combinations(13, 1) + combinations(13, 0));
+  expect(all.filter((a) => a.blind === 3)).toHaveLength(1);
+});
+
+test('jokers are never offered, and identical tiles make one choice', () => {
+  const hand: TileKind[] = [...distinct14.slice(0, 12), 'joker', 'joker'];
+  expect(advisePass(hand, starterPatterns, { phase: 'first-right', blindAllowed: false })).toHaveLength(combinations(12, 3)); // mathjs combinations(12, 3) = 220
+  const pairs = rack(['bam1', 2], ['bam2', 2]);
+  // Multisets of 3 from {1,1,2,2}: 1-1-2 and 1-2-2.
+  expect(passChoices(countsOf(pairs), 3).map((c) => c.map((k) => TILE_KINDS[k]))).toEqual([
+    ['bam1', 'bam1', 'bam2'],
+    ['bam1', 'bam2', 'bam2'],
+  ]);
+});
+
+const anyRack = fc
+  .shuffledSubarray(
+    fullSet().map((_, i) => i),
+    { minLength: 13, maxLength: 14 },
+  )
+  .map((indexes) => indexes.map((i) => fullSet()[i]));
+const passPhases = PHASES.filter((p) => p.startsWith('first') || p.startsWith('second') || p === 'courtesy-pass');
+
+function isSubMultiset(part: TileKind[], whole: TileKind[]): boolean {
+  const left = [...whole];
+  return part.every((k) => {
+    const at = left.indexOf(k);
+    if (at < 0) return false;
+    left.splice(at, 1);
+    return true;
+  });
+}
+
+test('every advice is a legal pass, best first, each option once, each with reasons', () => {
+  fc.assert(
+    fc.property(anyRack, fc.constantFrom(...passPhases), fc.boolean(), fc.integer({ min: 1, max: 3 }), (hand, phase, blindAllowed, courtesy) => {
+      const count = phase === 'courtesy-pass' ? courtesy : 3;
+      const allowed = phase === 'courtesy-pass' ? false : blindAllowed;
+      const advice = advisePass(hand, starterPatterns, { phase, blindAllowed: allowed, count });
+      expect(advice.length).toBeGreaterThan(0);
+      const keys = new Set<string>();
+      advice.forEach((a, i) => {
+        expect(a.tiles).not.toContain('joker');
+        expect(a.tiles.length + a.blind).toBe(count);
+        if (!allowed) expect(a.blind).toBe(0);
+        expect(isSubMultiset(a.tiles, hand)).toBe(true);
+        expect(a.reasons.length).toBeGreaterThan(0);
+        if (i > 0) expect(a.score).toBeLessThanOrEqual(advice[i - 1].score);
+        keys.add(`${a.blind}:${[...a.tiles].sort().join(',')}`);
+      });
+      expect(keys.size).toBe(advice.length);
+    }),
+    { seed: 4242, numRuns: 40 },
+  );
+});
+
+test('the best advice never costs more of the closest pattern than it must', () => {
+  fc.assert(
+    fc.property(anyRack, (hand) => {
+      const [best] = advisePass(hand, starterPatterns, { phase: 'second-across', blindAllowed: false });
+      const kept = [...hand];
+      for (const k of best.tiles) kept.splice(kept.indexOf(k), 1);
+      const closest = Math.min(...starterPatterns.map((p) => tilesAway(hand, p)));
+      // Passing three tiles loses at most three tiles of any pattern.
+      expect(Math.min(...starterPatterns.map((p) => tilesAway(kept, p)))).toBeLessThanOrEqual(closest + 3);
+    }),
+    { seed: 4243, numRuns: 30 },
+  );
+});
+
+// even-01 in dots with one spare north wind: 1 away.
+const evenClimb = starterPatterns.find((p) => p.id === 'even-01')!;
+const nearlyDone = [...rack(['dot2', 4], ['dot4', 3], ['dot6', 3], ['dot8', 3]), 'wind-n' as TileKind];
+
+test('a rack one tile away passes its spare tile', () => {
+  const [best] = advisePass(nearlyDone, [evenClimb], { phase: 'first-right', blindAllowed: false });
+  expect(best.tiles).toContain('wind-n');
+  expect(best.reasons[0]).toBe('gives up two tiles "Even climb in one suit" uses (1 → 3 away)');
+});
+
+test('on a blind pass a rack one tile away sends its spare and forwards two blind', () => {
+  const [best] = advisePass(nearlyDone, [evenClimb], { phase: 'first-left', blindAllowed: true });
+  expect(best).toMatchObject({ tiles: ['wind-n'], blind: 2 });
+  expect(best.reasons).toContain('keeps every tile "Even climb in one suit" uses (1 away)');
+  expect(best.reasons).toContain('forwards two arriving tiles blind, so you keep more of your own');
+  expect(best.toward).toEqual({ id: 'even-01', name: 'Even climb in one suit', away: 1 });
+});
+
+test('a complete rack forwards all three blind when it may', () => {
+  const complete = rack(['dot2', 4], ['dot4', 3], ['dot6', 3], ['dot8', 4]);
+  const [best] = advisePass(complete, [evenClimb], { phase: 'second-right', blindAllowed: true });
+  expect(best).toMatchObject({ tiles: [], blind: 3 });
+  expect(best.reasons).toContain('forwards all three arriving tiles blind, so your rack stays as it is');
+});
+
+// With no patterns in view, only the defence counts: the penalties show through bare.
+const defenceRack: TileKind[] = ['wind-n', 'wind-n', 'bam3', 'bam4', 'flower', 'crack9', 'dot1', 'dragon-red', 'wind-e', 'dot5', 'crack1', 'bam8', 'dragon-white'];
+const bare = advisePass(defenceRack, [], { phase: 'first-right', blindAllowed: false });
+const find = (tiles: TileKind[]): PassAdvice => bare.find((a) => [...a.tiles].sort().join() === [...tiles].sort().join())!;
+
+test('passing a pair feeds a neighbour and says so', () => {
+  const gift = find(['wind-n', 'wind-n', 'crack9']);
+  expect(gift.score).toBeCloseTo(-DEFENCE.sameKind);
+  expect(gift.reasons).toContain('gives away two north winds');
+});
+
+test('passing one of a pair says it breaks the pair', () => {
+  expect(find(['wind-n', 'dot1', 'crack9']).reasons).toContain('breaks your pair of north winds');
+});
+
+test('passing neighbours in one suit is penalised and explained', () => {
+  const run = find(['bam3', 'bam4', 'crack9']);
+  expect(run.score).toBeCloseTo(-DEFENCE.neighbours);
+  expect(run.reasons).toContain('passes a 3 bam and a 4 bam together, a start on a run for a neighbour');
+});
+
+test('passing a flower is penalised and explained', () => {
+  const flower = find(['flower', 'dot1', 'crack9']);
+  expect(flower.score).toBeCloseTo(-DEFENCE.flower);
+  expect(flower.reasons).toContain('gives away a flower');
+});
+
+test('a pass that feeds nobody scores best and breaks no pair', () => {
+  expect(bare[0].score).toBeCloseTo(0);
+  expect(bare[0].reasons).toEqual(['breaks no pair', 'keeps your pair of north winds']);
+  expect(bare[0].toward).toBeNull();
+});
+
+test('a courtesy pass offers the agreed count', () => {
+  const advice = advisePass(defenceRack, starterPatterns, { phase: 'courtesy-pass', blindAllowed: false, count: 2 });
+  expect(advice).toHaveLength(combinations(12, 2) + 1); // 12 distinct kinds plus the north pair; mathjs combinations(12, 2) = 66
+  expect(advice.every((a) => a.tiles.length === 2 && a.blind === 0)).toBe(true);
+  expect(advisePass(defenceRack, starterPatterns, { phase: 'courtesy-pass', blindAllowed: false, count: 0 })).toEqual([
+    expect.objectContaining({ tiles: [], blind: 0 }),
+  ]);
+});
+
+test('advice is the same every time for the same rack', () => {
+  const a = advisePass(defenceRack, starterPatterns, { phase: 'first-across', blindAllowed: false });
+  const b = advisePass([...defenceRack].reverse(), starterPatterns, { phase: 'first-across', blindAllowed: false });
+  expect(b).toEqual(a);
+});
