@@ -1,5 +1,5 @@
 /**
- * Pass advice: every legal pass, scored by how close the kept tiles stay to the rack's best few
+ * Pass advice: every legal pass, scored by how close the kept tiles stay to the rack's nearest
  * patterns (counting what the arriving tiles may bring), minus a penalty for feeding a neighbour.
  */
 import type { Phase } from '../exchange/types';
@@ -127,8 +127,9 @@ function liveShare(c: CompiledPattern, a: number, counts: Uint8Array, pool: Uint
 
 /**
  * Rank every legal pass, best first. Options with the same kinds are one option. The kept tiles
- * are judged against the `focus` closest patterns of the whole rack; each arriving tile is
- * counted as worth the share of unseen tiles that would fill an open slot.
+ * are judged against every pattern within `margin` tiles of the rack's closest (at most
+ * MAX_FOCUS, each further tile halving its weight); each tile still to arrive counts as worth
+ * the share of unseen tiles that would fill an open slot of that pattern.
  */
 export function advisePass(hand: readonly TileKind[], list: readonly Pattern[], context: AdviceContext): PassAdvice[] {
   const count = context.count ?? PASS_SIZE;
