@@ -43,6 +43,18 @@ export default defineConfig({
           setupFiles: ['tests/client/setup.ts'],
         },
       },
+      {
+        extends: true,
+        test: {
+          name: 'e2e',
+          environment: 'node',
+          include: ['tests/e2e/**/*.test.ts'],
+          globalSetup: ['tests/e2e/global-setup.ts'],
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
     ],
   },
 });

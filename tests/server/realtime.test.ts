@@ -51,7 +51,7 @@ test('a socket without a session is refused with UNAUTHENTICATED', async () => {
 test("signing out disconnects that session's open sockets", async () => {
   const cookie = await signIn();
   const socket = open(cookie);
-  await new Promise((resolve) => socket.on('connect', resolve));
+  await new Promise<void>((resolve) => socket.on('connect', () => resolve()));
   const closed = new Promise<string>((resolve) => socket.on('disconnect', resolve));
   await request(url).post('/api/auth/logout').set('Cookie', cookie).expect(200);
   expect(await closed).toBe('io server disconnect');

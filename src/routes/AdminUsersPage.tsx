@@ -1,0 +1,80 @@
+import { Navigate } from 'react-router-dom';
+import { ROLE_NAMES, type RoleName, type UserDto } from '../../shared/protocol';
+import { useAdminUsers, useChangeRole } from '../api/admin';
+import { useMe } from '../api/auth';
+import { Card } from '../components/Card';
+import { FormMessage } from '../components/FormMessage';
+
+function RolePicker({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
+  const change = useChangeRole();
+  return (
+    <div className="flex flex-col gap-1">
+      <label className="sr-only" htmlFor={`role-${user.id}`}>
+        Role of {user.displayName}
+      </label>
+      <select
+        id={`role-${user.id}`}
+        value={user.role}
+        disabled={change.isPending || isSelf}
+        onChange={(e) => change.mutate({ id: user.id, role: e.target.value as RoleName })}
+        className="min-h-12 rounded-lg border-2 border-line bg-card px-3"
+      >
+        {ROLE_NAMES.map((role) => (
+          <option key={role} value={role}>
+            {role}
+          </option>
+        ))}
+      </select>
+      {change.error && (
+        <p role="alert" className="text-danger">
+          {change.error.message}
+        </p>
+      )}
+    </div>
+  );
+}
+
+export function AdminUsersPage() {
+  const { data: me, isPending } = useMe();
+  const isAdmin = me?.role === 'admin';
+  const users = useAdminUsers(isAdmin);
+  if (isPending) return <p role="status">Loading…</p>;
+  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!isAdmin) {
+    return (
+      <Card className="mx-auto max-w-lg">
+        <h1 className="mb-3 text-title font-semibold">Only organisers can see this page</h1>
+        <p>People and roles are managed by an admin. Ask your club organiser if you need the teacher role.</p>
+      </Card>
+    );
+  }
+  return (
+    <div className="flex flex-col gap-6">
+      <h1 className="text-title font-semibold">People and roles</h1>
+      {users.error && <FormMessage error>{users.error.message}</FormMessage>}
+      <Card className="overflow-x-auto p-0">
+        <table className="w-full text-left">
+          <caption className="sr-only">Everyone with a Rackside account</caption>
+          <thead className="border-b-2 border-line/60">
+            <tr>
+              <th scope="col" className="px-4 py-3">Name</th>
+              <th scope="col" className="px-4 py-3">E-mail</th>
+              <th scope="col" className="px-4 py-3">Role</th>
+            </tr>
+          </thead>
+          <tbody>
+            {users.data?.map((user) => (
+              <tr key={user.id} className="border-b border-line/30">
+                <td className="px-4 py-3 font-medium">{user.displayName}</td>
+                <td className="px-4 py-3 break-all">{user.email}</td>
+                <td className="px-4 py-3">
+                  <RolePicker user={user} isSelf={user.id === me.id} />
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </Card>
+    </div>
+  );
+}

@@ -1,0 +1,84 @@
+import { useEffect } from 'react';
+import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { useMe, useSignOut } from '../api/auth';
+import { Button } from '../components/Button';
+import { TEXT_SIZES, usePreferences, type TextSize } from '../preferences';
+
+const SIZE_LABELS: Record<TextSize, string> = { standard: 'A', large: 'A+', largest: 'A++' };
+
+function TextSizePicker() {
+  const textSize = usePreferences((s) => s.textSize);
+  const setTextSize = usePreferences((s) => s.setTextSize);
+  useEffect(() => {
+    document.documentElement.style.setProperty('--rackside-root-size', TEXT_SIZES[textSize]);
+  }, [textSize]);
+  return (
+    <div role="group" aria-label="Text size" className="flex gap-1">
+      {(Object.keys(TEXT_SIZES) as TextSize[]).map((size) => (
+        <button
+          key={size}
+          type="button"
+          aria-pressed={textSize === size}
+          aria-label={`Text size ${size}`}
+          onClick={() => setTextSize(size)}
+          className={`min-h-10 min-w-10 rounded-md border-2 px-2 font-semibold ${textSize === size ? 'border-accent bg-accent text-accent-ink' : 'border-line bg-card text-ink'}`}
+        >
+          {SIZE_LABELS[size]}
+        </button>
+      ))}
+    </div>
+  );
+}
+
+const navClass = ({ isActive }: { isActive: boolean }) =>
+  `rounded-md px-3 py-2 font-medium no-underline ${isActive ? 'bg-accent-soft text-ink underline' : 'text-ink hover:bg-accent-soft'}`;
+
+export function Layout() {
+  const { data: me } = useMe();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  return (
+    <div className="flex min-h-screen flex-col">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-4 focus:top-4 focus:z-10 focus:bg-card focus:p-3">
+        Skip to the page
+      </a>
+      <header className="border-b-2 border-ink/10 bg-card">
+        <div className="mx-auto flex max-w-5xl flex-wrap items-center gap-4 px-4 py-3">
+          <Link to="/" className="text-2xl font-semibold text-ink no-underline">
+            <span aria-hidden="true" className="mr-2 inline-block rounded-md bg-accent px-2 text-accent-ink">R</span>
+            Rackside
+          </Link>
+          <nav aria-label="Main" className="flex flex-wrap gap-1">
+            <NavLink to="/" end className={navClass}>
+              Home
+            </NavLink>
+            {me?.role === 'admin' && (
+              <NavLink to="/admin/users" className={navClass}>
+                People
+              </NavLink>
+            )}
+          </nav>
+          <div className="ml-auto flex flex-wrap items-center gap-3">
+            <TextSizePicker />
+            {me ? (
+              <Button
+                kind="plain"
+                onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}
+                disabled={signOut.isPending}
+              >
+                Sign out
+              </Button>
+            ) : (
+              <Link to="/sign-in" className="font-semibold">
+                Sign in
+              </Link>
+            )}
+          </div>
+        </div>
+      </header>
+      <main id="main" className="mx-auto w-full max-w-5xl flex-1 px-4 py-8">
+        <Outlet />
+      </main>
+    </div>
+  );
+}

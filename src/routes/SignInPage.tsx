@@ -1,0 +1,46 @@
+import { useState, type FormEvent } from 'react';
+import { Link, useNavigate } from 'react-router-dom';
+import { useSignIn } from '../api/auth';
+import { ApiError } from '../api/client';
+import { Button } from '../components/Button';
+import { Card } from '../components/Card';
+import { FormMessage } from '../components/FormMessage';
+import { TextField } from '../components/TextField';
+
+export function SignInPage() {
+  const signIn = useSignIn();
+  const navigate = useNavigate();
+  const [email, setEmail] = useState('');
+  const [password, setPassword] = useState('');
+  const error = signIn.error instanceof ApiError ? signIn.error : null;
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    signIn.mutate({ email, password }, { onSuccess: () => navigate('/') });
+  }
+
+  return (
+    <Card className="mx-auto max-w-md">
+      <h1 className="mb-6 text-title font-semibold">Sign in</h1>
+      <form onSubmit={submit} noValidate className="flex flex-col gap-5">
+        <FormMessage error>{error && !Object.keys(error.fields).length ? error.message : null}</FormMessage>
+        <TextField label="E-mail" type="email" autoComplete="email" value={email} onChange={(e) => setEmail(e.target.value)} error={error?.fields.email} required />
+        <TextField
+          label="Password"
+          type="password"
+          autoComplete="current-password"
+          value={password}
+          onChange={(e) => setPassword(e.target.value)}
+          error={error?.fields.password}
+          required
+        />
+        <Button kind="primary" type="submit" disabled={signIn.isPending}>
+          {signIn.isPending ? 'Signing in…' : 'Sign in'}
+        </Button>
+      </form>
+      <p className="mt-6">
+        New to Rackside? <Link to="/register">Make an account</Link>
+      </p>
+    </Card>
+  );
+}
