@@ -1,5 +1,9 @@
 /** What travels between client and server: REST payloads and socket events, with their zod schemas. */
 import { z } from 'zod';
+import type { CommittedPass, ExchangeOptions, ExchangeView, LogEntry, Phase } from './exchange/types';
+import type { Seat } from './seats';
+import type { Tile } from './tiles';
+import { BOT_STRATEGIES } from './analysis/bots';
 
 export const ROLE_NAMES = ['player', 'teacher', 'admin'] as const;
 export type RoleName = (typeof ROLE_NAMES)[number];
@@ -52,4 +56,192 @@ export interface UserDto {
 
 export interface ApiErrorBody {
   error: { code: string; message: string; fields?: Record<string, string> };
+}
+
+// ───────────────────────── Live tables ─────────────────────────
+
+
+export const SEAT_NAMES = ['east', 'south', 'west', 'north'] as const;
+export const BOT_STRATEGY_IDS = BOT_STRATEGIES.map((s) => s.id) as [string, ...string[]];
+
+export const TABLE_LIMITS = { nameMax: 80, seedMax: 120, chatMax: 500, noteMax: 2000 } as const;
+
+/** Options a host picks when opening a table. */
+export const tableOptionsSchema = z
+  .object({
+    seed: z.string().trim().min(1, 'A seed needs at least one character.').max(TABLE_LIMITS.seedMax, `A seed has at most ${TABLE_LIMITS.seedMax} characters.`).optional(),
+    jokers: z.boolean().optional(),
+    secondCharleston: z.boolean().optional(),
+    courtesy: z.boolean().optional(),
+    /** Hold every pass in a huddle once all four have committed. */
+    huddleEveryPass: z.boolean().optional(),
+    /** The host sees every rack all the time. */
+    teaching: z.boolean().optional(),
+    /** Hide the pass advice from the players (a test of skill). */
+    hideAdvice: z.boolean().optional(),
+  })
+  .strict();
+export type TableOptionsInput = z.input<typeof tableOptionsSchema>;
+
+export const createTableSchema = z
+  .object({
+    name: z.string({ error: 'Give the table a name.' }).trim().min(1, 'Give the table a name.').max(TABLE_LIMITS.nameMax, `A table name has at most ${TABLE_LIMITS.nameMax} characters.`),
+    private: z.boolean().optional(),
+    options: tableOptionsSchema.optional(),
+  })
+  .strict();
+export type CreateTableInput = z.input<typeof createTableSchema>;
+
+export interface TableOptions {
+  seed: string | null;
+  jokers: boolean;
+  secondCharleston: boolean;
+  courtesy: boolean;
+  huddleEveryPass: boolean;
+  teaching: boolean;
+  hideAdvice: boolean;
+}
+
+export type TableStatus = 'lobby' | 'playing' | 'done';
+
+export type SeatOccupant =
+  | { kind: 'user'; userId: number; displayName: string; connected: boolean }
+  | { kind: 'bot'; strategy: string; displayName: string };
+
+export interface TableDto {
+  id: string;
+  name: string;
+  hostId: number;
+  hostName: string;
+  private: boolean;
+  status: TableStatus;
+  options: TableOptions;
+  seats: Record<Seat, SeatOccupant | null>;
+  /** Only for the host: the code that lets others into a private table. */
+  inviteCode?: string;
+  currentExchangeId: string | null;
+  createdAt: string;
+}
+
+export interface HuddleNoteDto {
+  id: number;
+  /** How many passes had resolved when the note was written: the pass it belongs to is the next one. */
+  passIndex: number;
+  phase: Phase;
+  seat: Seat | null;
+  authorName: string;
+  text: string;
+  createdAt: string;
+}
+
+export interface HuddleState {
+  open: boolean;
+  /** Seats the host has shown to the table: their rack and their committed pass. */
+  revealed: Partial<Record<Seat, { rack: Tile[]; pass: CommittedPass | null }>>;
+  notes: HuddleNoteDto[];
+}
+
+export interface SeatStateDto {
+  occupant: SeatOccupant | null;
+  committed: boolean;
+  rackSize: number;
+}
+
+/** What `table:state` carries: one viewer's own view of one table. */
+export interface TableStateDto {
+  tableId: string;
+  name: string;
+  version: number;
+  phase: Phase | 'lobby';
+  status: TableStatus;
+  hostId: number;
+  isHost: boolean;
+  mySeat: Seat | null;
+  myRack: Tile[];
+  seats: Record<Seat, SeatStateDto>;
+  options: TableOptions;
+  exchangeId: string | null;
+  /** The engine's view for this viewer (null in the lobby). */
+  view: ExchangeView | null;
+  huddle: HuddleState;
+  spectators: number;
+  inviteCode?: string;
+}
+
+export interface ChatMessageDto {
+  id: string;
+  tableId: string;
+  userId: number;
+  displayName: string;
+  seat: Seat | null;
+  text: string;
+  at: string;
+}
+
+export interface ExchangeSummaryDto {
+  id: string;
+  tableId: string;
+  tableName: string;
+  seat: Seat | null;
+  status: 'playing' | 'done';
+  startedAt: string;
+  finishedAt: string | null;
+}
+
+/** Everything a replay needs: the client rebuilds each step with the shared engine. */
+export interface ExchangeReplayDto {
+  id: string;
+  tableId: string;
+  tableName: string;
+  options: ExchangeOptions;
+  log: LogEntry[];
+  seats: Record<Seat, { displayName: string; kind: 'user' | 'bot'; strategy?: string }>;
+  notes: HuddleNoteDto[];
+  startedAt: string;
+  finishedAt: string | null;
+}
+
+// Socket payloads. Every client event answers through an ack.
+const seat = z.enum(SEAT_NAMES, { error: 'A seat is east, south, west or north.' });
+const tileIds = z.array(z.string().min(1).max(16)).max(3);
+
+export const actionSchema = z.discriminatedUnion(
+  'type',
+  [
+    z.object({ type: z.literal('pass'), tiles: tileIds, blind: z.number().int().min(0).max(3).optional() }).strict(),
+    z.object({ type: z.literal('withdraw') }).strict(),
+    z.object({ type: z.literal('vote'), stop: z.boolean() }).strict(),
+    z.object({ type: z.literal('courtesy-ask'), count: z.union([z.literal(0), z.literal(1), z.literal(2), z.literal(3)]) }).strict(),
+  ],
+  { error: 'An action is a pass, withdraw, vote or courtesy-ask.' },
+);
+
+export const clientEventSchemas = {
+  'table:join': z.object({ tableId: z.string().min(1).max(64), as: z.enum(['player', 'spectator']).default('player'), invite: z.string().max(64).optional() }).strict(),
+  'table:sit': z.object({ seat }).strict(),
+  'table:stand': z.object({}).strict().default({}),
+  'table:bot': z.object({ seat, strategy: z.enum(BOT_STRATEGY_IDS, { error: `A bot strategy is one of: ${BOT_STRATEGY_IDS.join(', ')}.` }) }).strict(),
+  'table:start': z.object({}).strict().default({}),
+  'exchange:act': z.object({ action: actionSchema, version: z.number().int().nonnegative().optional() }).strict(),
+  'huddle:call': z.object({}).strict().default({}),
+  'huddle:reveal': z.object({ seat }).strict(),
+  'huddle:note': z.object({ text: z.string().trim().min(1, 'A note needs some text.').max(TABLE_LIMITS.noteMax), seat: seat.optional() }).strict(),
+  'huddle:release': z.object({}).strict().default({}),
+  'chat:send': z.object({ text: z.string().trim().min(1, 'Say something first.').max(TABLE_LIMITS.chatMax, `A message has at most ${TABLE_LIMITS.chatMax} characters.`) }).strict(),
+} as const;
+
+export type ClientEventName = keyof typeof clientEventSchemas;
+export type ClientPayload<E extends ClientEventName> = z.input<(typeof clientEventSchemas)[E]>;
+
+export type AckError = { ok: false; code: string; message: string };
+export type Ack<T extends object = object> = ({ ok: true } & T) | AckError;
+type AckFn = (ack: Ack) => void;
+
+export type ClientToServerEvents = {
+  [E in ClientEventName]: (payload: ClientPayload<E>, ack: AckFn) => void;
+};
+
+export interface ServerToClientEvents {
+  'table:state': (state: TableStateDto) => void;
+  'chat:message': (message: ChatMessageDto) => void;
 }
