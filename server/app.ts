@@ -10,6 +10,10 @@ import { errorHandler, notFoundApi } from './errors';
 import { adminRouter } from './routes/admin';
 import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
+import { exchangesRouter } from './routes/exchanges';
+import { tablesRouter } from './routes/tables';
+import { TableRegistry } from './realtime/registry';
+import type { TableMaster } from './realtime/table-master';
 
 export interface AppDeps {
   config: Config;
@@ -32,6 +36,9 @@ export function createApplication({ config, sequelize }: AppDeps) {
   const session = createSession(sequelize, config);
   const passport = createPassport();
   const onLogout = new Set<(sessionId: string) => void>();
+  const onTableChange = new Set<(master: TableMaster) => void>();
+  // One owner per table, shared by the REST routes and the sockets.
+  const registry = new TableRegistry({ botDelayMs: config.botDelayMs, changed: (master) => onTableChange.forEach((fn) => fn(master)) });
 
   const api = express.Router();
   api.use(express.json({ limit: '100kb' }));
@@ -41,6 +48,8 @@ export function createApplication({ config, sequelize }: AppDeps) {
   api.use('/health', healthRouter(sequelize));
   api.use('/auth', authRouter(passport, config, { onLogout: (sid) => onLogout.forEach((fn) => fn(sid)) }));
   api.use('/admin', adminRouter());
+  api.use('/tables', tablesRouter(registry));
+  api.use('/exchanges', exchangesRouter());
   api.use(notFoundApi);
   app.use('/api', api);
 
@@ -57,6 +66,9 @@ export function createApplication({ config, sequelize }: AppDeps) {
     passport,
     /** Lets the realtime layer hear of sign-outs, to close that session's sockets. */
     onLogout: (fn: (sessionId: string) => void) => onLogout.add(fn),
+    registry,
+    /** Lets the realtime layer hear of every stored table change. */
+    onTableChange: (fn: (master: TableMaster) => void) => onTableChange.add(fn),
     close: () => session.close(),
   };
 }

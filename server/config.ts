@@ -16,6 +16,8 @@ export interface Config {
   /** Session lifetime in ms. */
   sessionMaxAgeMs: number;
   production: boolean;
+  /** How long a bot waits before it acts, in ms. */
+  botDelayMs: number;
 }
 
 function int(value: string | undefined, fallback: number): number {
@@ -44,6 +46,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     clientDir: env.CLIENT_DIR || 'dist/client',
     sessionMaxAgeMs: int(env.SESSION_MAX_AGE_MS, 7 * 24 * 60 * 60 * 1000),
     production,
+    botDelayMs: int(env.BOT_DELAY_MS, 600),
   };
   return { ...config, ...overrides };
 }
@@ -56,6 +59,7 @@ export function testConfig(overrides: Partial<Config> = {}): Config {
     bcryptRounds: 4,
     seedDemo: false,
     clientDir: 'dist/does-not-exist',
+    botDelayMs: 0,
     ...overrides,
   });
 }

@@ -14,16 +14,20 @@ export async function startServer(config: Config) {
   const application = createApplication({ config, sequelize });
   const httpServer = createServer(application.app);
   const io = attachRealtime(httpServer, application);
+  const registry = application.registry;
+  const restored = await registry.restoreOpenTables();
+  if (restored) console.log(`Restored ${restored} table(s) with an exchange under way.`);
   await new Promise<void>((resolve) => httpServer.listen(config.port, resolve));
   const address = httpServer.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
 
   async function close() {
+    await registry.closeAll();
     await io.close();
     application.close();
     await sequelize.close();
   }
-  return { httpServer, io, sequelize, port, close };
+  return { httpServer, io, registry, sequelize, port, close };
 }
 
 /** Starts Rackside and closes it cleanly on SIGTERM or SIGINT. */

@@ -1,8 +1,9 @@
 import type { Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import * as m0001 from './migrations/0001-users-and-sessions';
+import * as m0002 from './migrations/0002-tables-and-exchanges';
 
-const MIGRATIONS = [m0001];
+const MIGRATIONS = [m0001, m0002];
 
 export function migrator(sequelize: Sequelize) {
   return new Umzug({

@@ -1,11 +1,30 @@
+import { randomUUID } from 'node:crypto';
 import type { Server as HttpServer } from 'node:http';
 import type { RequestHandler } from 'express';
-import { Server } from 'socket.io';
+import { Server, type Socket } from 'socket.io';
+import { clientEventSchemas, type Ack, type ClientEventName, type ClientToServerEvents, type ServerToClientEvents } from '../../shared/protocol';
 import type { Application } from '../app';
+import { TableError, type Member, type TableMaster } from './table-master';
+
+interface SocketData {
+  userId: number;
+  displayName: string;
+  isAdmin: boolean;
+  sessionId?: string;
+  tableId?: string;
+  as?: 'player' | 'spectator';
+}
+
+type RacksideSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+
+const room = (tableId: string) => `table:${tableId}`;
 
 /** Socket.IO on the app's HTTP server, sharing its sessions: a socket is the signed-in user of its cookie. */
 export function attachRealtime(httpServer: HttpServer, application: Application) {
-  const io = new Server(httpServer, { maxHttpBufferSize: 64 * 1024, serveClient: false });
+  const io = new Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>(httpServer, {
+    maxHttpBufferSize: 64 * 1024,
+    serveClient: false,
+  });
 
   // Run the session and passport on the handshake only (as Socket.IO's passport how-to shows).
   const onlyHandshake = (middleware: RequestHandler): RequestHandler => (req, res, next) => {
@@ -17,18 +36,172 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
   io.engine.use(onlyHandshake(application.passport.session() as RequestHandler));
 
   io.use((socket, next) => {
-    const req = socket.request as unknown as Express.Request;
+    const req = socket.request as unknown as Express.Request & { sessionID?: string };
     if (!req.user) {
       next(Object.assign(new Error('Please sign in first.'), { data: { code: 'UNAUTHENTICATED' } }));
       return;
     }
+    socket.data = { userId: req.user.id, displayName: req.user.displayName, isAdmin: req.user.role === 'admin', sessionId: req.sessionID };
     next();
   });
 
-  io.on('connection', (socket) => {
-    const req = socket.request as unknown as Express.Request & { sessionID?: string };
-    if (req.sessionID) socket.join(`session:${req.sessionID}`);
-    socket.join(`user:${req.user!.id}`);
+  const registry = application.registry;
+  application.onTableChange((master) => broadcast(master));
+
+  function member(socket: RacksideSocket): Member {
+    return { userId: socket.data.userId, displayName: socket.data.displayName, as: socket.data.as ?? 'player', isAdmin: socket.data.isAdmin };
+  }
+
+  /** Sends every socket at the table its own view, then lets the bots think. */
+  function broadcast(master: TableMaster) {
+    const ids = io.of('/').adapter.rooms.get(room(master.id));
+    for (const id of ids ?? []) {
+      const socket = io.of('/').sockets.get(id) as RacksideSocket | undefined;
+      if (socket) socket.emit('table:state', master.stateFor(member(socket)));
+    }
+    master.wakeBots();
+  }
+
+  function countPresence(master: TableMaster, socket: RacksideSocket, delta: 1 | -1) {
+    if (socket.data.as === 'spectator') {
+      master.spectators = Math.max(0, master.spectators + delta);
+    } else {
+      const n = (master.connected.get(socket.data.userId) ?? 0) + delta;
+      if (n > 0) master.connected.set(socket.data.userId, n);
+      else master.connected.delete(socket.data.userId);
+    }
+    master.version += 1;
+  }
+
+  async function leaveTable(socket: RacksideSocket) {
+    const tableId = socket.data.tableId;
+    if (!tableId) return;
+    socket.data.tableId = undefined;
+    await socket.leave(room(tableId));
+    const master = await registry.peek(tableId);
+    if (master) {
+      countPresence(master, socket, -1);
+      broadcast(master);
+    }
+  }
+
+  io.on('connection', (raw) => {
+    const socket = raw as RacksideSocket;
+    if (socket.data.sessionId) socket.join(`session:${socket.data.sessionId}`);
+
+    /** Parses, runs, broadcasts, then acks: a bad payload or a refused action changes nothing. */
+    function on<E extends ClientEventName>(event: E, run: (payload: ReturnType<(typeof clientEventSchemas)[E]['parse']>) => Promise<object | void>) {
+      socket.on(event as never, async (...args: unknown[]) => {
+        const ack = (typeof args[args.length - 1] === 'function' ? args.pop() : () => undefined) as (a: Ack) => void;
+        const parsed = clientEventSchemas[event].safeParse(args[0] ?? {});
+        if (!parsed.success) {
+          const issue = parsed.error.issues[0];
+          ack({ ok: false, code: 'BAD_INPUT', message: `That ${event} message is not one Rackside understands: ${issue?.path.join('.') || 'payload'}: ${issue?.message}` });
+          return;
+        }
+        try {
+          const extra = await run(parsed.data as never);
+          ack({ ok: true, ...(extra ?? {}) });
+        } catch (err) {
+          if (err instanceof TableError) ack({ ok: false, code: err.code, message: err.message });
+          else {
+            console.error(`Unexpected error in ${event}`, err);
+            ack({ ok: false, code: 'SERVER_ERROR', message: 'Something went wrong on our side. Please try again.' });
+          }
+        }
+      });
+    }
+
+    async function joined(): Promise<TableMaster> {
+      const tableId = socket.data.tableId;
+      const master = tableId ? await registry.peek(tableId) : null;
+      if (!master) throw new TableError('NOT_JOINED', 'Join a table first.');
+      return master;
+    }
+
+    async function after(master: TableMaster, work: Promise<unknown>) {
+      await work;
+      broadcast(master);
+      return { version: master.version };
+    }
+
+    on('table:join', async ({ tableId, as, invite }) => {
+      const master = await registry.get(tableId);
+      if (!master) throw new TableError('NOT_FOUND', 'There is no table with that id.');
+      const { userId, isAdmin } = socket.data;
+      const insider = master.isHost(userId) || master.seatOf(userId) !== null || isAdmin;
+      if (master.row.private && !insider && invite !== master.row.inviteCode) {
+        throw new TableError('INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
+      }
+      if (socket.data.tableId) await leaveTable(socket);
+      socket.data.tableId = tableId;
+      socket.data.as = as;
+      await socket.join(room(tableId));
+      countPresence(master, socket, 1);
+      broadcast(master);
+      return { state: master.stateFor(member(socket)) };
+    });
+
+    on('table:sit', async ({ seat }) => {
+      const master = await joined();
+      return after(master, master.sit(member(socket), seat));
+    });
+    on('table:stand', async () => {
+      const master = await joined();
+      return after(master, master.stand(member(socket)));
+    });
+    on('table:bot', async ({ seat, strategy }) => {
+      const master = await joined();
+      return after(master, master.seatBot(member(socket), seat, strategy));
+    });
+    on('table:start', async () => {
+      const master = await joined();
+      return after(master, master.start(member(socket)));
+    });
+    on('exchange:act', async ({ action, version }) => {
+      const master = await joined();
+      return after(master, master.act(member(socket), action, version));
+    });
+    on('huddle:call', async () => {
+      const master = await joined();
+      return after(master, master.callHuddle(member(socket)));
+    });
+    on('huddle:reveal', async ({ seat }) => {
+      const master = await joined();
+      return after(master, master.reveal(member(socket), seat));
+    });
+    on('huddle:note', async ({ text, seat }) => {
+      const master = await joined();
+      return after(master, master.note(member(socket), text, seat));
+    });
+    on('huddle:release', async () => {
+      const master = await joined();
+      return after(master, master.release(member(socket)));
+    });
+    on('chat:send', async ({ text }) => {
+      const master = await joined();
+      const message = {
+        id: randomUUID(),
+        tableId: master.id,
+        userId: socket.data.userId,
+        displayName: socket.data.displayName,
+        seat: socket.data.as === 'player' ? master.seatOf(socket.data.userId) : null,
+        text,
+        at: new Date().toISOString(),
+      };
+      io.to(room(master.id)).emit('chat:message', message);
+      return { id: message.id };
+    });
+
+    socket.onAny((event: string, ...args: unknown[]) => {
+      if (event in clientEventSchemas) return;
+      const ack = args[args.length - 1];
+      if (typeof ack === 'function') ack({ ok: false, code: 'UNKNOWN_EVENT', message: `Rackside has no "${String(event).slice(0, 40)}" message.` });
+    });
+
+    socket.on('disconnect', () => {
+      leaveTable(socket).catch((err) => console.error('Leaving a table failed', err));
+    });
   });
 
   // Signing out ends that session's live connections too.

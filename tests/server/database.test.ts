@@ -30,7 +30,7 @@ test('migrations run once and record themselves', async () => {
   await migrate(db);
   await migrate(db);
   const executed = await migrator(db).executed();
-  expect(executed.map((m) => m.name)).toEqual(['0001-users-and-sessions']);
+  expect(executed.map((m) => m.name)).toEqual(['0001-users-and-sessions', '0002-tables-and-exchanges']);
   const tables = await db.getQueryInterface().showAllTables();
   expect(tables).toEqual(expect.arrayContaining(['Users', 'Sessions']));
 });

@@ -1,8 +1,14 @@
 import type { Sequelize } from 'sequelize';
+import { initExchange } from './exchange';
+import { initTable } from './table';
 import { initUser } from './user';
 
 export { User, ROLES, type Role, type PublicUser } from './user';
+export { TableRow, type StoredOccupant, type StoredSeats } from './table';
+export { ExchangeRow, ExchangeEventRow, HuddleNoteRow, participantsKey, isParticipant, type EventType } from './exchange';
 
 export function initModels(sequelize: Sequelize) {
   initUser(sequelize);
+  initTable(sequelize);
+  initExchange(sequelize);
 }

@@ -1,0 +1,42 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { Seat } from '../../../shared/seats';
+import type { TableOptions, TableStatus } from '../../../shared/protocol';
+
+/** Who sits in a seat, as stored: a user or a bot. */
+export type StoredOccupant = { kind: 'user'; userId: number; displayName: string } | { kind: 'bot'; strategy: string; displayName: string };
+export type StoredSeats = Record<Seat, StoredOccupant | null>;
+
+export class TableRow extends Model<InferAttributes<TableRow>, InferCreationAttributes<TableRow>> {
+  declare id: string;
+  declare name: string;
+  declare hostId: number;
+  declare hostName: string;
+  declare private: boolean;
+  declare inviteCode: string | null;
+  declare options: TableOptions;
+  declare status: TableStatus;
+  declare seats: StoredSeats;
+  declare currentExchangeId: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export function initTable(sequelize: Sequelize) {
+  TableRow.init(
+    {
+      id: { type: DataTypes.STRING(36), primaryKey: true },
+      name: { type: DataTypes.STRING(80), allowNull: false },
+      hostId: { type: DataTypes.INTEGER, allowNull: false },
+      hostName: { type: DataTypes.STRING(60), allowNull: false },
+      private: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      inviteCode: { type: DataTypes.STRING(32), allowNull: true },
+      options: { type: DataTypes.JSON, allowNull: false },
+      status: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'lobby' },
+      seats: { type: DataTypes.JSON, allowNull: false },
+      currentExchangeId: { type: DataTypes.STRING(36), allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'Tables' },
+  );
+}

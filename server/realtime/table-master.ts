@@ -1,0 +1,491 @@
+/**
+ * The authority for one table: it owns the table's seats, its current exchange and its huddle,
+ * takes one action at a time, stores every accepted step before anyone hears of it, and hands
+ * each viewer only what that viewer may see.
+ */
+import { randomBytes, randomUUID } from 'node:crypto';
+import { chooseBotAction, isBotStrategyId, BOT_STRATEGIES } from '../../shared/analysis/bots';
+import { starterPatterns } from '../../shared/analysis';
+import { act, canResolve, createExchange, isPassPhase, rackOf, resolve, viewFor } from '../../shared/exchange';
+import type { Action, ExchangeOptions, ExchangeState, Viewer } from '../../shared/exchange/types';
+import type { HuddleNoteDto, SeatOccupant, SeatStateDto, TableDto, TableOptions, TableStateDto } from '../../shared/protocol';
+import { SEATS, type Seat } from '../../shared/seats';
+import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredSeats } from '../db/models';
+
+export class TableError extends Error {
+  constructor(
+    readonly code: string,
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+export interface Member {
+  userId: number;
+  displayName: string;
+  as: 'player' | 'spectator';
+  isAdmin: boolean;
+}
+
+interface Huddle {
+  open: boolean;
+  revealed: Seat[];
+  /** The number of resolved passes when the last huddle opened, so each pass is held at most once automatically. */
+  heldAt: number | null;
+}
+
+interface LiveExchange {
+  id: string;
+  options: ExchangeOptions;
+  state: ExchangeState;
+  seq: number;
+  huddle: Huddle;
+  notes: HuddleNoteDto[];
+}
+
+type StoredEvent = { type: EventType; seat: Seat | null; payload: unknown; userId: number | null };
+
+const closedHuddle = (): Huddle => ({ open: false, revealed: [], heldAt: null });
+
+export interface MasterHooks {
+  /** Called after every change, once it is stored: the transport sends each viewer its view. */
+  changed(master: TableMaster): void;
+  botDelayMs: number;
+}
+
+export class TableMaster {
+  version = 0;
+  exchange: LiveExchange | null = null;
+  private queue: Promise<unknown> = Promise.resolve();
+  private botTimers = new Map<Seat, NodeJS.Timeout>();
+  private closed = false;
+  /** User ids with at least one open socket at this table. */
+  readonly connected = new Map<number, number>();
+  spectators = 0;
+
+  constructor(
+    public row: TableRow,
+    private hooks: MasterHooks,
+  ) {}
+
+  get id() {
+    return this.row.id;
+  }
+
+  /** Runs `task` after every task queued before it: one action at a time per table. */
+  run<T>(task: () => Promise<T> | T): Promise<T> {
+    const next = this.queue.then(() => task());
+    this.queue = next.catch(() => undefined);
+    return next;
+  }
+
+  /** Rebuilds the open exchange from its stored events (after a restart). */
+  static async load(row: TableRow, hooks: MasterHooks): Promise<TableMaster> {
+    const master = new TableMaster(row, hooks);
+    if (row.currentExchangeId) {
+      const exchangeRow = await ExchangeRow.findByPk(row.currentExchangeId);
+      if (exchangeRow) {
+        const events = await ExchangeEventRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['seq', 'ASC']] });
+        const notes = await HuddleNoteRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['id', 'ASC']] });
+        master.exchange = rebuild(exchangeRow, events, notes.map(noteDto));
+        master.version = events.length + 1;
+      }
+    }
+    return master;
+  }
+
+  // ───────────── who is asking ─────────────
+
+  seatOf(userId: number): Seat | null {
+    return SEATS.find((seat) => {
+      const occupant = this.row.seats[seat];
+      return occupant?.kind === 'user' && occupant.userId === userId;
+    }) ?? null;
+  }
+
+  isHost(userId: number) {
+    return this.row.hostId === userId;
+  }
+
+  private requireHost(viewer: Member) {
+    if (!this.isHost(viewer.userId)) throw new TableError('NOT_HOST', 'Only the host of this table can do that.');
+  }
+
+  private requireExchange(): LiveExchange {
+    if (this.row.status !== 'playing' || !this.exchange) throw new TableError('NOT_STARTED', 'No exchange is under way at this table.');
+    return this.exchange;
+  }
+
+  private requireSeatChangesAllowed() {
+    if (this.row.status === 'playing') throw new TableError('EXCHANGE_UNDER_WAY', 'Seats are fixed while an exchange is under way.');
+  }
+
+  // ───────────── seats and start ─────────────
+
+  sit(viewer: Member, seat: Seat) {
+    return this.run(async () => {
+      if (viewer.as !== 'player') throw new TableError('SPECTATOR', 'You joined to watch. Join as a player to take a seat.');
+      this.requireSeatChangesAllowed();
+      const occupant = this.row.seats[seat];
+      if (occupant?.kind === 'user' && occupant.userId === viewer.userId) return;
+      if (occupant) throw new TableError('SEAT_TAKEN', `The ${seat} seat is taken. Pick an empty seat.`);
+      const seats = { ...this.row.seats };
+      const current = this.seatOf(viewer.userId);
+      if (current) seats[current] = null;
+      seats[seat] = { kind: 'user', userId: viewer.userId, displayName: viewer.displayName };
+      await this.saveRow({ seats });
+    });
+  }
+
+  stand(viewer: Member) {
+    return this.run(async () => {
+      this.requireSeatChangesAllowed();
+      const current = this.seatOf(viewer.userId);
+      if (!current) throw new TableError('NOT_SEATED', 'You are not sitting at this table.');
+      await this.saveRow({ seats: { ...this.row.seats, [current]: null } });
+    });
+  }
+
+  seatBot(viewer: Member, seat: Seat, strategy: string) {
+    return this.run(async () => {
+      this.requireHost(viewer);
+      if (!isBotStrategyId(strategy)) throw new TableError('BAD_INPUT', 'Unknown bot strategy.');
+      const occupant = this.row.seats[seat];
+      if (occupant?.kind === 'user') {
+        // A player who is still here keeps the seat; one who left may be replaced.
+        if (this.row.status !== 'playing' || this.connected.has(occupant.userId)) {
+          throw new TableError('SEAT_TAKEN', `${occupant.displayName} is sitting ${seat}. A bot can only replace a player who has left during an exchange.`);
+        }
+      }
+      const info = BOT_STRATEGIES.find((s) => s.id === strategy)!;
+      await this.saveRow({ seats: { ...this.row.seats, [seat]: { kind: 'bot', strategy, displayName: `${info.name} (bot)` } } });
+    });
+  }
+
+  start(viewer: Member) {
+    return this.run(async () => {
+      this.requireHost(viewer);
+      if (this.row.status === 'playing') throw new TableError('EXCHANGE_UNDER_WAY', 'An exchange is already under way.');
+      const empty = SEATS.filter((seat) => !this.row.seats[seat]);
+      if (empty.length) throw new TableError('SEATS_EMPTY', `Fill every seat first (empty: ${empty.join(', ')}). Seat a bot in any seat nobody takes.`);
+      const options: ExchangeOptions = {
+        seed: this.row.options.seed ?? randomBytes(12).toString('base64url'),
+        jokers: this.row.options.jokers,
+        secondCharleston: this.row.options.secondCharleston,
+        courtesy: this.row.options.courtesy,
+      };
+      const state = createExchange(options);
+      const id = randomUUID();
+      const participantIds = SEATS.flatMap((seat) => {
+        const o = this.row.seats[seat];
+        return o?.kind === 'user' ? [o.userId] : [];
+      });
+      await ExchangeRow.create({
+        id,
+        tableId: this.row.id,
+        tableName: this.row.name,
+        hostId: this.row.hostId,
+        options,
+        seats: this.row.seats,
+        participants: participantsKey(participantIds),
+        status: 'playing',
+        startedAt: new Date(),
+        finishedAt: null,
+      });
+      await this.saveRow({ status: 'playing', currentExchangeId: id });
+      this.exchange = { id, options, state, seq: 0, huddle: closedHuddle(), notes: [] };
+    });
+  }
+
+  // ───────────── the exchange ─────────────
+
+  act(viewer: Member, action: Action, version?: number) {
+    return this.run(async () => {
+      const seat = this.seatOf(viewer.userId);
+      if (!seat || viewer.as !== 'player') throw new TableError('NOT_SEATED', 'Take a seat at this table to play.');
+      const live = this.requireExchange();
+      if (version !== undefined && version !== this.version) {
+        throw new TableError('STALE', 'The table changed while you were choosing. Look again and resend.');
+      }
+      await this.applyAct(live, seat, action, viewer.userId);
+    });
+  }
+
+  private async applyAct(live: LiveExchange, seat: Seat, action: Action, userId: number | null) {
+    const result = act(live.state, seat, action);
+    if (!result.ok) throw new TableError(result.code, result.message);
+    await this.store(live, { type: 'act', seat, payload: action, userId });
+    live.state = result.state;
+    // The action is stored and so accepted; a failure to settle is retried on the next action or restart.
+    await this.settle(live).catch((err) => console.error(`Table ${this.id} could not settle after an action`, err));
+  }
+
+  /** Finishes whatever the stored log left due (a resolve that a crash cut off). */
+  resume() {
+    return this.run(async () => {
+      if (this.exchange && this.row.status === 'playing') await this.settle(this.exchange);
+    });
+  }
+
+  /** After a change: hold the pass in a huddle, or resolve it, or finish the exchange. */
+  private async settle(live: LiveExchange) {
+    const { state, huddle } = live;
+    if (!canResolve(state) || huddle.open) return;
+    const passIndex = state.history.length;
+    if (this.row.options.huddleEveryPass && isPassPhase(state.phase) && huddle.heldAt !== passIndex) {
+      await this.store(live, { type: 'huddle-call', seat: null, payload: { auto: true }, userId: null });
+      live.huddle = { open: true, revealed: [], heldAt: passIndex };
+      return;
+    }
+    const resolved = resolve(state);
+    if (!resolved.ok) throw new TableError(resolved.code, resolved.message);
+    await this.store(live, { type: 'resolve', seat: null, payload: null, userId: null });
+    live.state = resolved.state;
+    live.huddle = { ...live.huddle, revealed: [] };
+    if (live.state.phase === 'done') await this.finish(live);
+  }
+
+  private async finish(live: LiveExchange) {
+    await ExchangeRow.update({ status: 'done', finishedAt: new Date() }, { where: { id: live.id } });
+    await this.saveRow({ status: 'done' });
+  }
+
+  // ───────────── the huddle ─────────────
+
+  callHuddle(viewer: Member) {
+    return this.run(async () => {
+      this.requireHost(viewer);
+      const live = this.requireExchange();
+      if (!isPassPhase(live.state.phase)) throw new TableError('WRONG_PHASE', 'A huddle holds a pass; call it while the table is choosing tiles.');
+      if (live.huddle.open) throw new TableError('HUDDLE_OPEN', 'This pass is already held.');
+      await this.store(live, { type: 'huddle-call', seat: null, payload: { auto: false }, userId: viewer.userId });
+      live.huddle = { open: true, revealed: [], heldAt: live.state.history.length };
+    });
+  }
+
+  reveal(viewer: Member, seat: Seat) {
+    return this.run(async () => {
+      this.requireHost(viewer);
+      const live = this.requireExchange();
+      if (!live.huddle.open) throw new TableError('NO_HUDDLE', 'Call a huddle first: seats are shown only while a pass is held.');
+      if (live.huddle.revealed.includes(seat)) return;
+      await this.store(live, { type: 'huddle-reveal', seat, payload: null, userId: viewer.userId });
+      live.huddle = { ...live.huddle, revealed: [...live.huddle.revealed, seat] };
+    });
+  }
+
+  note(viewer: Member, text: string, seat?: Seat) {
+    return this.run(async () => {
+      this.requireHost(viewer);
+      const live = this.requireExchange();
+      const row = await HuddleNoteRow.create({
+        exchangeId: live.id,
+        passIndex: live.state.history.length,
+        phase: live.state.phase,
+        seat: seat ?? null,
+        authorId: viewer.userId,
+        authorName: viewer.displayName,
+        text,
+      });
+      live.notes = [...live.notes, noteDto(row)];
+    });
+  }
+
+  release(viewer: Member) {
+    return this.run(async () => {
+      this.requireHost(viewer);
+      const live = this.requireExchange();
+      if (!live.huddle.open) throw new TableError('NO_HUDDLE', 'No huddle is open.');
+      await this.store(live, { type: 'huddle-release', seat: null, payload: null, userId: viewer.userId });
+      live.huddle = { ...live.huddle, open: false, revealed: [] };
+      await this.settle(live);
+    });
+  }
+
+  // ───────────── storage ─────────────
+
+  /** Appends one event at the next position of the log. Nothing is told to anyone before this returns. */
+  private async store(live: LiveExchange, event: StoredEvent) {
+    await ExchangeEventRow.create({ exchangeId: live.id, seq: live.seq, ...event });
+    live.seq += 1;
+    this.version += 1;
+  }
+
+  private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId'>>) {
+    await this.row.update(changes);
+    this.version += 1;
+  }
+
+  // ───────────── bots ─────────────
+
+  /** Lets every bot whose seat has something to do act, one after another, through the queue. */
+  wakeBots() {
+    const live = this.exchange;
+    if (this.closed || !live || this.row.status !== 'playing') return;
+    for (const seat of SEATS) {
+      const occupant = this.row.seats[seat];
+      if (occupant?.kind !== 'bot' || this.botTimers.has(seat)) continue;
+      if (!chooseBotAction(occupant.strategy as never, viewFor(live.state, seat), starterPatterns, `${live.id}:${seat}`)) continue;
+      const timer = setTimeout(() => {
+        this.run(async () => {
+          this.botTimers.delete(seat);
+          const now = this.exchange;
+          const bot = this.row.seats[seat];
+          if (this.closed || !now || bot?.kind !== 'bot' || this.row.status !== 'playing') return false;
+          const action = chooseBotAction(bot.strategy as never, viewFor(now.state, seat), starterPatterns, `${now.id}:${seat}`);
+          if (!action) return false;
+          try {
+            await this.applyAct(now, seat, action, null);
+            return true;
+          } catch (err) {
+            console.error(`Bot at ${seat} of table ${this.id} made a move the engine refused`, err);
+            return false;
+          }
+        }).then((moved) => {
+          if (moved) this.hooks.changed(this);
+        });
+      }, this.hooks.botDelayMs);
+      this.botTimers.set(seat, timer);
+    }
+  }
+
+  close() {
+    this.closed = true;
+    this.botTimers.forEach((t) => clearTimeout(t));
+    this.botTimers.clear();
+  }
+
+  // ───────────── views ─────────────
+
+  occupantDto(seat: Seat): SeatOccupant | null {
+    const o = this.row.seats[seat];
+    if (!o) return null;
+    if (o.kind === 'bot') return o;
+    return { ...o, connected: this.connected.has(o.userId) };
+  }
+
+  tableDto(forUserId: number | null): TableDto {
+    const row = this.row;
+    return {
+      id: row.id,
+      name: row.name,
+      hostId: row.hostId,
+      hostName: row.hostName,
+      private: row.private,
+      status: row.status,
+      options: row.options,
+      seats: Object.fromEntries(SEATS.map((s) => [s, this.occupantDto(s)])) as TableDto['seats'],
+      ...(forUserId === row.hostId && row.inviteCode ? { inviteCode: row.inviteCode } : {}),
+      currentExchangeId: row.currentExchangeId,
+      createdAt: row.createdAt.toISOString(),
+    };
+  }
+
+  /** Which engine view a viewer gets. */
+  viewerKind(viewer: Member): Viewer {
+    const seat = viewer.as === 'player' ? this.seatOf(viewer.userId) : null;
+    const live = this.exchange;
+    if (live && live.state.phase === 'done' && (seat || this.isHost(viewer.userId))) return 'replay';
+    if (this.isHost(viewer.userId) && this.row.options.teaching) return 'host';
+    return seat ?? 'spectator';
+  }
+
+  stateFor(viewer: Member): TableStateDto {
+    const live = this.exchange;
+    const mySeat = viewer.as === 'player' ? this.seatOf(viewer.userId) : null;
+    const view = live ? viewFor(live.state, this.viewerKind(viewer)) : null;
+    const seats = Object.fromEntries(
+      SEATS.map((seat): [Seat, SeatStateDto] => [
+        seat,
+        { occupant: this.occupantDto(seat), committed: view?.seats[seat].committed ?? false, rackSize: view?.seats[seat].rackSize ?? 0 },
+      ]),
+    ) as Record<Seat, SeatStateDto>;
+    const revealed: TableStateDto['huddle']['revealed'] = {};
+    if (live?.huddle.open) {
+      for (const seat of live.huddle.revealed) revealed[seat] = { rack: rackOf(live.state, seat), pass: live.state.pending[seat] ?? null };
+    }
+    return {
+      tableId: this.row.id,
+      name: this.row.name,
+      version: this.version,
+      phase: live ? live.state.phase : 'lobby',
+      status: this.row.status,
+      hostId: this.row.hostId,
+      isHost: this.isHost(viewer.userId),
+      mySeat,
+      myRack: mySeat && live ? rackOf(live.state, mySeat) : [],
+      seats,
+      options: this.row.options,
+      exchangeId: live?.id ?? null,
+      view,
+      huddle: { open: live?.huddle.open ?? false, revealed, notes: live ? notesFor(live, this.viewerKind(viewer)) : [] },
+      spectators: this.spectators,
+      ...(this.isHost(viewer.userId) && this.row.inviteCode ? { inviteCode: this.row.inviteCode } : {}),
+    };
+  }
+}
+
+/** Notes are for everyone at the table as they are written; a note on a seat is shown once that seat may be seen. */
+function notesFor(live: LiveExchange, _viewer: Viewer): HuddleNoteDto[] {
+  return live.notes;
+}
+
+function noteDto(row: HuddleNoteRow): HuddleNoteDto {
+  return {
+    id: row.id,
+    passIndex: row.passIndex,
+    phase: row.phase as HuddleNoteDto['phase'],
+    seat: (row.seat as Seat | null) ?? null,
+    authorName: row.authorName,
+    text: row.text,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+/** Folds stored events back into a live exchange: the same function serves restarts and checks. */
+export function rebuild(row: ExchangeRow, events: ExchangeEventRow[], notes: HuddleNoteDto[]): LiveExchange {
+  let state = createExchange(row.options);
+  let huddle = closedHuddle();
+  for (const event of events) {
+    switch (event.type) {
+      case 'act': {
+        const result = act(state, event.seat as Seat, event.payload as Action);
+        if (!result.ok) throw new Error(`Stored event ${event.seq} of exchange ${row.id} no longer applies: ${result.message}`);
+        state = result.state;
+        break;
+      }
+      case 'resolve': {
+        const result = resolve(state);
+        if (!result.ok) throw new Error(`Stored resolve ${event.seq} of exchange ${row.id} no longer applies: ${result.message}`);
+        state = result.state;
+        huddle = { ...huddle, revealed: [] };
+        break;
+      }
+      case 'huddle-call':
+        huddle = { open: true, revealed: [], heldAt: state.history.length };
+        break;
+      case 'huddle-reveal':
+        huddle = { ...huddle, revealed: [...huddle.revealed, event.seat as Seat] };
+        break;
+      case 'huddle-release':
+        huddle = { ...huddle, open: false, revealed: [] };
+        break;
+    }
+  }
+  return { id: row.id, options: row.options, state, seq: events.length, huddle, notes };
+}
+
+export function defaultTableOptions(input: Partial<TableOptions> = {}): TableOptions {
+  return {
+    seed: input.seed ?? null,
+    jokers: input.jokers ?? true,
+    secondCharleston: input.secondCharleston ?? true,
+    courtesy: input.courtesy ?? true,
+    huddleEveryPass: input.huddleEveryPass ?? false,
+    teaching: input.teaching ?? false,
+    hideAdvice: input.hideAdvice ?? false,
+  };
+}
+
+export type { StoredSeats };

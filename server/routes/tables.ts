@@ -1,0 +1,75 @@
+import { randomBytes, randomUUID } from 'node:crypto';
+import { Router } from 'express';
+import { Op } from 'sequelize';
+import { createTableSchema } from '../../shared/protocol';
+import { SEATS } from '../../shared/seats';
+import { requireUser } from '../auth/guards';
+import { TableRow } from '../db/models';
+import { badInput, HttpError } from '../errors';
+import type { TableRegistry } from '../realtime/registry';
+import { defaultTableOptions, TableMaster } from '../realtime/table-master';
+
+const noHooks = { changed: () => undefined, botDelayMs: 0 };
+
+export function tablesRouter(registry: TableRegistry) {
+  const router = Router();
+  router.use(requireUser);
+
+  /** The live owner when this process has loaded the table, else a read-only view of the row. */
+  async function dtoOf(row: TableRow, userId: number) {
+    const master = (await registry.peek(row.id)) ?? new TableMaster(row, noHooks);
+    return master.tableDto(userId);
+  }
+
+  router.post('/', async (req, res) => {
+    const parsed = createTableSchema.safeParse(req.body ?? {});
+    if (!parsed.success) throw badInput(parsed.error);
+    const { name, options } = parsed.data;
+    const row = await TableRow.create({
+      id: randomUUID(),
+      name,
+      hostId: req.user!.id,
+      hostName: req.user!.displayName,
+      private: parsed.data.private ?? false,
+      inviteCode: parsed.data.private ? randomBytes(12).toString('base64url') : null,
+      options: defaultTableOptions(options),
+      status: 'lobby',
+      seats: Object.fromEntries(SEATS.map((s) => [s, null])) as TableRow['seats'],
+      currentExchangeId: null,
+    });
+    res.status(201).json({ table: await dtoOf(row, req.user!.id) });
+  });
+
+  router.get('/', async (req, res) => {
+    const userId = req.user!.id;
+    const rows = await TableRow.findAll({
+      where: { [Op.or]: [{ private: false }, { hostId: userId }] },
+      order: [['updatedAt', 'DESC']],
+      limit: 200,
+    });
+    // Private tables where the user sits but does not host are found through the seats.
+    const seatedPrivate = await TableRow.findAll({ where: { private: true, hostId: { [Op.ne]: userId } }, order: [['updatedAt', 'DESC']], limit: 500 });
+    const mine: TableRow[] = [];
+    const open: TableRow[] = [];
+    const isMine = (row: TableRow) => row.hostId === userId || SEATS.some((s) => { const o = row.seats[s]; return o?.kind === 'user' && o.userId === userId; });
+    for (const row of rows) (isMine(row) ? mine : open).push(row);
+    for (const row of seatedPrivate) if (isMine(row)) mine.push(row);
+    res.json({
+      mine: await Promise.all(mine.map((r) => dtoOf(r, userId))),
+      open: await Promise.all(open.map((r) => dtoOf(r, userId))),
+    });
+  });
+
+  router.get('/:id', async (req, res) => {
+    const row = await TableRow.findByPk(String(req.params.id));
+    if (!row) throw new HttpError(404, 'NOT_FOUND', 'There is no table with that id.');
+    const userId = req.user!.id;
+    const insider = row.hostId === userId || req.user!.role === 'admin' || SEATS.some((s) => { const o = row.seats[s]; return o?.kind === 'user' && o.userId === userId; });
+    if (row.private && !insider && req.query.invite !== row.inviteCode) {
+      throw new HttpError(403, 'INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
+    }
+    res.json({ table: await dtoOf(row, userId) });
+  });
+
+  return router;
+}

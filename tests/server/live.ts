@@ -1,0 +1,133 @@
+/** Helpers for live-table tests: a real server on port 0 and real signed-in socket.io clients. */
+import type { AddressInfo } from 'node:net';
+import { io as connect, type Socket } from 'socket.io-client';
+import request from 'supertest';
+import type { Action } from '../../shared/exchange/types';
+import type { Ack, ClientEventName, TableStateDto, ChatMessageDto } from '../../shared/protocol';
+import { SEATS, type Seat } from '../../shared/seats';
+import { loadConfig, type Config } from '../../server/config';
+import { startServer } from '../../server/index';
+
+export type Server = Awaited<ReturnType<typeof startServer>> & { url: string };
+
+export async function liveServer(overrides: Partial<Config> = {}): Promise<Server> {
+  const server = await startServer(
+    loadConfig({}, { port: 0, databaseUrl: 'sqlite::memory:', bcryptRounds: 4, seedDemo: false, sessionSecret: 'live-test', clientDir: 'none', botDelayMs: 0, ...overrides }),
+  );
+  return { ...server, url: `http://127.0.0.1:${(server.httpServer.address() as AddressInfo).port}` };
+}
+
+export class Client {
+  states: TableStateDto[] = [];
+  chats: ChatMessageDto[] = [];
+  private waiters: { pred: (s: TableStateDto) => boolean; resolve: (s: TableStateDto) => void }[] = [];
+  constructor(
+    readonly name: string,
+    readonly cookie: string,
+    public socket: Socket,
+  ) {
+    this.listen();
+  }
+
+  listen() {
+    this.socket.on('table:state', (state: TableStateDto) => {
+      this.states.push(state);
+      this.waiters = this.waiters.filter((w) => {
+        if (!w.pred(state)) return true;
+        w.resolve(state);
+        return false;
+      });
+    });
+    this.socket.on('chat:message', (m: ChatMessageDto) => this.chats.push(m));
+  }
+
+  get state(): TableStateDto {
+    const s = this.states[this.states.length - 1];
+    if (!s) throw new Error(`${this.name} has no state yet`);
+    return s;
+  }
+
+  /** Resolves with the first state (the latest one included) that satisfies pred. */
+  until(pred: (s: TableStateDto) => boolean, timeoutMs = 5000): Promise<TableStateDto> {
+    const latest = this.states[this.states.length - 1];
+    if (latest && pred(latest)) return Promise.resolve(latest);
+    return new Promise((resolve, reject) => {
+      const timer = setTimeout(() => reject(new Error(`${this.name}: no matching state within ${timeoutMs} ms (last phase ${latest?.phase})`)), timeoutMs);
+      this.waiters.push({ pred, resolve: (s) => (clearTimeout(timer), resolve(s)) });
+    });
+  }
+
+  async emit(event: ClientEventName | string, payload?: unknown): Promise<Ack & Record<string, unknown>> {
+    const timed = this.socket.timeout(5000);
+    return (payload === undefined ? timed.emitWithAck(event) : timed.emitWithAck(event, payload)) as Promise<Ack & Record<string, unknown>>;
+  }
+
+  async ok(event: ClientEventName, payload?: unknown) {
+    const ack = await this.emit(event, payload);
+    if (!ack.ok) throw new Error(`${this.name} ${event}: ${ack.code} ${ack.message}`);
+    return ack;
+  }
+}
+
+export async function register(server: Server, name: string): Promise<string> {
+  const email = `${name.toLowerCase()}@harborlane.test`;
+  const res = await request(server.url).post('/api/auth/register').send({ email, password: 'tiles-and-tea', displayName: name });
+  if (res.status !== 201) throw new Error(`register ${name}: ${res.status} ${JSON.stringify(res.body)}`);
+  const cookie = (res.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('rackside.sid='))!;
+  return cookie.split(';')[0];
+}
+
+export async function signIn(server: Server, name: string): Promise<string> {
+  const res = await request(server.url).post('/api/auth/login').send({ email: `${name.toLowerCase()}@harborlane.test`, password: 'tiles-and-tea' });
+  return (res.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('rackside.sid='))!.split(';')[0];
+}
+
+export function openSocket(server: Server, cookie: string): Promise<Socket> {
+  const socket = connect(server.url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: cookie } });
+  return new Promise((resolve, reject) => {
+    socket.once('connect', () => resolve(socket));
+    socket.once('connect_error', reject);
+  });
+}
+
+export async function client(server: Server, name: string, cookie?: string) {
+  const c = cookie ?? (await register(server, name));
+  return new Client(name, c, await openSocket(server, c));
+}
+
+export async function createTable(server: Server, cookie: string, body: object = {}) {
+  const res = await request(server.url).post('/api/tables').set('Cookie', cookie).send({ name: 'Harbor Lane practice', ...body });
+  if (res.status !== 201) throw new Error(`create table: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body.table as { id: string; inviteCode?: string };
+}
+
+/** Host plus three others, each seated in turn order, ready to start. */
+export async function fullTable(server: Server, body: object = {}, names = ['Ines', 'Theo', 'Mina', 'Ruth']) {
+  const clients = [];
+  for (const name of names) clients.push(await client(server, name));
+  const table = await createTable(server, clients[0].cookie, body);
+  for (const [i, c] of clients.entries()) {
+    await c.ok('table:join', { tableId: table.id, as: 'player', invite: table.inviteCode });
+    await c.ok('table:sit', { seat: SEATS[i] });
+  }
+  return { table, clients, host: clients[0] };
+}
+
+/** A plain legal choice for a seat from its own latest state: the first non-joker tiles, optional blind. */
+export function simpleAction(state: TableStateDto, opts: { blind?: number; stop?: boolean; ask?: 0 | 1 | 2 | 3 } = {}): Action | null {
+  const view = state.view!;
+  const seat = state.mySeat!;
+  if (view.seats[seat].committed) return null;
+  if (state.phase === 'vote') return { type: 'vote', stop: opts.stop ?? false };
+  if (state.phase === 'courtesy-ask') return { type: 'courtesy-ask', count: opts.ask ?? 2 };
+  if (view.passSize > 0) {
+    const blind = view.blindAllowed ? (opts.blind ?? 0) : 0;
+    const tiles = state.myRack.filter((t) => t.kind !== 'joker').slice(0, view.passSize - blind).map((t) => t.id);
+    return { type: 'pass', tiles, ...(blind ? { blind } : {}) };
+  }
+  return null;
+}
+
+export function seatIndex(seat: Seat) {
+  return SEATS.indexOf(seat);
+}
