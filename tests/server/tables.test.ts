@@ -8,7 +8,7 @@ import type { Phase } from '../../shared/exchange/types';
 import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
 import { ExchangeEventRow } from '../../server/db/models';
-import { client, Client, createTable, fullTable, liveServer, openSocket, signIn, simpleAction, type Server } from './live';
+import { client, Client, createTable, fullTable, liveServer, openSocket, simpleAction, type Server } from './live';
 
 let server: Server | undefined;
 const dirs: string[] = [];

@@ -1,0 +1,60 @@
+import request from 'supertest';
+import { afterEach, beforeEach, expect, test } from 'vitest';
+import { Client, client, createTable, fullTable, liveServer, register, type Server } from './live';
+
+let server: Server;
+const clients: Client[] = [];
+beforeEach(async () => {
+  server = await liveServer();
+});
+afterEach(async () => {
+  clients.splice(0).forEach((c) => c.socket.disconnect());
+  await server.close();
+});
+
+test('creating a table checks every field and stores the options', async () => {
+  const cookie = await register(server, 'Ines');
+  const bad = await request(server.url).post('/api/tables').set('Cookie', cookie).send({ name: '', options: { seed: 'x'.repeat(200), jokers: 'yes', colour: 'red' } });
+  expect(bad.status).toBe(400);
+  expect(bad.body.error.code).toBe('BAD_INPUT');
+  expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['name', 'options.seed', 'options.jokers']));
+  const ok = await request(server.url)
+    .post('/api/tables')
+    .set('Cookie', cookie)
+    .send({ name: 'Tuesday drill', options: { seed: 'harbor-lane-week-01', jokers: false, secondCharleston: false, courtesy: false, huddleEveryPass: true, teaching: true, hideAdvice: true } });
+  expect(ok.status).toBe(201);
+  expect(ok.body.table).toMatchObject({
+    name: 'Tuesday drill',
+    status: 'lobby',
+    private: false,
+    options: { seed: 'harbor-lane-week-01', jokers: false, secondCharleston: false, courtesy: false, huddleEveryPass: true, teaching: true, hideAdvice: true },
+    seats: { east: null, south: null, west: null, north: null },
+  });
+});
+
+test('my tables and open tables are listed apart; an unknown table is 404', async () => {
+  const ines = await register(server, 'Ines');
+  const theo = await register(server, 'Theo');
+  const a = await createTable(server, ines, { name: 'Ines open' });
+  const b = await createTable(server, theo, { name: 'Theo open' });
+  const list = await request(server.url).get('/api/tables').set('Cookie', ines);
+  expect(list.body.mine.map((t: { id: string }) => t.id)).toEqual([a.id]);
+  expect(list.body.open.map((t: { id: string }) => t.id)).toEqual([b.id]);
+  expect((await request(server.url).get('/api/tables/nope').set('Cookie', ines)).status).toBe(404);
+  expect((await request(server.url).get('/api/tables')).status).toBe(401);
+});
+
+test('a replay opens only when the exchange is done, and only to its players, its host and admins', async () => {
+  const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } });
+  clients.push(...t.clients);
+  await t.host.ok('table:start');
+  const exchangeId = (await t.host.until((s) => s.exchangeId !== null)).exchangeId!;
+  const early = await request(server.url).get(`/api/exchanges/${exchangeId}/replay`).set('Cookie', t.host.cookie);
+  expect(early.status).toBe(409);
+  expect(early.body.error.code).toBe('NOT_FINISHED');
+  const outsider = await client(server, 'Sol');
+  clients.push(outsider);
+  expect((await request(server.url).get(`/api/exchanges/${exchangeId}/replay`).set('Cookie', outsider.cookie)).status).toBe(403);
+  expect((await request(server.url).get('/api/exchanges').set('Cookie', outsider.cookie)).body.exchanges).toEqual([]);
+  expect((await request(server.url).get('/api/exchanges/none/replay').set('Cookie', outsider.cookie)).status).toBe(404);
+});
