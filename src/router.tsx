@@ -14,6 +14,8 @@ export const routes: RouteObject[] = [
       { path: '/sign-in', element: <SignInPage /> },
       { path: '/register', element: <RegisterPage /> },
       { path: '/admin/users', element: <AdminUsersPage /> },
+      // The live table, replays and history load their own code, so sign-in and home stay small.
+      { path: '/tables/:id', lazy: async () => ({ Component: (await import('./routes/TablePage')).TablePage }) },
       { path: '*', element: <NotFoundPage /> },
     ],
   },

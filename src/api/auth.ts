@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { LoginInput, RegisterInput, UserDto } from '../../shared/protocol';
+import { sessionChanged } from '../realtime/session';
 import { api, ApiError } from './client';
 
 export async function getMe(): Promise<UserDto | null> {
@@ -21,7 +22,10 @@ export function useSignIn() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: LoginInput) => api<{ user: UserDto }>('/auth/login', { method: 'POST', body: input }),
-    onSuccess: ({ user }) => queryClient.setQueryData(meQuery.queryKey, user),
+    onSuccess: ({ user }) => {
+      queryClient.setQueryData(meQuery.queryKey, user);
+      sessionChanged();
+    },
   });
 }
 
@@ -29,7 +33,10 @@ export function useRegister() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: RegisterInput) => api<{ user: UserDto }>('/auth/register', { method: 'POST', body: input }),
-    onSuccess: ({ user }) => queryClient.setQueryData(meQuery.queryKey, user),
+    onSuccess: ({ user }) => {
+      queryClient.setQueryData(meQuery.queryKey, user);
+      sessionChanged();
+    },
   });
 }
 
@@ -39,6 +46,7 @@ export function useSignOut() {
     mutationFn: () => api<{ ok: true }>('/auth/logout', { method: 'POST' }),
     onSuccess: () => {
       queryClient.setQueryData(meQuery.queryKey, null);
+      sessionChanged();
       queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'me' });
     },
   });

@@ -1,0 +1,47 @@
+import { useState } from 'react';
+import type { ChatMessageDto } from '../../shared/protocol';
+import { TABLE_LIMITS } from '../../shared/protocol';
+import { Button } from './Button';
+
+/** The table's conversation: a log that reads new messages aloud politely, and a box to add one. */
+export function Chat({ messages, onSend }: { messages: readonly ChatMessageDto[]; onSend: (text: string) => Promise<boolean> }) {
+  const [text, setText] = useState('');
+  return (
+    <section aria-labelledby="chat-title" className="flex flex-col gap-2 rounded-card border border-line/60 bg-card p-4">
+      <h2 id="chat-title" className="text-lead font-semibold">
+        Table talk
+      </h2>
+      <ol role="log" aria-live="polite" aria-label="Messages" className="flex max-h-72 flex-col gap-1 overflow-y-auto">
+        {messages.length === 0 && <li className="text-ink-soft">No messages yet.</li>}
+        {messages.map((m) => (
+          <li key={m.id}>
+            <span className="font-semibold">{m.displayName}</span>
+            {m.seat && <span className="text-sm text-ink-soft"> ({m.seat})</span>}: {m.text}
+          </li>
+        ))}
+      </ol>
+      <form
+        className="flex flex-wrap gap-2"
+        onSubmit={async (e) => {
+          e.preventDefault();
+          if (text.trim() && (await onSend(text))) setText('');
+        }}
+      >
+        <label htmlFor="chat-text" className="sr-only">
+          Message to the table
+        </label>
+        <input
+          id="chat-text"
+          value={text}
+          maxLength={TABLE_LIMITS.chatMax}
+          onChange={(e) => setText(e.target.value)}
+          placeholder="Say something to the table"
+          className="min-h-12 min-w-0 flex-1 rounded-lg border-2 border-line bg-card px-3"
+        />
+        <Button type="submit" disabled={!text.trim()}>
+          Send
+        </Button>
+      </form>
+    </section>
+  );
+}

@@ -1,0 +1,42 @@
+import { create } from 'zustand';
+import type { ChatMessageDto, TableStateDto } from '../../shared/protocol';
+import { receivedAnnouncement } from './announce';
+
+export type Connection = 'idle' | 'connecting' | 'online' | 'offline';
+
+interface TableStore {
+  table: TableStateDto | null;
+  chat: ChatMessageDto[];
+  connection: Connection;
+  /** Why the connection failed, in words for people. */
+  problem: string | null;
+  /** The last thing to read aloud about the table (tiles received). */
+  announcement: string;
+  /** The socket's own writers: nothing else calls these. */
+  stateArrived: (state: TableStateDto) => void;
+  chatArrived: (message: ChatMessageDto) => void;
+  connectionChanged: (connection: Connection, problem?: string | null) => void;
+  reset: () => void;
+}
+
+const CHAT_KEEP = 200;
+
+/** The live table, written only by the socket (src/realtime/socket.ts). */
+export const useTableStore = create<TableStore>()((set) => ({
+  table: null,
+  chat: [],
+  connection: 'idle',
+  problem: null,
+  announcement: '',
+  stateArrived: (state) =>
+    set((s) => {
+      const same = s.table?.tableId === state.tableId;
+      if (same && s.table && state.version < s.table.version) return s;
+      const said = receivedAnnouncement(same ? s.table : null, state);
+      return { table: state, chat: same ? s.chat : [], announcement: said ?? s.announcement };
+    }),
+  chatArrived: (message) =>
+    set((s) => (s.table && message.tableId !== s.table.tableId ? s : { chat: [...s.chat, message].slice(-CHAT_KEEP) })),
+  connectionChanged: (connection, problem = null) => set({ connection, problem }),
+  reset: () => set({ table: null, chat: [], announcement: '', problem: null }),
+}));

@@ -1,0 +1,207 @@
+import { useEffect, useState } from 'react';
+import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { useShallow } from 'zustand/react/shallow';
+import { isPassPhase, PASS_DIRECTION, type CourtesyCount } from '../../shared/exchange';
+import type { ClientEventName, ClientPayload, TableStateDto } from '../../shared/protocol';
+import { seatTo } from '../../shared/seats';
+import { useMe } from '../api/auth';
+import { AnalysisPanel } from '../components/AnalysisPanel';
+import { Button } from '../components/Button';
+import { Chat } from '../components/Chat';
+import { FormMessage } from '../components/FormMessage';
+import { HuddlePanel } from '../components/HuddlePanel';
+import { LobbySeats } from '../components/LobbySeats';
+import { PassArrow } from '../components/PassArrow';
+import { PassPanel } from '../components/PassPanel';
+import { PHASE_TITLES } from '../components/phaseWords';
+import { Rack } from '../components/Rack';
+import { useRackOrder } from '../components/rackOrder';
+import { TableTop } from '../components/TableTop';
+import { joinTable, leaveTable, send } from '../realtime/socket';
+import { useTableStore } from '../realtime/tableStore';
+
+function stepKey(table: TableStateDto) {
+  return `${table.exchangeId}:${table.view?.phase}:${table.view?.history.length}`;
+}
+
+function useActions() {
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  async function run<E extends ClientEventName>(event: E, payload: ClientPayload<E>): Promise<boolean> {
+    setBusy(true);
+    setError(null);
+    const ack = await send(event, payload);
+    setBusy(false);
+    if (!ack.ok) setError(ack.message);
+    return ack.ok;
+  }
+  return { busy, error, run };
+}
+
+function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<typeof useActions>['run']; busy: boolean }) {
+  const view = table.view!;
+  const me = table.mySeat;
+  const key = stepKey(table);
+  const [pick, setPick] = useState({ key: '', ids: [] as string[], blind: 0 });
+  const [ask, setAsk] = useState<CourtesyCount | null>(null);
+  const [said, setSaid] = useState('');
+  const picked = pick.key === key ? pick.ids : [];
+  const blind = pick.key === key ? pick.blind : 0;
+  const order = useRackOrder(table.myRack);
+  const announcement = useTableStore((s) => s.announcement);
+
+  const committed = me ? table.seats[me].committed : false;
+  const passing = isPassPhase(view.phase) && view.passSize > 0;
+  const own = view.passSize - blind;
+  const canPick = Boolean(me) && passing && !committed && own > 0;
+  const direction = PASS_DIRECTION[view.phase];
+  const version = table.version;
+
+  const togglePick = (id: string) => {
+    setSaid('');
+    const ids = picked.includes(id) ? picked.filter((x) => x !== id) : picked.length < own ? [...picked, id] : picked;
+    if (ids === picked && !picked.includes(id)) setSaid(`You have picked ${own} already. Put one back first (Space on a picked tile).`);
+    setPick({ key, ids, blind });
+  };
+  const sendPass = () => {
+    if (!canPick || picked.length !== own) return;
+    void run('exchange:act', { action: { type: 'pass', tiles: picked, blind: blind || undefined }, version });
+  };
+
+  return (
+    <div className="flex flex-col gap-4">
+      <TableTop table={table} centre={direction && view.passSize > 0 ? <PassArrow direction={direction} to={me ? seatTo(me, direction) : null} count={view.passSize} /> : null} />
+      <HuddlePanel
+        table={table}
+        busy={busy}
+        onCall={() => void run('huddle:call', {})}
+        onReveal={(seat) => void run('huddle:reveal', { seat })}
+        onNote={(text, seat) => run('huddle:note', { text, seat })}
+        onRelease={() => void run('huddle:release', {})}
+      />
+      {me && (
+        <section aria-labelledby="rack-title" className="flex flex-col gap-3 rounded-card border border-line/60 bg-card p-3 sm:p-4">
+          <div className="flex flex-wrap items-center justify-between gap-2">
+            <h2 id="rack-title" className="text-lead font-semibold">
+              Your rack ({table.myRack.length})
+            </h2>
+            <div role="group" aria-label="Sort the rack" className="flex gap-2">
+              <Button onClick={() => order.sortBy('suit')}>By suit</Button>
+              <Button onClick={() => order.sortBy('number')}>By number</Button>
+            </div>
+          </div>
+          <p className="text-sm text-ink-soft">
+            {canPick ? 'Arrow keys move along the rack, Space picks a tile, Enter sends, Escape clears. Shift with an arrow moves a tile; you can also drag.' : 'Shift with an arrow, or dragging, moves a tile.'}
+          </p>
+          <Rack
+            label="Your rack"
+            tiles={order.tiles}
+            picked={picked}
+            received={view.received[me]?.map((t) => t.id) ?? []}
+            sending={view.pending[me]?.tiles ?? []}
+            canPick={canPick}
+            onPick={togglePick}
+            onCommit={sendPass}
+            onClear={() => setPick({ key, ids: [], blind })}
+            onMove={order.move}
+            onSay={setSaid}
+          />
+          <p role="status" className="min-h-6 font-medium">
+            {said}
+          </p>
+          <p role="status" className="font-medium text-received">
+            {announcement}
+          </p>
+          <PassPanel
+            table={table}
+            picked={picked}
+            blind={blind}
+            ask={ask}
+            onAskChoice={setAsk}
+            busy={busy}
+            onSend={sendPass}
+            onWithdraw={() => void run('exchange:act', { action: { type: 'withdraw' }, version })}
+            onVote={(stop) => void run('exchange:act', { action: { type: 'vote', stop }, version })}
+            onAsk={(count) => void run('exchange:act', { action: { type: 'courtesy-ask', count }, version })}
+            onBlind={(n) => setPick({ key, ids: picked.slice(0, view.passSize - n), blind: n })}
+          />
+        </section>
+      )}
+      {view.phase === 'done' && table.exchangeId && (
+        <p className="rounded-card border-2 border-accent bg-accent-soft p-4 font-semibold">
+          The Charleston is over. <Link to={`/replays/${table.exchangeId}`}>Replay this exchange pass by pass</Link>
+        </p>
+      )}
+    </div>
+  );
+}
+
+export function TablePage() {
+  const { id = '' } = useParams();
+  const [params] = useSearchParams();
+  const invite = params.get('invite') ?? undefined;
+  const { data: me, isPending } = useMe();
+  const userId = me?.id;
+  const { table, chat, connection, problem } = useTableStore(useShallow((s) => ({ table: s.table, chat: s.chat, connection: s.connection, problem: s.problem })));
+  const [joinError, setJoinError] = useState<string | null>(null);
+  const { busy, error, run } = useActions();
+
+  useEffect(() => {
+    if (!userId || !id) return;
+    let live = true;
+    void joinTable(id, invite).then((ack) => {
+      if (live && !ack.ok) setJoinError(ack.message);
+    });
+    return () => {
+      live = false;
+      leaveTable();
+    };
+  }, [userId, id, invite]);
+
+  if (isPending) return <p role="status">Loading…</p>;
+  if (!me) return <Navigate to="/sign-in" replace />;
+  if (joinError) return <FormMessage error>{joinError}</FormMessage>;
+  if (!table || table.tableId !== id) return <p role="status">{problem ?? 'Joining the table…'}</p>;
+
+  const hand = table.myRack.map((t) => t.kind);
+  const view = table.view;
+  const adviceHidden = table.options.hideAdvice && !table.isHost;
+  return (
+    <div className="flex flex-col gap-4">
+      <header className="flex flex-wrap items-baseline justify-between gap-2">
+        <h1 className="text-title font-semibold">{table.name}</h1>
+        <p className="flex flex-wrap items-center gap-3">
+          <span className="rounded-md border-2 border-ink/20 px-2 font-semibold">{PHASE_TITLES[table.phase]}</span>
+          {connection !== 'online' && <span role="status" className="text-danger">{problem ?? 'Connecting…'}</span>}
+        </p>
+      </header>
+      {error && <FormMessage error>{error}</FormMessage>}
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="min-w-0">
+          {table.status === 'lobby' || !view ? (
+            <LobbySeats
+              table={table}
+              busy={busy}
+              onSit={(seat) => void run('table:sit', { seat })}
+              onStand={() => void run('table:stand', {})}
+              onBot={(seat, strategy) => void run('table:bot', { seat, strategy })}
+              onStart={() => void run('table:start', {})}
+            />
+          ) : (
+            <Playing table={table} run={run} busy={busy} />
+          )}
+        </div>
+        <aside className="flex min-w-0 flex-col gap-4" aria-label="Beside the table">
+          {view && hand.length > 0 && (
+            <AnalysisPanel
+              hand={hand}
+              adviceHidden={adviceHidden}
+              pass={isPassPhase(view.phase) && view.passSize > 0 ? { phase: view.phase, blindAllowed: view.blindAllowed, count: view.passSize } : null}
+            />
+          )}
+          <Chat messages={chat} onSend={(text) => run('chat:send', { text })} />
+        </aside>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,176 @@
+import { act as reactAct, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { beforeEach, expect, test, vi } from 'vitest';
+import { act, createExchange } from '../../shared/exchange';
+import type { TableStateDto } from '../../shared/protocol';
+import { useTableStore } from '../../src/realtime/tableStore';
+import { fakeApi, renderAt, signedInAs } from './render';
+import { fresh, must, OPTIONS, passAll, tableState } from './fakeTable';
+
+const socket = vi.hoisted(() => ({
+  send: vi.fn(async (..._args: unknown[]) => ({ ok: true }) as const),
+  joinTable: vi.fn(async () => ({ ok: true }) as const),
+  leaveTable: vi.fn(),
+}));
+vi.mock('../../src/realtime/socket', () => socket);
+
+beforeEach(() => {
+  useTableStore.getState().reset();
+  socket.send.mockClear();
+  socket.joinTable.mockClear();
+});
+
+async function showTable(state: TableStateDto) {
+  fakeApi(signedInAs('player'));
+  const utils = renderAt('/tables/t1');
+  await waitFor(() => expect(socket.joinTable).toHaveBeenCalledWith('t1', undefined));
+  reactAct(() => useTableStore.getState().stateArrived(state));
+  await screen.findByRole('heading', { name: state.name });
+  return utils;
+}
+const push = (state: TableStateDto) => reactAct(() => useTableStore.getState().stateArrived(state));
+const lastSend = () => socket.send.mock.calls.at(-1);
+
+test('in the lobby a player sits at an empty seat; the host seats a bot and starts only when all four are filled', async () => {
+  const lobby = tableState(null, null, { isHost: true });
+  lobby.seats.north.occupant = null;
+  await showTable(lobby);
+  await userEvent.click(await screen.findByRole('button', { name: 'Sit at north' }));
+  expect(lastSend()).toEqual(['table:sit', { seat: 'north' }]);
+  expect((screen.getByRole('button', { name: 'Deal and start the Charleston' }) as HTMLButtonElement).disabled).toBe(true);
+  await userEvent.selectOptions(screen.getByLabelText('Bot for north'), 'multiples');
+  await userEvent.click(screen.getByRole('button', { name: 'Seat a bot' }));
+  expect(lastSend()).toEqual(['table:bot', { seat: 'north', strategy: 'multiples' }]);
+});
+
+test('the first pass is drawn as an arrow to the right, and three picked tiles are sent with the version', async () => {
+  await showTable(tableState(fresh(), 'west', {}, 7));
+  expect(screen.getByRole('img', { name: 'Pass 3 to your right (north)' })).toBeTruthy();
+  const rack = screen.getByRole('group', { name: 'Your rack' });
+  const send = screen.getByRole('button', { name: 'Send 3 tiles' }) as HTMLButtonElement;
+  expect(send.disabled).toBe(true);
+  const tiles = within(rack).getAllByRole('button').filter((b) => !b.getAttribute('aria-label')!.startsWith('joker'));
+  for (const tile of tiles.slice(0, 3)) await userEvent.click(tile);
+  expect(screen.getByText('Ready to send. Press Enter on the rack or the button.')).toBeTruthy();
+  await userEvent.click(send);
+  const [event, payload] = lastSend()!;
+  expect(event).toBe('exchange:act');
+  expect(payload).toEqual({ action: { type: 'pass', tiles: tiles.slice(0, 3).map((t) => t.dataset.tileId) }, version: 7 });
+});
+
+test('the table refuses a joker and says why', async () => {
+  const state = createExchange({ seed: OPTIONS.seed, racks: { east: ['joker', 'bam1', 'bam2', 'bam3', 'dot1', 'dot2', 'dot3', 'crack1', 'crack2', 'crack3', 'flower', 'wind-n', 'wind-e', 'wind-s'] } });
+  await showTable(tableState(state, 'east'));
+  await userEvent.click(screen.getByRole('button', { name: "joker, can't be passed" }));
+  expect(screen.getByText("Jokers can't be passed. Pick another tile.")).toBeTruthy();
+  expect(within(screen.getByRole('group', { name: 'Your rack' })).queryAllByRole('button', { pressed: true })).toHaveLength(0);
+});
+
+test('committed seats show as ready, and my own committed pass can be taken back', async () => {
+  let state = fresh();
+  const mine = state.racks.south.filter((t) => t.kind !== 'joker').slice(0, 3).map((t) => t.id);
+  state = must(act(state, 'south', { type: 'pass', tiles: mine }));
+  state = must(act(state, 'east', { type: 'pass', tiles: state.racks.east.filter((t) => t.kind !== 'joker').slice(0, 3).map((t) => t.id) }));
+  await showTable(tableState(state, 'south', {}, 3));
+  expect(within(screen.getByRole('region', { name: /^East/ })).getByText('Ready')).toBeTruthy();
+  expect(within(screen.getByRole('region', { name: /^West/ })).getByText('Choosing')).toBeTruthy();
+  expect(screen.getAllByRole('button', { name: /in your committed pass/ })).toHaveLength(3);
+  expect(screen.getByText(/Waiting for 2 more seats/)).toBeTruthy();
+  await userEvent.click(screen.getByRole('button', { name: 'Take back my choice' }));
+  expect(lastSend()).toEqual(['exchange:act', { action: { type: 'withdraw' }, version: 3 }]);
+});
+
+test('tiles that arrive are marked and announced with where they came from', async () => {
+  const before = fresh();
+  await showTable(tableState(before, 'east', {}, 1));
+  const after = passAll(before);
+  push(tableState(after, 'east', {}, 2));
+  // East receives the first-right pass from north, its left.
+  const news = await screen.findByText(/^You received 3 tiles from your left \(north\): /);
+  expect(news.getAttribute('role')).toBe('status');
+  expect(screen.getAllByRole('button', { name: /just received/ })).toHaveLength(3);
+  expect(screen.getByRole('img', { name: 'Pass 3 across (west)' })).toBeTruthy();
+});
+
+test('blind passing is offered only on the last pass of a Charleston, and sends fewer own tiles', async () => {
+  let state = passAll(fresh());
+  await showTable(tableState(state, 'north', {}, 2));
+  expect(screen.queryByRole('group', { name: /Pass any tiles blind/ })).toBeNull();
+  state = passAll(state);
+  push(tableState(state, 'north', {}, 3));
+  expect(await screen.findByRole('group', { name: /Pass any tiles blind/ })).toBeTruthy();
+  await userEvent.click(screen.getByRole('radio', { name: '2 blind' }));
+  const tiles = within(screen.getByRole('group', { name: 'Your rack' })).getAllByRole('button').filter((b) => !b.getAttribute('aria-label')!.startsWith('joker'));
+  await userEvent.click(tiles[0]);
+  await userEvent.click(tiles[1]);
+  expect(within(screen.getByRole('group', { name: 'Your rack' })).getAllByRole('button', { pressed: true })).toHaveLength(1);
+  await userEvent.click(screen.getByRole('button', { name: 'Send 3 tiles' }));
+  expect(lastSend()).toEqual(['exchange:act', { action: { type: 'pass', tiles: [tiles[0].dataset.tileId], blind: 2 }, version: 3 }]);
+});
+
+test('the stop vote is two clear choices', async () => {
+  const state = passAll(passAll(passAll(fresh())));
+  expect(state.phase).toBe('vote');
+  await showTable(tableState(state, 'east', {}, 4));
+  expect(screen.getByRole('button', { name: 'Play a second Charleston' })).toBeTruthy();
+  await userEvent.click(screen.getByRole('button', { name: 'Stop after this round' }));
+  expect(lastSend()).toEqual(['exchange:act', { action: { type: 'vote', stop: true }, version: 4 }]);
+});
+
+test('the courtesy ask is a choice of 0 to 3 tiles', async () => {
+  const state = must(act(passAll(passAll(passAll(fresh()))), 'south', { type: 'vote', stop: true }));
+  expect(state.phase).toBe('courtesy-ask');
+  await showTable(tableState(state, 'east', {}, 5));
+  expect(screen.getAllByRole('radio')).toHaveLength(4);
+  await userEvent.click(screen.getByRole('radio', { name: '2 tiles' }));
+  await userEvent.click(screen.getByRole('button', { name: 'Ask for 2 tiles' }));
+  expect(lastSend()).toEqual(['exchange:act', { action: { type: 'courtesy-ask', count: 2 }, version: 5 }]);
+});
+
+test('a held pass shows players a banner and the revealed rack; the host gets the controls', async () => {
+  const state = fresh();
+  const revealed = { west: { rack: state.racks.west, pass: { tiles: state.racks.west.slice(0, 3).map((t) => t.id), blind: 0 } } };
+  const huddle = { open: true, revealed, notes: [{ id: 1, passIndex: 0, phase: 'first-right' as const, seat: 'west' as const, authorName: 'Ruth Adeyemi', text: 'Why break the pair of dots?', createdAt: '' }] };
+  await showTable(tableState(state, 'south', { huddle }));
+  expect(screen.getByRole('heading', { name: /This pass is on hold/ })).toBeTruthy();
+  expect(screen.getByText(/may take back your pass/)).toBeTruthy();
+  expect(screen.getByRole('group', { name: 'Rack of Theo Brandt' })).toBeTruthy();
+  expect(screen.getByText(/Why break the pair of dots/)).toBeTruthy();
+  expect(screen.queryByRole('button', { name: 'Let the pass go' })).toBeNull();
+
+  push(tableState(state, 'east', { huddle }, 2));
+  await userEvent.click(await screen.findByRole('button', { name: 'Show north' }));
+  expect(lastSend()).toEqual(['huddle:reveal', { seat: 'north' }]);
+  await userEvent.type(screen.getByLabelText('Note for the table'), 'Keep the flowers.');
+  await userEvent.click(screen.getByRole('button', { name: 'Add note' }));
+  expect(lastSend()).toEqual(['huddle:note', { text: 'Keep the flowers.', seat: undefined }]);
+  await userEvent.click(screen.getByRole('button', { name: 'Let the pass go' }));
+  expect(lastSend()).toEqual(['huddle:release', {}]);
+});
+
+test('advice sits beside the rack and can be hidden, or is hidden by the host for the table', async () => {
+  await showTable(tableState(fresh(), 'west'));
+  expect(screen.getByRole('heading', { name: 'Nearest patterns' })).toBeTruthy();
+  expect(screen.getByRole('heading', { name: 'Advised passes' })).toBeTruthy();
+  expect(screen.getAllByRole('img', { name: /^Pass / }).length).toBeGreaterThan(1);
+  await userEvent.click(screen.getByRole('button', { name: 'Hide advice' }));
+  expect(screen.getByText(/Advice is hidden/)).toBeTruthy();
+  push(tableState(fresh(), 'west', { options: { ...OPTIONS, hideAdvice: true } }, 2));
+  expect(await screen.findByText(/The host has hidden advice/)).toBeTruthy();
+});
+
+test('chat messages appear in a log and the box sends', async () => {
+  await showTable(tableState(fresh(), 'west'));
+  reactAct(() => useTableStore.getState().chatArrived({ id: 'm1', tableId: 't1', userId: 1, displayName: 'Ruth Adeyemi', seat: 'east', text: 'Good luck all', at: '' }));
+  expect(within(screen.getByRole('log')).getByText(/Good luck all/)).toBeTruthy();
+  await userEvent.type(screen.getByLabelText('Message to the table'), 'Thanks!');
+  await userEvent.click(screen.getByRole('button', { name: 'Send' }));
+  expect(lastSend()).toEqual(['chat:send', { text: 'Thanks!' }]);
+});
+
+test('an older state never replaces a newer one', () => {
+  const store = useTableStore.getState();
+  store.stateArrived(tableState(fresh(), 'east', {}, 5));
+  store.stateArrived(tableState(null, 'east', {}, 4));
+  expect(useTableStore.getState().table?.version).toBe(5);
+});
