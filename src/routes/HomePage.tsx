@@ -1,6 +1,7 @@
 import { Link, Navigate } from 'react-router-dom';
 import { useMe } from '../api/auth';
 import { Card } from '../components/Card';
+import { Lobby } from '../components/Lobby';
 
 const ROLE_WORDS = { player: 'Player', teacher: 'Teacher', admin: 'Organiser (admin)' } as const;
 
@@ -24,15 +25,12 @@ export function HomePage() {
           </dd>
         </dl>
       </Card>
-      <Card>
-        <h2 className="mb-2 text-lead font-semibold">Practise the Charleston</h2>
-        <p className="text-ink-soft">Sit at a live table with friends or bots, pass right, across and left, and see what each pass did to your rack.</p>
-        {me.role === 'admin' && (
-          <p className="mt-4">
-            <Link to="/admin/users">Manage people and roles</Link>
-          </p>
-        )}
-      </Card>
+      {me.role === 'admin' && (
+        <p>
+          <Link to="/admin/users">Manage people and roles</Link>
+        </p>
+      )}
+      <Lobby />
     </div>
   );
 }

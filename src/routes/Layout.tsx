@@ -52,6 +52,11 @@ export function Layout() {
             <NavLink to="/" end className={navClass}>
               Home
             </NavLink>
+            {me && (
+              <NavLink to="/history" className={navClass}>
+                My exchanges
+              </NavLink>
+            )}
             {me?.role === 'admin' && (
               <NavLink to="/admin/users" className={navClass}>
                 People

@@ -1,0 +1,38 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { createTableSchema, type CreateTableInput, type TableDto } from '../../shared/protocol';
+import { api } from './client';
+
+export { createTableSchema, type CreateTableInput };
+
+export const tablesQuery = queryOptions({
+  queryKey: ['tables'],
+  queryFn: () => api<{ mine: TableDto[]; open: TableDto[] }>('/tables'),
+});
+
+export function tableQuery(id: string, invite?: string) {
+  return queryOptions({
+    queryKey: ['tables', id, invite ?? null],
+    queryFn: async () => (await api<{ table: TableDto }>(`/tables/${encodeURIComponent(id)}${invite ? `?invite=${encodeURIComponent(invite)}` : ''}`)).table,
+  });
+}
+
+export function useTables() {
+  return useQuery(tablesQuery);
+}
+
+/** Field errors keyed as the form names them: "name", "options.seed", … */
+export function createTableErrors(input: CreateTableInput): Record<string, string> {
+  const parsed = createTableSchema.safeParse(input);
+  if (parsed.success) return {};
+  const fields: Record<string, string> = {};
+  for (const issue of parsed.error.issues) fields[issue.path.join('.') || '_'] ??= issue.message;
+  return fields;
+}
+
+export function useCreateTable() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: CreateTableInput) => (await api<{ table: TableDto }>('/tables', { method: 'POST', body: input })).table,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: tablesQuery.queryKey, exact: true }),
+  });
+}

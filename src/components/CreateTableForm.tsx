@@ -1,0 +1,97 @@
+import { useState, type FormEvent } from 'react';
+import { useNavigate } from 'react-router-dom';
+import type { TableOptionsInput } from '../../shared/protocol';
+import { ApiError } from '../api/client';
+import { createTableErrors, useCreateTable } from '../api/tables';
+import { Button } from './Button';
+import { FormMessage } from './FormMessage';
+import { TextField } from './TextField';
+
+type Switch = Exclude<keyof TableOptionsInput, 'seed'>;
+const SWITCHES: { key: Switch; label: string; hint: string; initial: boolean }[] = [
+  { key: 'jokers', label: 'Deal with jokers', hint: 'Off deals from the set without its 8 jokers.', initial: true },
+  { key: 'secondCharleston', label: 'Offer a second Charleston', hint: 'After the first, the table votes; off stops after the first.', initial: true },
+  { key: 'courtesy', label: 'Offer the courtesy pass', hint: 'Seats across from each other may swap up to 3 tiles at the end.', initial: true },
+  { key: 'huddleEveryPass', label: 'Hold every pass', hint: 'Each pass waits for the host to let it go, to talk it over first.', initial: false },
+  { key: 'teaching', label: 'Teaching table', hint: 'The host sees every rack all the time.', initial: false },
+  { key: 'hideAdvice', label: 'Hide the advice', hint: 'Players see their rack summary but no advised passes: a test of skill.', initial: false },
+];
+
+/** Opens a new table with every option the host can choose, and shows each field's error beside it. */
+export function CreateTableForm() {
+  const navigate = useNavigate();
+  const create = useCreateTable();
+  const [name, setName] = useState('');
+  const [seed, setSeed] = useState('');
+  const [isPrivate, setPrivate] = useState(false);
+  const [switches, setSwitches] = useState<Record<Switch, boolean>>(() => Object.fromEntries(SWITCHES.map((s) => [s.key, s.initial])) as Record<Switch, boolean>);
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [problem, setProblem] = useState('');
+
+  const onSubmit = (e: FormEvent) => {
+    e.preventDefault();
+    const input = { name, private: isPrivate, options: { ...switches, ...(seed.trim() ? { seed } : {}) } };
+    const found = createTableErrors(input);
+    setErrors(found);
+    setProblem('');
+    if (Object.keys(found).length) return;
+    create.mutate(input, {
+      onSuccess: (table) => navigate(`/tables/${table.id}${table.inviteCode ? `?invite=${table.inviteCode}` : ''}`),
+      onError: (err) => {
+        if (err instanceof ApiError) {
+          setErrors(err.fields);
+          setProblem(err.message);
+        } else setProblem('The table could not be opened. Please try again.');
+      },
+    });
+  };
+
+  return (
+    <form noValidate onSubmit={onSubmit} className="flex flex-col gap-4" aria-labelledby="create-title">
+      <h2 id="create-title" className="text-lead font-semibold">
+        Open a new table
+      </h2>
+      {problem && <FormMessage error>{problem}</FormMessage>}
+      <TextField label="Table name" value={name} onChange={(e) => setName(e.target.value)} error={errors.name} required />
+      <TextField
+        label="Deal seed (optional)"
+        hint="The same seed deals the same racks, so two tables can play the same deal. Leave empty for a fresh deal."
+        value={seed}
+        onChange={(e) => setSeed(e.target.value)}
+        error={errors['options.seed'] ?? errors.seed}
+      />
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-1 font-semibold">How the table plays</legend>
+        <Check label="Private table" hint="Only people with the invite link can find and join it." checked={isPrivate} onChange={setPrivate} error={errors.private} />
+        {SWITCHES.map((s) => (
+          <Check
+            key={s.key}
+            label={s.label}
+            hint={s.hint}
+            checked={switches[s.key]}
+            onChange={(v) => setSwitches((all) => ({ ...all, [s.key]: v }))}
+            error={errors[`options.${s.key}`]}
+          />
+        ))}
+      </fieldset>
+      <div>
+        <Button kind="primary" type="submit" disabled={create.isPending}>
+          {create.isPending ? 'Opening…' : 'Open the table'}
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+function Check({ label, hint, checked, onChange, error }: { label: string; hint: string; checked: boolean; onChange: (v: boolean) => void; error?: string }) {
+  return (
+    <label className="flex items-start gap-3">
+      <input type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} className="mt-1 h-6 w-6 shrink-0 accent-accent" aria-invalid={error ? true : undefined} />
+      <span>
+        <span className="font-medium">{label}</span>
+        <span className="block text-base text-ink-soft">{hint}</span>
+        {error && <span className="block font-medium text-danger">✕ {error}</span>}
+      </span>
+    </label>
+  );
+}
