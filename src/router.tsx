@@ -16,6 +16,8 @@ export const routes: RouteObject[] = [
       { path: '/admin/users', element: <AdminUsersPage /> },
       // The live table, replays and history load their own code, so sign-in and home stay small.
       { path: '/tables/:id', lazy: async () => ({ Component: (await import('./routes/TablePage')).TablePage }) },
+      { path: '/replays/:id', lazy: async () => ({ Component: (await import('./routes/ReplayPage')).ReplayPage }) },
+      { path: '/history', lazy: async () => ({ Component: (await import('./routes/HistoryPage')).HistoryPage }) },
       { path: '*', element: <NotFoundPage /> },
     ],
   },

@@ -7,7 +7,8 @@ import { Button } from './Button';
 import { FormMessage } from './FormMessage';
 import { TextField } from './TextField';
 
-type Switch = Exclude<keyof TableOptionsInput, 'seed'>;
+/** The on-or-off options. */
+type Switch = { [K in keyof TableOptionsInput]-?: NonNullable<TableOptionsInput[K]> extends boolean ? K : never }[keyof TableOptionsInput];
 const SWITCHES: { key: Switch; label: string; hint: string; initial: boolean }[] = [
   { key: 'jokers', label: 'Deal with jokers', hint: 'Off deals from the set without its 8 jokers.', initial: true },
   { key: 'secondCharleston', label: 'Offer a second Charleston', hint: 'After the first, the table votes; off stops after the first.', initial: true },

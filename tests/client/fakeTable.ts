@@ -54,3 +54,28 @@ export function passAll(state: ExchangeState, blind: Partial<Record<Seat, number
   }
   return must(resolve(s));
 }
+
+/** A finished exchange as GET /api/exchanges/:id/replay sends it: three passes (one with a blind pass), a stop vote, no courtesy tiles. */
+export function finishedReplay() {
+  let s = passAll(passAll(fresh()));
+  s = passAll(s, { north: 1 });
+  s = must(act(s, 'south', { type: 'vote', stop: true }));
+  for (const seat of SEATS) s = must(act(s, seat, { type: 'courtesy-ask', count: 0 }));
+  return {
+    id: 'x1',
+    tableId: 't1',
+    tableName: 'Harbor Lane Tuesday',
+    options: { seed: OPTIONS.seed },
+    log: s.log,
+    seats: {
+      east: { displayName: 'Ruth Adeyemi', kind: 'user' as const },
+      south: { displayName: 'Coach (bot)', kind: 'bot' as const, strategy: 'advised' },
+      west: { displayName: 'Theo Brandt', kind: 'user' as const },
+      north: { displayName: 'Pair keeper (bot)', kind: 'bot' as const, strategy: 'multiples' },
+    },
+    notes: [{ id: 1, passIndex: 0, phase: 'first-right' as const, seat: 'west' as const, authorName: 'Ruth Adeyemi', text: 'Theo kept both flowers here.', createdAt: '' }],
+    startedAt: '2026-12-01T18:00:00Z',
+    finishedAt: '2026-12-01T18:20:00Z',
+    final: s,
+  };
+}

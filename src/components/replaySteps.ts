@@ -1,0 +1,67 @@
+import { bestAway, rankPatterns, starterPatterns } from '../../shared/analysis';
+import { act, createExchange, resolve, viewFor, PASS_DIRECTION, type ExchangeState, type PassRecord, type Phase } from '../../shared/exchange';
+import type { ExchangeReplayDto } from '../../shared/protocol';
+import { SEATS, type Seat } from '../../shared/seats';
+
+export interface ReplayStep {
+  /** How many log entries this step has replayed. */
+  at: number;
+  state: ExchangeState;
+  /** The pass that just resolved to reach this step, if any. */
+  pass: PassRecord | null;
+  title: string;
+  away: Record<Seat, number>;
+}
+
+const PASS_TITLES: Partial<Record<Phase, string>> = {
+  'first-right': 'first Charleston, pass right',
+  'first-across': 'first Charleston, pass across',
+  'first-left': 'first Charleston, pass left',
+  'second-left': 'second Charleston, pass left',
+  'second-across': 'second Charleston, pass across',
+  'second-right': 'second Charleston, pass right',
+  'courtesy-pass': 'courtesy pass',
+};
+
+function awayOf(state: ExchangeState): Record<Seat, number> {
+  return Object.fromEntries(SEATS.map((s) => [s, bestAway(state.racks[s].map((t) => t.kind), starterPatterns)])) as Record<Seat, number>;
+}
+
+/** Every state of the exchange, entry by entry, as replay(options, log.slice(0, k)) would give. */
+function statesOf(dto: ExchangeReplayDto): ExchangeState[] {
+  const states = [createExchange(dto.options)];
+  dto.log.forEach((entry, index) => {
+    const state = states[states.length - 1];
+    const result = 'resolve' in entry ? resolve(state) : act(state, entry.seat, entry.action);
+    if (!result.ok) throw new Error(`Entry ${index + 1} of the log can't be replayed: ${result.message}`);
+    states.push(result.state);
+  });
+  return states;
+}
+
+/** One step for the deal and one after each change of phase, each rebuilt by the shared engine. */
+export function replaySteps(dto: ExchangeReplayDto): ReplayStep[] {
+  const states = statesOf(dto);
+  const cuts = [0];
+  for (let k = 1; k < states.length; k++) if (states[k].phase !== states[k - 1].phase) cuts.push(k);
+  return cuts.map((at, i) => {
+    const state = states[at];
+    const prev = i > 0 ? states[cuts[i - 1]] : null;
+    const pass = prev && state.history.length > prev.history.length ? state.history[state.history.length - 1] : null;
+    let title = 'The deal';
+    if (pass) title = `After the ${PASS_TITLES[pass.phase] ?? pass.phase}`;
+    else if (prev?.phase === 'vote') title = state.phase === 'second-left' ? 'The table chose a second Charleston' : 'The table stopped after the first Charleston';
+    else if (prev?.phase === 'courtesy-ask') title = 'Courtesy asks settled';
+    return { at, state, pass, title, away: awayOf(state) };
+  });
+}
+
+export function nearestOf(state: ExchangeState, seat: Seat) {
+  return rankPatterns(state.racks[seat].map((t) => t.kind), starterPatterns, 1)[0] ?? null;
+}
+
+export function fullView(state: ExchangeState) {
+  return viewFor(state, 'replay');
+}
+
+export { PASS_DIRECTION };
