@@ -4,7 +4,10 @@ import express from 'express';
 import helmet from 'helmet';
 import type { Sequelize } from 'sequelize';
 import { createPassport } from './auth/passport';
-import { createSession } from './auth/session';
+import type { Logger } from 'pino';
+import { absoluteLifetime, createSession } from './auth/session';
+import { log } from './log';
+import { requireOwnOrigin } from './security/origin';
 import type { Config } from './config';
 import { errorHandler, notFoundApi } from './errors';
 import { adminRouter } from './routes/admin';
@@ -18,10 +21,12 @@ import type { TableMaster } from './realtime/table-master';
 export interface AppDeps {
   config: Config;
   sequelize: Sequelize;
+  /** Where the structured log goes; tests pass their own to read it. */
+  logger?: Logger;
 }
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
-export function createApplication({ config, sequelize }: AppDeps) {
+export function createApplication({ config, sequelize, logger = log }: AppDeps) {
   const app = express();
   app.set('trust proxy', config.trustProxy ? 1 : false);
   app.disable('x-powered-by');
@@ -34,6 +39,7 @@ export function createApplication({ config, sequelize }: AppDeps) {
   );
 
   const session = createSession(sequelize, config);
+  let draining = false;
   const passport = createPassport();
   const onLogout = new Set<(sessionId: string) => void>();
   const onTableChange = new Set<(master: TableMaster) => void>();
@@ -41,13 +47,15 @@ export function createApplication({ config, sequelize }: AppDeps) {
   const registry = new TableRegistry({ botDelayMs: config.botDelayMs, changed: (master) => onTableChange.forEach((fn) => fn(master)) });
 
   const api = express.Router();
+  api.use(requireOwnOrigin(config));
   api.use(express.json({ limit: '100kb' }));
   api.use(session.middleware);
   api.use(passport.initialize());
   api.use(passport.session());
-  api.use('/health', healthRouter(sequelize));
-  api.use('/auth', authRouter(passport, config, { onLogout: (sid) => onLogout.forEach((fn) => fn(sid)) }));
-  api.use('/admin', adminRouter());
+  api.use(absoluteLifetime(config));
+  api.use('/health', healthRouter(sequelize, () => !draining));
+  api.use('/auth', authRouter(passport, config, { onLogout: (sid) => onLogout.forEach((fn) => fn(sid)), log: logger }));
+  api.use('/admin', adminRouter(logger));
   api.use('/tables', tablesRouter(registry));
   api.use('/exchanges', exchangesRouter());
   api.use(notFoundApi);
@@ -62,6 +70,7 @@ export function createApplication({ config, sequelize }: AppDeps) {
 
   return {
     app,
+    config,
     session,
     passport,
     /** Lets the realtime layer hear of sign-outs, to close that session's sockets. */
@@ -69,6 +78,11 @@ export function createApplication({ config, sequelize }: AppDeps) {
     registry,
     /** Lets the realtime layer hear of every stored table change. */
     onTableChange: (fn: (master: TableMaster) => void) => onTableChange.add(fn),
+    logger,
+    /** Readiness goes false once shutdown begins, so a load balancer stops sending new work. */
+    drain: () => {
+      draining = true;
+    },
     close: () => session.close(),
   };
 }

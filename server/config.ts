@@ -13,8 +13,14 @@ export interface Config {
   seedDemo: boolean;
   /** Where the built client lives; served when present. */
   clientDir: string;
-  /** Session lifetime in ms. */
+  /** A session ends after this long without a request (idle lifetime), in ms. */
   sessionMaxAgeMs: number;
+  /** A session ends this long after sign-in, however busy (absolute lifetime), in ms. */
+  sessionAbsoluteMs: number;
+  /** Origins besides our own host that may send state-changing requests and open sockets (ALLOWED_ORIGINS, comma-separated). */
+  allowedOrigins: string[];
+  /** Requests allowed per window, per address (and e-mail where one is given). */
+  rateLimits: Record<'register' | 'passwordReset' | 'invitations', { max: number; windowMs: number }> & { chatPerMinute: number };
   production: boolean;
   /** How long a bot waits before it acts, in ms. */
   botDelayMs: number;
@@ -44,7 +50,15 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     loginRateLimit: { max: int(env.LOGIN_RATE_MAX, 10), windowMs: int(env.LOGIN_RATE_WINDOW_MS, 15 * 60 * 1000) },
     seedDemo: bool(env.SEED_DEMO, true),
     clientDir: env.CLIENT_DIR || 'dist/client',
-    sessionMaxAgeMs: int(env.SESSION_MAX_AGE_MS, 7 * 24 * 60 * 60 * 1000),
+    sessionMaxAgeMs: int(env.SESSION_IDLE_MS, 2 * 60 * 60 * 1000),
+    sessionAbsoluteMs: int(env.SESSION_ABSOLUTE_MS, 12 * 60 * 60 * 1000),
+    allowedOrigins: (env.ALLOWED_ORIGINS ?? '').split(',').map((o) => o.trim()).filter(Boolean),
+    rateLimits: {
+      register: { max: int(env.REGISTER_RATE_MAX, 20), windowMs: int(env.REGISTER_RATE_WINDOW_MS, 60 * 60 * 1000) },
+      passwordReset: { max: int(env.RESET_RATE_MAX, 5), windowMs: int(env.RESET_RATE_WINDOW_MS, 60 * 60 * 1000) },
+      invitations: { max: int(env.INVITE_RATE_MAX, 100), windowMs: int(env.INVITE_RATE_WINDOW_MS, 60 * 60 * 1000) },
+      chatPerMinute: int(env.CHAT_RATE_PER_MINUTE, 30),
+    },
     production,
     botDelayMs: int(env.BOT_DELAY_MS, 600),
   };

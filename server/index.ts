@@ -21,7 +21,10 @@ export async function startServer(config: Config) {
   const address = httpServer.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
 
+  /** A clean stop: readiness off, no new connections, every queued action finished and stored, then the database closed. */
   async function close() {
+    application.drain();
+    httpServer.close();
     await registry.closeAll();
     await io.close();
     application.close();

@@ -1,19 +1,40 @@
 import connectSessionSequelize from 'connect-session-sequelize';
+import type { RequestHandler } from 'express';
 import session from 'express-session';
 import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
 
 export const SESSION_COOKIE = 'rackside.sid';
 
+declare module 'express-session' {
+  interface SessionData {
+    /** When this session signed in (ms since the epoch): the start of its absolute lifetime. */
+    signedInAt?: number;
+  }
+}
+
+type StoredSession = session.SessionData & { cookie: { expires?: string | Date | null } };
+
 export function createSession(sequelize: Sequelize, config: Config) {
   const SequelizeStore = connectSessionSequelize(session.Store);
   const store = new SequelizeStore({ db: sequelize, expiration: config.sessionMaxAgeMs, checkExpirationInterval: 15 * 60 * 1000 });
+
+  // The store's own sweep runs every 15 minutes; a session past its idle lifetime is refused at once.
+  const get = store.get.bind(store);
+  store.get = (sid: string, done: (err: unknown, data?: session.SessionData | null) => void) =>
+    get(sid, (err: unknown, data?: StoredSession | null) => {
+      const expires = data?.cookie?.expires ? new Date(data.cookie.expires).getTime() : Infinity;
+      if (err || !data || expires > Date.now()) return done(err, data);
+      store.destroy(sid, () => done(null, null));
+    });
+
   const middleware = session({
     name: SESSION_COOKIE,
     secret: config.sessionSecret,
     store,
     resave: false,
     saveUninitialized: false,
+    // Every request pushes the idle deadline on; the absolute deadline is checked below.
     rolling: true,
     proxy: config.trustProxy,
     cookie: {
@@ -25,4 +46,16 @@ export function createSession(sequelize: Sequelize, config: Config) {
     },
   });
   return { middleware, store, close: () => store.stopExpiringSessions() };
+}
+
+export function pastAbsoluteLifetime(data: session.SessionData | undefined, config: Config): boolean {
+  return !!data?.signedInAt && Date.now() - data.signedInAt > config.sessionAbsoluteMs;
+}
+
+/** Ends a signed-in session once its absolute lifetime is over, however active it has been. */
+export function absoluteLifetime(config: Config): RequestHandler {
+  return (req, _res, next) => {
+    if (!req.user || !pastAbsoluteLifetime(req.session, config)) return next();
+    req.logout(() => req.session.destroy(() => next()));
+  };
 }

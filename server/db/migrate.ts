@@ -2,8 +2,9 @@ import type { Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import * as m0001 from './migrations/0001-users-and-sessions';
 import * as m0002 from './migrations/0002-tables-and-exchanges';
+import * as m0005 from './migrations/0005-audit-log';
 
-const MIGRATIONS = [m0001, m0002];
+const MIGRATIONS = [m0001, m0002, m0005].sort((a, b) => a.name.localeCompare(b.name));
 
 export function migrator(sequelize: Sequelize) {
   return new Umzug({

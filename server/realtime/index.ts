@@ -5,6 +5,10 @@ import { Server, type Socket } from 'socket.io';
 import { clientEventSchemas, type Ack, type ClientEventName, type ClientToServerEvents, type ServerToClientEvents } from '../../shared/protocol';
 import type { Application } from '../app';
 import { TableError, type Member, type TableMaster } from './table-master';
+import { RateLimiterMemory } from 'rate-limiter-flexible';
+import type { SessionData } from 'express-session';
+import { pastAbsoluteLifetime } from '../auth/session';
+import { isOwnOrigin } from '../security/origin';
 
 interface SocketData {
   userId: number;
@@ -21,10 +25,15 @@ const room = (tableId: string) => `table:${tableId}`;
 
 /** Socket.IO on the app's HTTP server, sharing its sessions: a socket is the signed-in user of its cookie. */
 export function attachRealtime(httpServer: HttpServer, application: Application) {
+  const { config } = application;
   const io = new Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>(httpServer, {
+    // No client message is near this size; a larger one is dropped before it is parsed.
     maxHttpBufferSize: 64 * 1024,
     serveClient: false,
+    // The handshake of a page from another site is refused, like a state-changing REST request.
+    allowRequest: (req, done) => done(isOwnOrigin(req, config) ? null : 'FOREIGN_ORIGIN', isOwnOrigin(req, config)),
   });
+  const chatLimiter = new RateLimiterMemory({ points: config.rateLimits.chatPerMinute, duration: 60 });
 
   // Run the session and passport on the handshake only (as Socket.IO's passport how-to shows).
   const onlyHandshake = (middleware: RequestHandler): RequestHandler => (req, res, next) => {
@@ -37,7 +46,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
 
   io.use((socket, next) => {
     const req = socket.request as unknown as Express.Request & { sessionID?: string };
-    if (!req.user) {
+    if (!req.user || pastAbsoluteLifetime((req as unknown as { session?: SessionData }).session, config)) {
       next(Object.assign(new Error('Please sign in first.'), { data: { code: 'UNAUTHENTICATED' } }));
       return;
     }
@@ -180,6 +189,12 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     });
     on('chat:send', async ({ text }) => {
       const master = await joined();
+      try {
+        await chatLimiter.consume(String(socket.data.userId));
+      } catch {
+        application.logger.warn({ event: 'chat-limited', userId: socket.data.userId, tableId: master.id }, 'chat over the limit');
+        throw new TableError('RATE_LIMITED', 'You are sending messages very fast. Wait a moment, then try again.');
+      }
       const message = {
         id: randomUUID(),
         tableId: master.id,

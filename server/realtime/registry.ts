@@ -35,7 +35,10 @@ export class TableRegistry {
     return rows.length;
   }
 
+  /** Stops the bots and waits until every action already queued at any table is done and stored. */
   async closeAll() {
-    for (const master of this.masters.values()) (await master.catch(() => null))?.close();
+    const masters = await Promise.all([...this.masters.values()].map((m) => m.catch(() => null)));
+    for (const master of masters) master?.close();
+    await Promise.all(masters.map((master) => master?.idle()));
   }
 }

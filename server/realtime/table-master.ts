@@ -350,6 +350,11 @@ export class TableMaster {
     }
   }
 
+  /** Resolves once every task queued so far has finished. */
+  idle(): Promise<void> {
+    return this.run(() => undefined);
+  }
+
   close() {
     this.closed = true;
     this.botTimers.forEach((t) => clearTimeout(t));

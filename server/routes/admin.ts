@@ -2,12 +2,13 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { roleChangeSchema } from '../../shared/protocol';
 import { requireAdmin } from '../auth/guards';
-import { User } from '../db/models';
+import type { Logger } from 'pino';
+import { AuditEntry, User } from '../db/models';
 import { badInput, HttpError } from '../errors';
 
 const idParam = z.coerce.number().int().positive();
 
-export function adminRouter() {
+export function adminRouter(log?: Logger) {
   const router = Router();
   router.use(requireAdmin);
 
@@ -26,9 +27,21 @@ export function adminRouter() {
     if (user.id === req.user!.id && parsed.data.role !== 'admin') {
       throw new HttpError(409, 'OWN_ROLE', 'You cannot take away your own admin role. Ask another admin.');
     }
-    user.role = parsed.data.role;
-    await user.save();
+    const from = user.role;
+    if (from !== parsed.data.role) {
+      await user.sequelize.transaction(async (transaction) => {
+        user.role = parsed.data.role;
+        await user.save({ transaction });
+        await AuditEntry.create({ actorId: req.user!.id, action: 'role-change', targetUserId: user.id, details: { from, to: parsed.data.role } }, { transaction });
+      });
+      log?.info({ event: 'role-change', actorId: req.user!.id, targetUserId: user.id, from, to: parsed.data.role }, 'role changed');
+    }
     res.json({ user: user.toPublic() });
+  });
+
+  router.get('/audit', async (_req, res) => {
+    const entries = await AuditEntry.findAll({ order: [['id', 'DESC']], limit: 500 });
+    res.json({ entries: entries.map((e) => ({ id: e.id, actorId: e.actorId, action: e.action, targetUserId: e.targetUserId, details: e.details, at: e.createdAt.toISOString() })) });
   });
 
   return router;

@@ -1,34 +1,62 @@
 import bcrypt from 'bcryptjs';
 import { Router, type Request } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import type { Logger } from 'pino';
 import type { createPassport } from '../auth/passport';
 import { loginSchema, registerSchema } from '../../shared/protocol';
 import type { Config } from '../config';
 import { User } from '../db/models';
 import { badInput, HttpError } from '../errors';
 
-function logIn(req: Request, user: User): Promise<void> {
+async function logIn(req: Request, user: User): Promise<void> {
   // passport 0.7 regenerates the session id here, so a session fixed before sign-in is worthless.
-  return new Promise((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
+  await new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
+  req.session.signedInAt = Date.now();
 }
 
-export function authRouter(passport: ReturnType<typeof createPassport>, config: Config, hooks: { onLogout?: (sessionId: string) => void } = {}) {
-  const router = Router();
+function limiter(limit: { max: number; windowMs: number }, key: (req: Request) => string, message: string, onLimit?: (req: Request) => void) {
+  return rateLimit({
+    windowMs: limit.windowMs,
+    limit: limit.max,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    keyGenerator: key,
+    handler: (req, res) => {
+      onLimit?.(req);
+      res.status(429).json({ error: { code: 'RATE_LIMITED', message } });
+    },
+  });
+}
 
+const byAddress = (req: Request) => ipKeyGenerator(req.ip ?? '');
+const byAddressAndEmail = (req: Request) => `${byAddress(req)}|${String(req.body?.email ?? '').trim().toLowerCase()}`;
+
+export function authRouter(
+  passport: ReturnType<typeof createPassport>,
+  config: Config,
+  hooks: { onLogout?: (sessionId: string) => void; log?: Logger } = {},
+) {
+  const router = Router();
+  const log = hooks.log;
+
+  // Count sign-in attempts per address and e-mail, so one guessed account cannot be hammered from one place.
   const loginLimiter = rateLimit({
     windowMs: config.loginRateLimit.windowMs,
     limit: config.loginRateLimit.max,
     standardHeaders: 'draft-7',
     legacyHeaders: false,
-    // Count attempts per address and e-mail, so one guessed account cannot be hammered from one place.
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    keyGenerator: byAddressAndEmail,
     skipSuccessfulRequests: true,
-    handler: (_req, res) => {
+    handler: (req, res) => {
+      log?.warn({ event: 'sign-in-locked', email: String(req.body?.email ?? ''), ip: req.ip }, 'sign-in attempts over the limit');
       res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many sign-in attempts. Please wait a few minutes and try again.' } });
     },
   });
+  const registerLimiter = limiter(config.rateLimits.register, byAddress, 'Too many new accounts from here. Please try again later.', (req) =>
+    log?.warn({ event: 'register-limited', ip: req.ip }, 'registrations over the limit'),
+  );
 
-  router.post('/register', async (req, res) => {
+  router.post('/register', registerLimiter, async (req, res) => {
     const parsed = registerSchema.safeParse(req.body ?? {});
     if (!parsed.success) throw badInput(parsed.error);
     const { email, password, displayName } = parsed.data;
@@ -47,7 +75,10 @@ export function authRouter(passport: ReturnType<typeof createPassport>, config: 
     const user = await new Promise<User | false>((resolve, reject) =>
       passport.authenticate('local', (err: unknown, found: User | false) => (err ? reject(err) : resolve(found)))(req, res, next),
     );
-    if (!user) throw new HttpError(401, 'BAD_CREDENTIALS', 'That e-mail and password do not match. Check them and try again.');
+    if (!user) {
+      log?.warn({ event: 'sign-in-failed', email: parsed.data.email, ip: req.ip }, 'sign-in failed');
+      throw new HttpError(401, 'BAD_CREDENTIALS', 'That e-mail and password do not match. Check them and try again.');
+    }
     await logIn(req, user);
     res.json({ user: user.toPublic() });
   });

@@ -30,7 +30,11 @@ test('migrations run once and record themselves', async () => {
   await migrate(db);
   await migrate(db);
   const executed = await migrator(db).executed();
-  expect(executed.map((m) => m.name)).toEqual(['0001-users-and-sessions', '0002-tables-and-exchanges']);
+  const names = executed.map((m) => m.name);
+  expect(names).toEqual(expect.arrayContaining(['0001-users-and-sessions', '0002-tables-and-exchanges', '0005-audit-log']));
+  expect(names).toEqual([...names].sort());
+  expect(new Set(names).size).toBe(names.length);
+  expect(await migrator(db).pending()).toEqual([]);
   const tables = await db.getQueryInterface().showAllTables();
   expect(tables).toEqual(expect.arrayContaining(['Users', 'Sessions']));
 });

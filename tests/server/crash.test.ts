@@ -1,0 +1,115 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { io as connect } from 'socket.io-client';
+import request from 'supertest';
+import { afterAll, expect, test } from 'vitest';
+import type { Action } from '../../shared/exchange/types';
+import type { ExchangeReplayDto } from '../../shared/protocol';
+import { SEATS } from '../../shared/seats';
+import { Client, simpleAction } from './live';
+
+const dir = mkdtempSync(join(tmpdir(), 'rackside-crash-'));
+const port = 4100 + Math.floor(Math.random() * 800);
+const url = `http://127.0.0.1:${port}`;
+let proc: ChildProcess | undefined;
+
+/** The real server as its own process, so it can be killed outright. */
+function startProcess(): Promise<ChildProcess> {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: { ...process.env, PORT: String(port), DATABASE_URL: `sqlite:${join(dir, 'crash.sqlite')}`, BCRYPT_ROUNDS: '4', SESSION_SECRET: 'crash-test', SEED_DEMO: 'false', BOT_DELAY_MS: '0', CLIENT_DIR: 'none' },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  return new Promise((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error('server did not start')), 20_000);
+    child.stdout!.on('data', (d: Buffer) => {
+      if (d.toString().includes('ready on')) {
+        clearTimeout(timer);
+        resolve(child);
+      }
+    });
+    child.stderr!.on('data', (d: Buffer) => process.stderr.write(d));
+    child.once('exit', (code) => reject(new Error(`server exited with ${code}`)));
+  });
+}
+
+afterAll(() => {
+  proc?.kill('SIGKILL');
+  rmSync(dir, { recursive: true, force: true });
+});
+
+async function register(name: string) {
+  const res = await request(url).post('/api/auth/register').send({ email: `${name}@harborlane.test`, password: 'tiles-and-tea', displayName: name });
+  return (res.headers['set-cookie'] as unknown as string[])[0].split(';')[0];
+}
+
+/** A client that reconnects by itself, rejoins its table, and plays as fast as the server answers. */
+function autoPlayer(name: string, cookie: string, tableId: string) {
+  const socket = connect(url, { transports: ['websocket'], reconnectionDelay: 100, reconnectionDelayMax: 300, extraHeaders: { Cookie: cookie } });
+  const c = new Client(name, cookie, socket);
+  const acked: Action[] = [];
+  let busy = false;
+  async function tick() {
+    const s = c.states[c.states.length - 1];
+    if (busy || !s?.view || s.phase === 'done' || !socket.connected) return;
+    const action = simpleAction(s, { blind: 1, stop: false, ask: 1 });
+    if (!action) return;
+    busy = true;
+    try {
+      const ack = await c.emit('exchange:act', { action });
+      if (ack.ok) acked.push(action);
+    } catch {
+      // No answer (the server died): not acknowledged, so nothing is promised.
+    } finally {
+      busy = false;
+      setTimeout(tick, 5);
+    }
+  }
+  socket.on('connect', () => void c.emit('table:join', { tableId, as: 'player' }).catch(() => undefined));
+  socket.on('table:state', () => void tick());
+  return { c, acked };
+}
+
+test('SIGKILL mid-exchange: after a restart on the same file every acknowledged action is still there and the table finishes', async () => {
+  proc = await startProcess();
+  const names = ['ines', 'theo', 'mina', 'ruth'];
+  const cookies = [];
+  for (const n of names) cookies.push(await register(n));
+  const table = (await request(url).post('/api/tables').set('Cookie', cookies[0]).send({ name: 'Crash drill', options: { seed: 'harbor-lane-week-05' } })).body.table;
+  // Seat everyone before play starts.
+  const seaters = [];
+  for (const [i, cookie] of cookies.entries()) {
+    const c = new Client(names[i], cookie, connect(url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: cookie } }));
+    await c.ok('table:join', { tableId: table.id, as: 'player' });
+    await c.ok('table:sit', { seat: SEATS[i] });
+    seaters.push(c);
+  }
+  seaters.forEach((c) => c.socket.disconnect());
+  const players = names.map((n, i) => autoPlayer(n, cookies[i], table.id));
+  await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'lobby' || s.status === 'lobby')));
+  await players[0].c.ok('table:start');
+
+  // Let them play a while, then kill the server without warning.
+  await players[0].c.until((s) => s.phase === 'first-left' || s.phase === 'vote' || (s.view?.history.length ?? 0) >= 2, 15_000);
+  proc.kill('SIGKILL');
+  await new Promise((r) => proc!.once('exit', r));
+  const ackedBefore = players.map((p) => p.acked.length);
+  expect(ackedBefore.reduce((a, b) => a + b, 0)).toBeGreaterThan(4);
+
+  proc = await startProcess();
+  await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 30_000)));
+
+  const replay = (await request(url).get(`/api/exchanges/${players[0].c.state.exchangeId}/replay`).set('Cookie', cookies[0])).body.replay as ExchangeReplayDto;
+  for (const [i, p] of players.entries()) {
+    const logged = replay.log.flatMap((e) => ('seat' in e && e.seat === SEATS[i] ? [JSON.stringify(e.action)] : []));
+    // Every acknowledged action appears in the stored log, in the order it was acknowledged.
+    let at = 0;
+    for (const a of p.acked) {
+      at = logged.indexOf(JSON.stringify(a), at);
+      expect(at, `${p.c.name}: ${JSON.stringify(a)} is in the log`).toBeGreaterThanOrEqual(0);
+      at += 1;
+    }
+  }
+  players.forEach((p) => p.c.socket.disconnect());
+}, 90_000);
