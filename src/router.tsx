@@ -15,8 +15,8 @@ export const routes: RouteObject[] = [
       { path: '/register', element: <RegisterPage /> },
       { path: '/admin/users', element: <AdminUsersPage /> },
       // The live table, replays and history load their own code, so sign-in and home stay small.
-      { path: '/tables/:id', lazy: async () => ({ Component: (await import('./routes/TablePage')).TablePage }) },
-      { path: '/replays/:id', lazy: async () => ({ Component: (await import('./routes/ReplayPage')).ReplayPage }) },
+      { path: '/tables/:id', handle: { wide: true }, lazy: async () => ({ Component: (await import('./routes/TablePage')).TablePage }) },
+      { path: '/replays/:id', handle: { wide: true }, lazy: async () => ({ Component: (await import('./routes/ReplayPage')).ReplayPage }) },
       { path: '/history', lazy: async () => ({ Component: (await import('./routes/HistoryPage')).HistoryPage }) },
       { path: '*', element: <NotFoundPage /> },
     ],

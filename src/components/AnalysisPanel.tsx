@@ -13,6 +13,8 @@ interface Props {
   adviceHidden?: boolean;
 }
 
+const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
 /** The rack at a glance, the nearest patterns and the advised passes, all worked out in the browser. */
 export function AnalysisPanel({ hand, pass, adviceHidden = false }: Props) {
   const [showAdvice, setShowAdvice] = useState(true);
@@ -36,7 +38,7 @@ export function AnalysisPanel({ hand, pass, adviceHidden = false }: Props) {
         <dd>{suits}</dd>
         <dt className="text-ink-soft">Others</dt>
         <dd>
-          {summary.winds} winds, {summary.dragons} dragons, {summary.flowers} flowers, {summary.jokers} jokers
+          {count(summary.winds, 'wind')}, {count(summary.dragons, 'dragon')}, {count(summary.flowers, 'flower')}, {count(summary.jokers, 'joker')}
         </dd>
         <dt className="text-ink-soft">Pairs</dt>
         <dd>{summary.pairs.length ? summary.pairs.map(tileName).join(', ') : 'none'}</dd>

@@ -21,7 +21,7 @@ function Marker({ cx, cy, shape, stroke }: { cx?: number; cy?: number; shape: st
 
 /** Tiles away from each seat's nearest pattern at every step, with the numbers in a table too. */
 export function AwayChart({ steps, names, current }: { steps: ReplayStep[]; names: Record<Seat, string>; current: number }) {
-  const data = steps.map((step, i) => ({ step: i, label: i === 0 ? 'Deal' : `Step ${i}`, ...step.away }));
+  const data = steps.map((step, i) => ({ step: i, label: `${i}. ${step.short}`, ...step.away }));
   return (
     <figure className="flex flex-col gap-2">
       <figcaption className="font-semibold">Tiles away from the nearest pattern, step by step</figcaption>
@@ -38,7 +38,7 @@ export function AwayChart({ steps, names, current }: { steps: ReplayStep[]; name
               key={s}
               type="monotone"
               dataKey={s}
-              name={names[s]}
+              name={`${names[s]} (${s})`}
               stroke={LINES[s].stroke}
               strokeWidth={2.5}
               strokeDasharray={LINES[s].dash}
@@ -58,7 +58,7 @@ export function AwayChart({ steps, names, current }: { steps: ReplayStep[]; name
                 <th scope="col" className="pr-3 text-left">Step</th>
                 {SEATS.map((s) => (
                   <th key={s} scope="col" className="pr-3 text-left">
-                    {names[s]}
+                    {names[s]} ({s})
                   </th>
                 ))}
               </tr>

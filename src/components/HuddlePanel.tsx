@@ -29,7 +29,12 @@ export function HuddlePanel({ table, busy, onCall, onReveal, onNote, onRelease }
   return (
     <section aria-labelledby="huddle-title" className={`flex flex-col gap-3 rounded-card border-2 p-4 ${huddle.open ? 'border-received bg-received-soft' : 'border-line/60 bg-card'}`}>
       <h2 id="huddle-title" className="flex items-center gap-2 text-lead font-semibold">
-        {huddle.open && <span aria-hidden="true">⏸</span>}
+        {huddle.open && (
+          <svg aria-hidden="true" viewBox="0 0 20 20" className="h-6 w-6">
+            <rect x={4} y={3} width={4} height={14} rx={1} fill="currentColor" />
+            <rect x={12} y={3} width={4} height={14} rx={1} fill="currentColor" />
+          </svg>
+        )}
         {huddle.open ? 'This pass is on hold' : 'Hold this pass'}
       </h2>
       {huddle.open ? (

@@ -56,7 +56,7 @@ export function MoveDiagram({ pass, names, viewer = null }: { pass: PassRecord; 
           );
         })}
       </svg>
-      <figcaption className="text-center text-base">{moves.map((m) => `${names[m.from]} → ${names[m.to]}: ${m.count}${m.blind ? ` (${m.blind} blind)` : ''}`).join(' · ')}</figcaption>
+      <figcaption className="text-center text-base">{moves.map((m) => `${names[m.from]} (${m.from}) → ${m.to}: ${m.count}${m.blind ? ` (${m.blind} blind)` : ''}`).join(' · ')}</figcaption>
     </figure>
   );
 }

@@ -10,6 +10,8 @@ export interface ReplayStep {
   /** The pass that just resolved to reach this step, if any. */
   pass: PassRecord | null;
   title: string;
+  /** A word for the chart's axis. */
+  short: string;
   away: Record<Seat, number>;
 }
 
@@ -49,10 +51,18 @@ export function replaySteps(dto: ExchangeReplayDto): ReplayStep[] {
     const prev = i > 0 ? states[cuts[i - 1]] : null;
     const pass = prev && state.history.length > prev.history.length ? state.history[state.history.length - 1] : null;
     let title = 'The deal';
-    if (pass) title = `After the ${PASS_TITLES[pass.phase] ?? pass.phase}`;
-    else if (prev?.phase === 'vote') title = state.phase === 'second-left' ? 'The table chose a second Charleston' : 'The table stopped after the first Charleston';
-    else if (prev?.phase === 'courtesy-ask') title = 'Courtesy asks settled';
-    return { at, state, pass, title, away: awayOf(state) };
+    let short = 'Deal';
+    if (pass) {
+      title = `After the ${PASS_TITLES[pass.phase] ?? pass.phase}`;
+      short = pass.phase === 'courtesy-pass' ? 'Courtesy' : `${pass.phase.startsWith('first') ? '1st' : '2nd'} ${PASS_DIRECTION[pass.phase]}`;
+    } else if (prev?.phase === 'vote') {
+      title = state.phase === 'second-left' ? 'The table chose a second Charleston' : 'The table stopped after the first Charleston';
+      short = 'Vote';
+    } else if (prev?.phase === 'courtesy-ask') {
+      title = 'Courtesy asks settled';
+      short = 'Asks';
+    }
+    return { at, state, pass, title, short, away: awayOf(state) };
   });
 }
 

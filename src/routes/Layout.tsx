@@ -1,5 +1,5 @@
 import { useEffect } from 'react';
-import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { Link, NavLink, Outlet, useMatches, useNavigate } from 'react-router-dom';
 import { useMe, useSignOut } from '../api/auth';
 import { Button } from '../components/Button';
 import { TEXT_SIZES, usePreferences, type TextSize } from '../preferences';
@@ -37,13 +37,16 @@ export function Layout() {
   const { data: me } = useMe();
   const signOut = useSignOut();
   const navigate = useNavigate();
+  // The table and replay pages use the whole width of a laptop, so a rack fits on one line.
+  const wide = useMatches().some((m) => (m.handle as { wide?: boolean } | undefined)?.wide);
+  const width = wide ? 'max-w-[90rem]' : 'max-w-5xl';
   return (
     <div className="flex min-h-screen flex-col">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-4 focus:top-4 focus:z-10 focus:bg-card focus:p-3">
         Skip to the page
       </a>
       <header className="border-b-2 border-ink/10 bg-card">
-        <div className="mx-auto flex max-w-5xl flex-wrap items-center gap-4 px-4 py-3">
+        <div className={`mx-auto flex ${width} flex-wrap items-center gap-4 px-4 py-3`}>
           <Link to="/" className="text-2xl font-semibold text-ink no-underline">
             <span aria-hidden="true" className="mr-2 inline-block rounded-md bg-accent px-2 text-accent-ink">R</span>
             Rackside
@@ -81,7 +84,7 @@ export function Layout() {
           </div>
         </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-5xl flex-1 px-4 py-8">
+      <main id="main" className={`mx-auto w-full ${width} flex-1 px-4 py-8`}>
         <Outlet />
       </main>
     </div>

@@ -45,17 +45,28 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
   const [pick, setPick] = useState({ key: '', ids: [] as string[], blind: 0 });
   const [ask, setAsk] = useState<CourtesyCount | null>(null);
   const [said, setSaid] = useState('');
-  const picked = pick.key === key ? pick.ids : [];
+  const committedNow = me ? table.seats[me].committed : false;
+  const picked = pick.key === key && !committedNow ? pick.ids : [];
   const blind = pick.key === key ? pick.blind : 0;
   const order = useRackOrder(table.myRack);
   const announcement = useTableStore((s) => s.announcement);
 
-  const committed = me ? table.seats[me].committed : false;
+  const committed = committedNow;
   const passing = isPassPhase(view.phase) && view.passSize > 0;
   const own = view.passSize - blind;
   const canPick = Boolean(me) && passing && !committed && own > 0;
   const direction = PASS_DIRECTION[view.phase];
   const version = table.version;
+  const huddle = (
+    <HuddlePanel
+      table={table}
+      busy={busy}
+      onCall={() => void run('huddle:call', {})}
+      onReveal={(seat) => void run('huddle:reveal', { seat })}
+      onNote={(text, seat) => run('huddle:note', { text, seat })}
+      onRelease={() => void run('huddle:release', {})}
+    />
+  );
 
   const togglePick = (id: string) => {
     setSaid('');
@@ -71,14 +82,7 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
   return (
     <div className="flex flex-col gap-4">
       <TableTop table={table} centre={direction && view.passSize > 0 ? <PassArrow direction={direction} to={me ? seatTo(me, direction) : null} count={view.passSize} /> : null} />
-      <HuddlePanel
-        table={table}
-        busy={busy}
-        onCall={() => void run('huddle:call', {})}
-        onReveal={(seat) => void run('huddle:reveal', { seat })}
-        onNote={(text, seat) => run('huddle:note', { text, seat })}
-        onRelease={() => void run('huddle:release', {})}
-      />
+      {table.huddle.open && huddle}
       {me && (
         <section aria-labelledby="rack-title" className="flex flex-col gap-3 rounded-card border border-line/60 bg-card p-3 sm:p-4">
           <div className="flex flex-wrap items-center justify-between gap-2">
@@ -127,6 +131,7 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
           />
         </section>
       )}
+      {!table.huddle.open && huddle}
       {view.phase === 'done' && table.exchangeId && (
         <p className="rounded-card border-2 border-accent bg-accent-soft p-4 font-semibold">
           The Charleston is over. <Link to={`/replays/${table.exchangeId}`}>Replay this exchange pass by pass</Link>
@@ -196,7 +201,7 @@ export function TablePage() {
             <AnalysisPanel
               hand={hand}
               adviceHidden={adviceHidden}
-              pass={isPassPhase(view.phase) && view.passSize > 0 ? { phase: view.phase, blindAllowed: view.blindAllowed, count: view.passSize } : null}
+              pass={isPassPhase(view.phase) && view.passSize > 0 && !(table.mySeat && table.seats[table.mySeat].committed) ? { phase: view.phase, blindAllowed: view.blindAllowed, count: view.passSize } : null}
             />
           )}
           <Chat messages={chat} onSend={(text) => run('chat:send', { text })} />

@@ -1,0 +1,153 @@
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, expect, inject, test } from 'vitest';
+import { launch, snap } from './browser';
+
+let browser: Browser;
+const baseUrl = inject('baseUrl');
+const contexts: BrowserContext[] = [];
+
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  for (const c of contexts) await c.close();
+  await browser?.close();
+});
+
+async function signIn(email: string, name: string, width = 1280): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width, height: 900 } });
+  contexts.push(context);
+  const page = await context.newPage();
+  page.on('pageerror', (err) => console.error(`[${name}] page error:`, err.message));
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('harbor-lane-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: `Welcome, ${name}` }).waitFor();
+  return page;
+}
+
+const rack = (page: Page) => page.getByRole('group', { name: 'Your rack' });
+
+/** Picks tiles left to right (never a joker) until the send button wakes up, then sends. */
+async function pickAndSend(page: Page) {
+  const send = page.getByRole('button', { name: /^Send \d tiles?$/ });
+  const tiles = rack(page).locator('button[aria-pressed="false"]:not([aria-disabled="true"])');
+  for (let i = 0; i < 4 && !(await send.isEnabled()); i++) await tiles.first().click();
+  await send.click();
+}
+
+/** Does whatever this seat is asked to do now; returns false once the exchange is over. */
+async function playStep(page: Page, stop: boolean): Promise<boolean> {
+  if (await page.getByText('The Charleston is over.').isVisible()) return false;
+  const send = page.getByRole('button', { name: /^Send \d tiles?$/ });
+  if (await send.isVisible()) await pickAndSend(page);
+  else if (await page.getByRole('button', { name: 'Stop after this round' }).isVisible())
+    await page.getByRole('button', { name: stop ? 'Stop after this round' : 'Play a second Charleston' }).click();
+  else if (await page.getByRole('radio', { name: '2 tiles' }).isVisible()) {
+    await page.getByRole('radio', { name: '2 tiles' }).check();
+    await page.getByRole('button', { name: 'Ask for 2 tiles' }).click();
+  }
+  return true;
+}
+
+test('two players and two bots finish an exchange with a huddle, then replay it', async () => {
+  const ines = await signIn('ines@harborlane.test', 'Ines Okafor');
+  const theo = await signIn('theo@harborlane.test', 'Theo Brandt');
+
+  // The host opens a table from the lobby.
+  await ines.getByLabel('Table name').fill('Harbor Lane evening');
+  await ines.getByLabel(/Deal seed/).fill('harbor-lane-week-01');
+  await snap(ines, 'lobby');
+  await ines.getByRole('button', { name: 'Open the table' }).click();
+  await ines.waitForURL(/\/tables\//);
+  const tableUrl = ines.url();
+  await ines.getByRole('button', { name: 'Sit at east' }).click();
+  await ines.getByRole('button', { name: 'Stand up' }).waitFor();
+
+  // A second player finds it among the open tables and sits across.
+  await theo.reload();
+  await theo.getByRole('link', { name: 'Harbor Lane evening' }).first().click();
+  await theo.getByRole('button', { name: 'Sit at west' }).click();
+  await theo.getByRole('button', { name: 'Stand up' }).waitFor();
+
+  // The host fills the rest with bots and deals.
+  await ines.getByRole('button', { name: 'Seat a bot' }).first().click();
+  await ines.getByText('1 empty').or(ines.getByRole('button', { name: 'Seat a bot' })).first().waitFor();
+  await expect.poll(() => ines.getByRole('button', { name: 'Seat a bot' }).count()).toBe(1);
+  await ines.getByRole('button', { name: 'Seat a bot' }).click();
+  await snap(ines, 'table-seated');
+  await ines.getByRole('button', { name: 'Deal and start the Charleston' }).click();
+  await rack(ines).waitFor();
+  await rack(theo).waitFor();
+  await expect.poll(() => rack(theo).getByRole('button').count()).toBe(13);
+  await expect.poll(() => rack(ines).getByRole('button').count()).toBe(14);
+
+  // The host holds the first pass, shows a seat and writes a note.
+  await ines.getByRole('button', { name: 'Hold this pass' }).click();
+  await theo.getByRole('heading', { name: 'This pass is on hold' }).waitFor();
+  const theoTiles = rack(theo).locator('button[aria-pressed="false"]:not([aria-disabled="true"])');
+  await theoTiles.first().click();
+  await theoTiles.first().click();
+  await snap(theo, 'table-mid-pass');
+  await theo.getByRole('button', { name: 'Send 3 tiles' }).isDisabled();
+  await theoTiles.first().click();
+  await theo.getByRole('button', { name: 'Send 3 tiles' }).click();
+  await theo.getByText(/Your pass is in/).waitFor();
+  await ines.getByRole('button', { name: 'Show west' }).click();
+  await ines.getByLabel('Note for the table').fill('Theo passes early from his weakest suit.');
+  await ines.getByLabel('About').selectOption('west');
+  await ines.getByRole('button', { name: 'Add note' }).click();
+  await theo.getByText(/weakest suit/).waitFor();
+  await theo.getByRole('group', { name: 'Rack of Theo Brandt' }).waitFor();
+  await snap(theo, 'huddle');
+  await snap(ines, 'huddle-host');
+  await pickAndSend(ines);
+  await ines.getByRole('button', { name: 'Let the pass go' }).click();
+  await theo.getByText(/^You received 3 tiles from/).waitFor();
+
+  // Everyone plays on; the player across asks to stop after the first Charleston.
+  for (let round = 0; round < 40; round++) {
+    const a = await playStep(ines, false);
+    const b = await playStep(theo, true);
+    if (!a && !b) break;
+    await ines.waitForTimeout(250);
+  }
+  await ines.getByText('The Charleston is over.').waitFor();
+  await snap(ines, 'table-done');
+  const overflow = await theo.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+  expect(overflow).toBeLessThanOrEqual(0);
+
+  // The replay opens from the table and steps with the keyboard.
+  await ines.getByRole('link', { name: 'Replay this exchange pass by pass' }).click();
+  await ines.getByRole('heading', { name: 'Replay: Harbor Lane evening' }).waitFor();
+  await ines.keyboard.press('ArrowRight');
+  await ines.getByText(/^Step 1 of \d+: After the first Charleston, pass right/).waitFor();
+  await ines.getByText(/weakest suit/).waitFor();
+  await snap(ines, 'replay');
+  await ines.keyboard.press('End');
+  await snap(ines, 'replay-end');
+
+  await ines.getByRole('link', { name: 'My exchanges' }).click();
+  await ines.getByRole('link', { name: /^Replay Harbor Lane evening/ }).first().waitFor();
+  await snap(ines, 'history');
+  expect(tableUrl).toContain('/tables/');
+}, 180_000);
+
+test('the table reflows on a 375 px phone with the rack readable', async () => {
+  const mina = await signIn('mina@harborlane.test', 'Mina Castellanos', 375);
+  await mina.getByLabel('Table name').fill('Phone table');
+  await mina.getByRole('button', { name: 'Open the table' }).click();
+  await mina.getByRole('button', { name: 'Sit at east' }).click();
+  for (let i = 0; i < 3; i++) {
+    await mina.getByRole('button', { name: 'Seat a bot' }).first().click();
+    await expect.poll(() => mina.getByRole('button', { name: 'Seat a bot' }).count()).toBe(2 - i);
+  }
+  await mina.getByRole('button', { name: 'Deal and start the Charleston' }).click();
+  await rack(mina).waitFor();
+  const width = await rack(mina).getByRole('button').first().evaluate((b) => b.getBoundingClientRect().width);
+  expect(width).toBeGreaterThanOrEqual(44);
+  const overflow = await mina.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+  expect(overflow).toBeLessThanOrEqual(0);
+  await snap(mina, 'table-phone');
+}, 120_000);
