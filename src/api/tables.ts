@@ -1,8 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { createTableSchema, type CreateTableInput, type TableDto } from '../../shared/protocol';
+import type { CreateTableInput, TableDto } from '../../shared/protocol';
 import { api } from './client';
-
-export { createTableSchema, type CreateTableInput };
 
 export const tablesQuery = queryOptions({
   queryKey: ['tables'],
@@ -20,8 +18,12 @@ export function useTables() {
   return useQuery(tablesQuery);
 }
 
-/** Field errors keyed as the form names them: "name", "options.seed", … */
-export function createTableErrors(input: CreateTableInput): Record<string, string> {
+/**
+ * Field errors keyed as the form names them: "name", "options.seed", … The schema (and zod with
+ * it) loads only when a form is sent, so the home page stays small.
+ */
+export async function createTableErrors(input: CreateTableInput): Promise<Record<string, string>> {
+  const { createTableSchema } = await import('../../shared/protocol');
   const parsed = createTableSchema.safeParse(input);
   if (parsed.success) return {};
   const fields: Record<string, string> = {};

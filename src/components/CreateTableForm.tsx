@@ -29,10 +29,10 @@ export function CreateTableForm() {
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState('');
 
-  const onSubmit = (e: FormEvent) => {
+  const onSubmit = async (e: FormEvent) => {
     e.preventDefault();
     const input = { name, private: isPrivate, options: { ...switches, ...(seed.trim() ? { seed } : {}) } };
-    const found = createTableErrors(input);
+    const found = await createTableErrors(input);
     setErrors(found);
     setProblem('');
     if (Object.keys(found).length) return;
