@@ -35,10 +35,14 @@ export function MoveDiagram({ pass, names, viewer = null }: { pass: PassRecord; 
           const ey = y2 - (dy / len) * 26;
           const cx = (sx + ex) / 2 - (dy / len) * 18;
           const cy = (sy + ey) / 2 + (dx / len) * 18;
+          // The count sits a third of the way along, clear of where across arrows cross.
+          const t = 0.3;
+          const lx = (1 - t) ** 2 * sx + 2 * (1 - t) * t * cx + t * t * ex;
+          const ly = (1 - t) ** 2 * sy + 2 * (1 - t) * t * cy + t * t * ey;
           return (
             <g key={i}>
               <path d={`M${sx} ${sy} Q${cx} ${cy} ${ex} ${ey}`} fill="none" stroke="var(--color-accent)" strokeWidth={3.5} markerEnd="url(#move-head)" />
-              <text x={cx} y={cy + 5} textAnchor="middle" fontSize={14} fontWeight={700} fill="var(--color-ink)" stroke="var(--color-card)" strokeWidth={4} paintOrder="stroke">
+              <text x={lx} y={ly + 5} textAnchor="middle" fontSize={14} fontWeight={700} fill="var(--color-ink)" stroke="var(--color-card)" strokeWidth={4} paintOrder="stroke">
                 {m.count}
               </text>
             </g>

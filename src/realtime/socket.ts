@@ -49,7 +49,7 @@ export function send<E extends ClientEventName>(event: E, payload: ClientPayload
 
 export function joinTable(tableId: string, invite?: string) {
   joined = { tableId, invite };
-  useTableStore.getState().reset();
+  useTableStore.getState().watch(tableId);
   return send('table:join', { tableId, as: 'player', invite });
 }
 

@@ -12,10 +12,13 @@ interface TableStore {
   problem: string | null;
   /** The last thing to read aloud about the table (tiles received). */
   announcement: string;
+  /** The table this tab has joined; states of any other table are ignored. */
+  watching: string | null;
   /** The socket's own writers: nothing else calls these. */
   stateArrived: (state: TableStateDto) => void;
   chatArrived: (message: ChatMessageDto) => void;
   connectionChanged: (connection: Connection, problem?: string | null) => void;
+  watch: (tableId: string | null) => void;
   reset: () => void;
 }
 
@@ -28,8 +31,10 @@ export const useTableStore = create<TableStore>()((set) => ({
   connection: 'idle',
   problem: null,
   announcement: '',
+  watching: null,
   stateArrived: (state) =>
     set((s) => {
+      if (s.watching && state.tableId !== s.watching) return s;
       const same = s.table?.tableId === state.tableId;
       if (same && s.table && state.version < s.table.version) return s;
       const said = receivedAnnouncement(same ? s.table : null, state);
@@ -38,5 +43,6 @@ export const useTableStore = create<TableStore>()((set) => ({
   chatArrived: (message) =>
     set((s) => (s.table && message.tableId !== s.table.tableId ? s : { chat: [...s.chat, message].slice(-CHAT_KEEP) })),
   connectionChanged: (connection, problem = null) => set({ connection, problem }),
-  reset: () => set({ table: null, chat: [], announcement: '', problem: null }),
+  watch: (tableId) => set({ watching: tableId, table: null, chat: [], announcement: '' }),
+  reset: () => set({ table: null, chat: [], announcement: '', problem: null, watching: null }),
 }));

@@ -174,3 +174,12 @@ test('an older state never replaces a newer one', () => {
   store.stateArrived(tableState(null, 'east', {}, 4));
   expect(useTableStore.getState().table?.version).toBe(5);
 });
+
+test('once a tab joins a table, states of another table are ignored', () => {
+  const store = useTableStore.getState();
+  store.watch('t2');
+  store.stateArrived(tableState(fresh(), 'east', {}, 9));
+  expect(useTableStore.getState().table).toBeNull();
+  store.stateArrived({ ...tableState(fresh(), 'east', {}, 1), tableId: 't2' });
+  expect(useTableStore.getState().table?.tableId).toBe('t2');
+});
