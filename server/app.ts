@@ -15,6 +15,8 @@ import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { exchangesRouter } from './routes/exchanges';
 import { tablesRouter } from './routes/tables';
+import { drillsRouter } from './routes/drills';
+import { patternListsRouter } from './routes/pattern-lists';
 import { TableRegistry } from './realtime/registry';
 import type { TableMaster } from './realtime/table-master';
 
@@ -58,6 +60,8 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   api.use('/admin', adminRouter(logger));
   api.use('/tables', tablesRouter(registry));
   api.use('/exchanges', exchangesRouter());
+  api.use('/drills', drillsRouter());
+  api.use('/pattern-lists', patternListsRouter());
   api.use(notFoundApi);
   app.use('/api', api);
 

@@ -79,6 +79,8 @@ export const tableOptionsSchema = z
     teaching: z.boolean().optional(),
     /** Hide the pass advice from the players (a test of skill). */
     hideAdvice: z.boolean().optional(),
+    /** The pattern list the table's analysis and bots use: "starter" or one of the host's own lists. */
+    patternListId: z.string().trim().min(1, 'Pick a pattern list.').max(64).optional(),
   })
   .strict();
 export type TableOptionsInput = z.input<typeof tableOptionsSchema>;
@@ -88,6 +90,8 @@ export const createTableSchema = z
     name: z.string({ error: 'Give the table a name.' }).trim().min(1, 'Give the table a name.').max(TABLE_LIMITS.nameMax, `A table name has at most ${TABLE_LIMITS.nameMax} characters.`),
     private: z.boolean().optional(),
     options: tableOptionsSchema.optional(),
+    /** Deal from one of the host's drills: its seed, preset racks, parts and pattern list. */
+    drillId: z.string().trim().min(1, 'Pick a drill.').max(64).optional(),
   })
   .strict();
 export type CreateTableInput = z.input<typeof createTableSchema>;
@@ -100,6 +104,11 @@ export interface TableOptions {
   huddleEveryPass: boolean;
   teaching: boolean;
   hideAdvice: boolean;
+  /** The pattern list for analysis and bots; absent means the starter list. */
+  patternListId?: string;
+  /** The drill the table deals from, if any (its preset racks stay on the server). */
+  drillId?: string;
+  drillName?: string;
 }
 
 export type TableStatus = 'lobby' | 'playing' | 'done';

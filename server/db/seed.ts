@@ -1,5 +1,6 @@
 import bcrypt from 'bcryptjs';
 import { User, type Role } from './models';
+import { seedTeachingDemo } from './seed-teaching';
 
 /** The demo scenario: Harbor Lane Tile Circle. One password for every demo account. */
 export const DEMO_PASSWORD = 'harbor-lane-demo';
@@ -18,5 +19,6 @@ export async function seedDemo(bcryptRounds: number): Promise<boolean> {
   if ((await User.count()) > 0) return false;
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, bcryptRounds);
   await User.bulkCreate(DEMO_USERS.map((u) => ({ ...u, passwordHash })));
+  await seedTeachingDemo();
   return true;
 }

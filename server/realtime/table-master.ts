@@ -5,12 +5,14 @@
  */
 import { randomBytes, randomUUID } from 'node:crypto';
 import { chooseBotAction, isBotStrategyId, BOT_STRATEGIES } from '../../shared/analysis/bots';
-import { starterPatterns } from '../../shared/analysis';
+import { starterPatterns, type Pattern } from '../../shared/analysis';
+import { STARTER_LIST_ID } from '../../shared/pattern-lists';
 import { act, canResolve, createExchange, isPassPhase, rackOf, resolve, viewFor } from '../../shared/exchange';
 import type { Action, ExchangeOptions, ExchangeState, Viewer } from '../../shared/exchange/types';
 import type { HuddleNoteDto, SeatOccupant, SeatStateDto, TableDto, TableOptions, TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
-import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredSeats } from '../db/models';
+import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredSeats, type StoredTableOptions } from '../db/models';
+import { patternsForTable } from '../teaching/pattern-source';
 
 export class TableError extends Error {
   constructor(
@@ -63,6 +65,8 @@ export class TableMaster {
   /** User ids with at least one open socket at this table. */
   readonly connected = new Map<number, number>();
   spectators = 0;
+  /** The table's pattern list, which its bots judge by; loaded when an exchange starts or is rebuilt. */
+  patterns: readonly Pattern[] = starterPatterns;
 
   constructor(
     public row: TableRow,
@@ -90,6 +94,7 @@ export class TableMaster {
         const notes = await HuddleNoteRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['id', 'ASC']] });
         master.exchange = rebuild(exchangeRow, events, notes.map(noteDto));
         master.version = events.length + 1;
+        master.patterns = (await patternsForTable(row.options.patternListId)).patterns;
       }
     }
     return master;
@@ -174,7 +179,9 @@ export class TableMaster {
         jokers: this.row.options.jokers,
         secondCharleston: this.row.options.secondCharleston,
         courtesy: this.row.options.courtesy,
+        ...(this.row.options.racks ? { racks: this.row.options.racks } : {}),
       };
+      this.patterns = (await patternsForTable(this.row.options.patternListId)).patterns;
       const state = createExchange(options);
       const id = randomUUID();
       const participantIds = SEATS.flatMap((seat) => {
@@ -326,14 +333,14 @@ export class TableMaster {
     for (const seat of SEATS) {
       const occupant = this.row.seats[seat];
       if (occupant?.kind !== 'bot' || this.botTimers.has(seat)) continue;
-      if (!chooseBotAction(occupant.strategy as never, viewFor(live.state, seat), starterPatterns, `${live.id}:${seat}`)) continue;
+      if (!chooseBotAction(occupant.strategy as never, viewFor(live.state, seat), this.patterns, `${live.id}:${seat}`)) continue;
       const timer = setTimeout(() => {
         this.run(async () => {
           this.botTimers.delete(seat);
           const now = this.exchange;
           const bot = this.row.seats[seat];
           if (this.closed || !now || bot?.kind !== 'bot' || this.row.status !== 'playing') return false;
-          const action = chooseBotAction(bot.strategy as never, viewFor(now.state, seat), starterPatterns, `${now.id}:${seat}`);
+          const action = chooseBotAction(bot.strategy as never, viewFor(now.state, seat), this.patterns, `${now.id}:${seat}`);
           if (!action) return false;
           try {
             await this.applyAct(now, seat, action, null);
@@ -379,7 +386,7 @@ export class TableMaster {
       hostName: row.hostName,
       private: row.private,
       status: row.status,
-      options: row.options,
+      options: publicTableOptions(row.options),
       seats: Object.fromEntries(SEATS.map((s) => [s, this.occupantDto(s)])) as TableDto['seats'],
       ...(forUserId === row.hostId && row.inviteCode ? { inviteCode: row.inviteCode } : {}),
       currentExchangeId: row.currentExchangeId,
@@ -421,7 +428,7 @@ export class TableMaster {
       mySeat,
       myRack: mySeat && live ? rackOf(live.state, mySeat) : [],
       seats,
-      options: this.row.options,
+      options: publicTableOptions(this.row.options),
       exchangeId: live?.id ?? null,
       view,
       huddle: { open: live?.huddle.open ?? false, revealed, notes: live ? notesFor(live, this.viewerKind(viewer)) : [] },
@@ -481,6 +488,12 @@ export function rebuild(row: ExchangeRow, events: ExchangeEventRow[], notes: Hud
   return { id: row.id, options: row.options, state, seq: events.length, huddle, notes };
 }
 
+/** What players and hosts see of a table's options: a drill's preset racks stay on the server. */
+export function publicTableOptions(options: StoredTableOptions): TableOptions {
+  const { racks: _racks, ...rest } = options;
+  return rest;
+}
+
 export function defaultTableOptions(input: Partial<TableOptions> = {}): TableOptions {
   return {
     seed: input.seed ?? null,
@@ -490,6 +503,7 @@ export function defaultTableOptions(input: Partial<TableOptions> = {}): TableOpt
     huddleEveryPass: input.huddleEveryPass ?? false,
     teaching: input.teaching ?? false,
     hideAdvice: input.hideAdvice ?? false,
+    patternListId: input.patternListId ?? STARTER_LIST_ID,
   };
 }
 

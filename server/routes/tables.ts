@@ -8,6 +8,9 @@ import { TableRow } from '../db/models';
 import { badInput, HttpError } from '../errors';
 import type { TableRegistry } from '../realtime/registry';
 import { defaultTableOptions, TableMaster } from '../realtime/table-master';
+import { drillNotFound, findOwnDrill, listNotYours } from '../teaching/drills';
+import { mayUseList, patternsForTable } from '../teaching/pattern-source';
+import type { StoredTableOptions } from '../db/models';
 
 const noHooks = { changed: () => undefined, botDelayMs: 0 };
 
@@ -24,7 +27,26 @@ export function tablesRouter(registry: TableRegistry) {
   router.post('/', async (req, res) => {
     const parsed = createTableSchema.safeParse(req.body ?? {});
     if (!parsed.success) throw badInput(parsed.error);
-    const { name, options } = parsed.data;
+    const { name, options, drillId } = parsed.data;
+    const stored: StoredTableOptions = defaultTableOptions(options);
+    if (drillId) {
+      // A drill deals the table: its seed, preset racks, parts and pattern list override the request's.
+      if (req.user!.role !== 'teacher' && req.user!.role !== 'admin') throw new HttpError(403, 'FORBIDDEN', 'Only teachers open tables from drills.');
+      const drill = await findOwnDrill(req.user!.id, drillId);
+      if (!drill) throw drillNotFound();
+      Object.assign(stored, {
+        seed: drill.seed,
+        jokers: drill.jokers,
+        secondCharleston: drill.secondCharleston,
+        courtesy: drill.courtesy,
+        patternListId: drill.patternListId,
+        drillId: drill.id,
+        drillName: drill.name,
+        ...(Object.keys(drill.racks).length ? { racks: drill.racks } : {}),
+      });
+    } else if (!(await mayUseList(req.user!.id, stored.patternListId!))) {
+      throw new HttpError(400, 'BAD_INPUT', 'Some fields need another look.', { 'options.patternListId': listNotYours });
+    }
     const row = await TableRow.create({
       id: randomUUID(),
       name,
@@ -32,7 +54,7 @@ export function tablesRouter(registry: TableRegistry) {
       hostName: req.user!.displayName,
       private: parsed.data.private ?? false,
       inviteCode: parsed.data.private ? randomBytes(12).toString('base64url') : null,
-      options: defaultTableOptions(options),
+      options: stored,
       status: 'lobby',
       seats: Object.fromEntries(SEATS.map((s) => [s, null])) as TableRow['seats'],
       currentExchangeId: null,
@@ -69,6 +91,18 @@ export function tablesRouter(registry: TableRegistry) {
       throw new HttpError(403, 'INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
     }
     res.json({ table: await dtoOf(row, userId) });
+  });
+
+  /** The pattern list the table's analysis uses, for whoever may see the table. */
+  router.get('/:id/patterns', async (req, res) => {
+    const row = await TableRow.findByPk(String(req.params.id));
+    if (!row) throw new HttpError(404, 'NOT_FOUND', 'There is no table with that id.');
+    const userId = req.user!.id;
+    const insider = row.hostId === userId || req.user!.role === 'admin' || SEATS.some((s) => { const o = row.seats[s]; return o?.kind === 'user' && o.userId === userId; });
+    if (row.private && !insider && req.query.invite !== row.inviteCode) {
+      throw new HttpError(403, 'INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
+    }
+    res.json({ list: await patternsForTable(row.options.patternListId) });
   });
 
   return router;

@@ -1,10 +1,13 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Seat } from '../../../shared/seats';
 import type { TableOptions, TableStatus } from '../../../shared/protocol';
+import type { TileKind } from '../../../shared/tiles';
 
 /** Who sits in a seat, as stored: a user or a bot. */
 export type StoredOccupant = { kind: 'user'; userId: number; displayName: string } | { kind: 'bot'; strategy: string; displayName: string };
 export type StoredSeats = Record<Seat, StoredOccupant | null>;
+/** Options as stored: a drill's preset racks are kept here and never leave the server. */
+export type StoredTableOptions = TableOptions & { racks?: Partial<Record<Seat, TileKind[]>> };
 
 export class TableRow extends Model<InferAttributes<TableRow>, InferCreationAttributes<TableRow>> {
   declare id: string;
@@ -13,7 +16,7 @@ export class TableRow extends Model<InferAttributes<TableRow>, InferCreationAttr
   declare hostName: string;
   declare private: boolean;
   declare inviteCode: string | null;
-  declare options: TableOptions;
+  declare options: StoredTableOptions;
   declare status: TableStatus;
   declare seats: StoredSeats;
   declare currentExchangeId: string | null;

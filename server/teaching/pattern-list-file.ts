@@ -1,0 +1,257 @@
+/**
+ * Rackside's own pattern-list files, JSON and CSV, version 1.
+ *
+ * JSON: { "format": "rackside-pattern-list", "version": 1, "name", "description", "patterns": [Pattern…] }
+ * with each pattern in the analysis format.
+ *
+ * CSV: a first line `rackside-pattern-list,1`; then `name,<list name>` and optionally
+ * `description,<text>`; then the header row `id,name,family,points,concealed,size,tile,suit,rank,dragon`
+ * (any order); then one row per group. A pattern's own cells (name, family, points, concealed)
+ * sit on its first row and stay empty (or the same) on the rows after; a pattern's rows are
+ * consecutive. A group is a `tile` (a kind such as flower), or a `suit` (A, B, C or bam, crack, dot)
+ * with a `rank` (1–9, or a variable letter with an offset: n, n+1, n-2), or `dragon` = match with a suit.
+ * `concealed` is yes or no.
+ */
+import { parse } from 'csv-parse/sync';
+import { stringify } from 'csv-stringify/sync';
+import { z } from 'zod';
+import type { Group, Pattern } from '../../shared/analysis/pattern';
+import { PATTERN_LIST_LIMITS, patternFieldErrors, patternListInputSchema } from '../../shared/pattern-lists';
+import { fieldPath, FileRejected, parseJsonFile, type FileProblem } from './json-text';
+
+export const PATTERN_LIST_FORMAT = 'rackside-pattern-list';
+export const PATTERN_LIST_VERSION = 1;
+export const CSV_COLUMNS = ['id', 'name', 'family', 'points', 'concealed', 'size', 'tile', 'suit', 'rank', 'dragon'] as const;
+type Column = (typeof CSV_COLUMNS)[number];
+
+export interface PatternListFile {
+  name: string;
+  description: string;
+  patterns: Pattern[];
+}
+
+const MAX_PROBLEMS = 20;
+
+// ───────────── writing ─────────────
+
+export function patternListJson(list: PatternListFile): string {
+  return `${JSON.stringify({ format: PATTERN_LIST_FORMAT, version: PATTERN_LIST_VERSION, name: list.name, description: list.description, patterns: list.patterns }, null, 2)}\n`;
+}
+
+function rankCell(group: Group): string {
+  if (!('rank' in group)) return '';
+  if (typeof group.rank === 'number') return String(group.rank);
+  const { var: v, offset } = group.rank;
+  return offset === 0 ? v : `${v}${offset > 0 ? '+' : ''}${offset}`;
+}
+
+export function patternListCsv(list: PatternListFile): string {
+  const rows: string[][] = [[PATTERN_LIST_FORMAT, String(PATTERN_LIST_VERSION)], ['name', list.name]];
+  if (list.description) rows.push(['description', list.description]);
+  rows.push([...CSV_COLUMNS]);
+  for (const p of list.patterns) {
+    p.groups.forEach((group, index) => {
+      const first = index === 0;
+      rows.push([
+        p.id,
+        first ? p.name : '',
+        first ? p.family : '',
+        first ? String(p.points) : '',
+        first ? (p.concealed ? 'yes' : 'no') : '',
+        String(group.size),
+        'tile' in group ? group.tile : '',
+        'suit' in group ? group.suit : '',
+        rankCell(group),
+        'dragon' in group ? group.dragon : '',
+      ]);
+    });
+  }
+  return stringify(rows);
+}
+
+// ───────────── reading ─────────────
+
+/** Checks a list read from any file: the list's fields, then every pattern. */
+function checkList(candidate: { name: unknown; description: unknown; patterns: unknown }, where: (key: string) => string): PatternListFile {
+  const problems: FileProblem[] = [];
+  const parsed = patternListInputSchema.safeParse({ name: candidate.name, description: candidate.description ?? '', patterns: candidate.patterns });
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) problems.push({ where: where(issue.path.join('.')), message: issue.message });
+    throw new FileRejected(problems);
+  }
+  const fields = patternFieldErrors(parsed.data.patterns);
+  for (const [key, message] of Object.entries(fields)) problems.push({ where: where(key), message });
+  if (problems.length) throw new FileRejected(problems.slice(0, MAX_PROBLEMS));
+  return { name: parsed.data.name, description: parsed.data.description, patterns: parsed.data.patterns as Pattern[] };
+}
+
+const header = z.object({ format: z.unknown(), version: z.unknown() }).passthrough();
+
+function checkFormat(format: unknown, version: unknown, where: { format: string; version: string }) {
+  if (format !== PATTERN_LIST_FORMAT) {
+    throw new FileRejected([{ where: where.format, message: `This is not a Rackside pattern-list file: "format" must be "${PATTERN_LIST_FORMAT}".` }]);
+  }
+  if (version !== PATTERN_LIST_VERSION) {
+    const newer = typeof version === 'number' && version > PATTERN_LIST_VERSION;
+    throw new FileRejected([
+      { where: where.version, message: newer ? `This file is version ${version}; this Rackside reads version ${PATTERN_LIST_VERSION}.` : `"version" must be ${PATTERN_LIST_VERSION}.` },
+    ]);
+  }
+}
+
+export function readPatternListJson(text: string): PatternListFile {
+  const data = parseJsonFile(text);
+  if (typeof data !== 'object' || data === null || Array.isArray(data)) {
+    throw new FileRejected([{ where: '(the whole file)', message: 'A pattern-list file holds one object with "format", "version", "name" and "patterns".' }]);
+  }
+  const head = header.parse(data);
+  checkFormat(head.format, head.version, { format: 'format', version: 'version' });
+  const known = new Set(['format', 'version', 'name', 'description', 'patterns']);
+  const extra = Object.keys(data).filter((k) => !known.has(k));
+  if (extra.length) throw new FileRejected([{ where: extra[0], message: `"${extra[0]}" is not part of a pattern-list file. Remove it.` }]);
+  const d = data as Record<string, unknown>;
+  return checkList({ name: d.name, description: d.description, patterns: d.patterns }, (key) => fieldPath(key.split('.')));
+}
+
+/** A rank cell: a number, or a variable letter with an optional offset; a string is the problem. */
+function parseRank(cell: string): number | { var: string; offset: number } | string {
+  if (/^\d+$/.test(cell)) return Number(cell);
+  const m = /^([a-z])\s*(?:([+-])\s*(\d+))?$/.exec(cell);
+  if (!m) return `The rank "${cell}" is not a number 1–9 or a variable with an offset (n, n+1, n-2).`;
+  return { var: m[1], offset: m[2] ? Number(`${m[2]}${m[3]}`) : 0 };
+}
+
+const shown = (value: unknown) => (value === true ? 'yes' : value === false ? 'no' : String(value));
+
+interface Row {
+  line: number;
+  cells: string[];
+}
+
+export function readPatternListCsv(text: string): PatternListFile {
+  let rows: Row[];
+  try {
+    const records = parse(text, { bom: true, relax_column_count: true, skip_empty_lines: true, trim: true, info: true }) as unknown as { record: string[]; info: { lines: number } }[];
+    rows = records.map((r) => ({ line: r.info.lines, cells: r.record }));
+  } catch (err) {
+    const e = err as { lines?: number; message: string };
+    throw new FileRejected([{ where: `line ${e.lines ?? 1}`, message: `This line can't be read as CSV (${e.message.replace(/^Invalid [^:]*:\s*/, '')}). Check its quotes and commas.` }]);
+  }
+  if (rows.length === 0) throw new FileRejected([{ where: 'line 1', message: 'The file is empty.' }]);
+  const [first, ...rest] = rows;
+  const version = /^\d+$/.test(first.cells[1] ?? '') ? Number(first.cells[1]) : first.cells[1];
+  checkFormat(first.cells[0], version, { format: `line ${first.line}`, version: `line ${first.line}` });
+
+  const meta: Record<string, string> = {};
+  let at = 0;
+  while (at < rest.length && rest[at].cells[0] !== 'id') {
+    const { line, cells } = rest[at];
+    if (cells[0] !== 'name' && cells[0] !== 'description') {
+      throw new FileRejected([{ where: `line ${line}`, message: `Expected "name,…", "description,…" or the header row starting with "id"; found "${cells[0]}".` }]);
+    }
+    meta[cells[0]] = cells.slice(1).join(',');
+    at++;
+  }
+  if (at >= rest.length) throw new FileRejected([{ where: `line ${rows[rows.length - 1].line}`, message: `The header row is missing: ${CSV_COLUMNS.join(',')}.` }]);
+  const head = rest[at];
+  const index = new Map<string, number>(head.cells.map((name, i) => [name, i]));
+  const missing = CSV_COLUMNS.filter((c) => !index.has(c));
+  const unknown = head.cells.filter((c) => !(CSV_COLUMNS as readonly string[]).includes(c));
+  if (missing.length || unknown.length) {
+    const message = missing.length ? `The header row lacks ${missing.map((c) => `"${c}"`).join(', ')}.` : `The header row has unknown columns: ${unknown.map((c) => `"${c}"`).join(', ')}.`;
+    throw new FileRejected([{ where: `line ${head.line}`, message }]);
+  }
+  const groupRows = rest.slice(at + 1);
+  if (groupRows.length > PATTERN_LIST_LIMITS.patternsMax * 14) {
+    throw new FileRejected([{ where: `line ${groupRows[0].line}`, message: 'The file has too many rows for one list.' }]);
+  }
+
+  const problems: FileProblem[] = [];
+  const cell = (row: Row, column: Column) => row.cells[index.get(column)!] ?? '';
+  const patterns: (Omit<Pattern, 'points' | 'concealed'> & { points: unknown; concealed: unknown })[] = [];
+  // Where each pattern and group came from, to name the line of each problem.
+  const lines: { pattern: number; groups: number[] }[] = [];
+  let current: (typeof patterns)[number] | null = null;
+  const done = new Set<string>();
+  for (const row of groupRows) {
+    const id = cell(row, 'id');
+    const at = (column: Column) => `line ${row.line}, column ${column}`;
+    if (!id) {
+      problems.push({ where: at('id'), message: 'Every row names the id of the pattern its group belongs to.' });
+      continue;
+    }
+    if (!current || current.id !== id) {
+      if (done.has(id)) {
+        problems.push({ where: at('id'), message: `Pattern "${id}" already ended above; keep the rows of one pattern together.` });
+        continue;
+      }
+      done.add(id);
+      const points = cell(row, 'points');
+      const concealed = cell(row, 'concealed').toLowerCase();
+      current = {
+        id,
+        name: cell(row, 'name'),
+        family: cell(row, 'family'),
+        points: /^\d+$/.test(points) ? Number(points) : points,
+        concealed: ['yes', 'true'].includes(concealed) ? true : ['no', 'false'].includes(concealed) ? false : concealed,
+        groups: [],
+      };
+      if (typeof current.points === 'string') problems.push({ where: at('points'), message: `Pattern "${id}": points are a whole number, such as 25.` });
+      if (typeof current.concealed === 'string') problems.push({ where: at('concealed'), message: `Pattern "${id}": concealed is yes or no.` });
+      patterns.push(current);
+      lines.push({ pattern: row.line, groups: [] });
+    } else {
+      for (const column of ['name', 'family', 'points', 'concealed'] as const) {
+        const value = cell(row, column);
+        if (value && value.toLowerCase() !== shown(current[column]).toLowerCase()) {
+          problems.push({ where: at(column), message: `Pattern "${id}": its ${column} is given on its first row; leave this cell empty.` });
+        }
+      }
+    }
+    const label = `Pattern "${id}", group ${current.groups.length + 1}`;
+    const sizeText = cell(row, 'size');
+    const size = /^\d+$/.test(sizeText) ? Number(sizeText) : NaN;
+    if (Number.isNaN(size)) problems.push({ where: at('size'), message: `${label}: size is a number of tiles, 1 to 6.` });
+    const tile = cell(row, 'tile');
+    const suit = cell(row, 'suit');
+    const rankText = cell(row, 'rank');
+    const dragon = cell(row, 'dragon');
+    let group: Record<string, unknown>;
+    if (tile) {
+      if (suit || rankText || dragon) problems.push({ where: at('tile'), message: `${label}: a group with a tile leaves suit, rank and dragon empty.` });
+      group = { size, tile };
+    } else if (dragon) {
+      if (dragon !== 'match') problems.push({ where: at('dragon'), message: `${label}: dragon is "match" (the dragon of the group's suit) or empty.` });
+      if (rankText) problems.push({ where: at('rank'), message: `${label}: a matching dragon has a suit but no rank.` });
+      group = { size, dragon: 'match', suit };
+    } else {
+      const rank = parseRank(rankText);
+      if (!suit) problems.push({ where: at('suit'), message: `${label}: give a tile, or a suit with a rank, or dragon "match" with a suit.` });
+      if (typeof rank === 'string') problems.push({ where: at('rank'), message: `${label}: ${rankText ? rank : 'a suit group needs a rank.'}` });
+      group = { size, suit, rank: typeof rank === 'string' ? rankText : rank };
+    }
+    current.groups.push(group as Group);
+    lines[lines.length - 1].groups.push(row.line);
+    if (problems.length >= MAX_PROBLEMS) break;
+  }
+  if (problems.length) throw new FileRejected(problems.slice(0, MAX_PROBLEMS));
+
+  const where = (key: string) => {
+    const parts = key.split('.');
+    if (parts[0] !== 'patterns' || parts.length < 2) return key === 'name' ? `line ${first.line + 1}` : `line ${head.line + 1}`;
+    const p = lines[Number(parts[1])];
+    if (!p) return `line ${head.line + 1}`;
+    if (parts[2] === 'groups' && parts[3] !== undefined) {
+      const column = parts[4] === 'tile' || parts[4] === 'suit' || parts[4] === 'rank' || parts[4] === 'dragon' || parts[4] === 'size' ? `, column ${parts[4]}` : '';
+      return `line ${p.groups[Number(parts[3])] ?? p.pattern}${column}`;
+    }
+    const column = parts[2] && (CSV_COLUMNS as readonly string[]).includes(parts[2]) ? `, column ${parts[2]}` : '';
+    return `line ${p.pattern}${column}`;
+  };
+  return checkList({ name: meta.name, description: meta.description ?? '', patterns }, where);
+}
+
+/** Which reader a file name asks for. */
+export function readPatternListFile(text: string, kind: 'json' | 'csv'): PatternListFile {
+  return kind === 'csv' ? readPatternListCsv(text) : readPatternListJson(text);
+}

@@ -1,0 +1,50 @@
+/** Where a list's patterns come from: the starter list (served from shared/, read-only) or a teacher's stored list. */
+import { starterPatterns, type Pattern } from '../../shared/analysis';
+import { STARTER_LIST_ID, STARTER_LIST_NAME, type PatternListDto, type PatternListSummaryDto } from '../../shared/pattern-lists';
+import { PatternListRow } from '../db/models';
+
+const STARTER_DESCRIPTION = 'Rackside’s own practice list. It can’t be changed; copy it to make a list of your own.';
+
+export function starterSummary(): PatternListSummaryDto {
+  return { id: STARTER_LIST_ID, name: STARTER_LIST_NAME, description: STARTER_DESCRIPTION, patternCount: starterPatterns.length, readOnly: true, updatedAt: null };
+}
+
+export function starterDto(): PatternListDto {
+  return { ...starterSummary(), patterns: structuredClone(starterPatterns) };
+}
+
+export function summaryOf(row: PatternListRow): PatternListSummaryDto {
+  return { id: row.id, name: row.name, description: row.description, patternCount: row.patterns.length, readOnly: false, updatedAt: row.updatedAt.toISOString() };
+}
+
+export function dtoOf(row: PatternListRow): PatternListDto {
+  return { ...summaryOf(row), patterns: row.patterns };
+}
+
+/** The owner's own list with that id, or null (another teacher's list is as absent as a missing one). */
+export function findOwnList(ownerId: number, id: string) {
+  return PatternListRow.findOne({ where: { id, ownerId } });
+}
+
+/** Whether a teacher may point a drill or table at this list: the starter list or one of their own. */
+export async function mayUseList(ownerId: number, id: string): Promise<boolean> {
+  return id === STARTER_LIST_ID || (await findOwnList(ownerId, id)) !== null;
+}
+
+/** The list's display name for a drill or table, or the starter's when the list is gone. */
+export async function listName(id: string): Promise<string> {
+  if (id === STARTER_LIST_ID) return STARTER_LIST_NAME;
+  return (await PatternListRow.findByPk(id, { attributes: ['name'] }))?.name ?? STARTER_LIST_NAME;
+}
+
+/**
+ * The patterns a table judges by. The host's choice was checked when the table opened; a list
+ * deleted since falls back to the starter list, so a table never stops working.
+ */
+export async function patternsForTable(id: string | undefined): Promise<{ id: string; name: string; patterns: Pattern[] }> {
+  if (id && id !== STARTER_LIST_ID) {
+    const row = await PatternListRow.findByPk(id);
+    if (row) return { id: row.id, name: row.name, patterns: row.patterns };
+  }
+  return { id: STARTER_LIST_ID, name: STARTER_LIST_NAME, patterns: starterPatterns };
+}

@@ -1,0 +1,42 @@
+/** Shared pieces of the drill and pattern-list tests: teachers on a fresh app, a small valid list, uploads. */
+import type request from 'supertest';
+import { createUser, makeApp, signedIn, type TestApp } from './helpers';
+
+/** A valid pattern in Rackside's own format: 2 + 3 + 3 + 3 + 3 = 14 tiles. */
+export const windsPattern = {
+  id: 'harbor-01',
+  name: 'Harbor winds',
+  family: 'compass',
+  points: 25,
+  concealed: false,
+  groups: [
+    { size: 2, tile: 'flower' },
+    { size: 3, tile: 'wind-n' },
+    { size: 3, tile: 'wind-e' },
+    { size: 3, suit: 'A', rank: { var: 'n', offset: 0 } },
+    { size: 3, dragon: 'match', suit: 'A' },
+  ],
+};
+
+export const smallList = { name: 'Harbor Lane week 1 list', description: 'Two patterns to start with.', patterns: [windsPattern, { ...windsPattern, id: 'harbor-02', name: 'Harbor winds, south', groups: [...windsPattern.groups.slice(0, 2), { size: 3, tile: 'wind-s' }, ...windsPattern.groups.slice(3)] }] };
+
+export async function teachingApp() {
+  const app = await makeApp();
+  await createUser('ines@harborlane.test', 'teacher');
+  await createUser('pat@harborlane.test', 'teacher');
+  await createUser('theo@harborlane.test', 'player');
+  return {
+    app,
+    ines: await signedIn(app.app, 'ines@harborlane.test'),
+    pat: await signedIn(app.app, 'pat@harborlane.test'),
+    theo: await signedIn(app.app, 'theo@harborlane.test'),
+  };
+}
+
+export type Agent = ReturnType<typeof request.agent>;
+export type { TestApp };
+
+/** Uploads text as a file, the way a browser's file input sends it. */
+export function upload(agent: Agent, path: string, text: string | Buffer, filename: string, contentType = filename.endsWith('.csv') ? 'text/csv' : 'application/json') {
+  return agent.post(path).attach('file', Buffer.isBuffer(text) ? text : Buffer.from(text, 'utf8'), { filename, contentType });
+}
