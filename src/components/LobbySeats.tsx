@@ -39,7 +39,7 @@ function BotPicker({ seat, busy, onBot }: { seat: Seat; busy: boolean; onBot: Pr
 /** Before the deal: pick a seat, the host fills empty seats with bots and starts. */
 export function LobbySeats({ table, busy, onSit, onStand, onBot, onStart }: Props) {
   const full = SEATS.every((s) => table.seats[s].occupant);
-  const invite = table.inviteCode ? `${window.location.origin}/tables/${table.tableId}?invite=${table.inviteCode}` : null;
+  const link = `${window.location.origin}/tables/${table.tableId}${table.inviteCode ? `?invite=${table.inviteCode}` : ''}`;
   return (
     <div className="flex flex-col gap-4">
       <TableTop
@@ -66,12 +66,10 @@ export function LobbySeats({ table, busy, onSit, onStand, onBot, onStart }: Prop
           );
         }}
       />
-      {invite && (
-        <p className="break-all">
-          <span className="font-semibold">Invite link: </span>
-          <a href={invite}>{invite}</a>
-        </p>
-      )}
+      <p className="break-all">
+        <span className="font-semibold">{table.inviteCode ? 'Invite link (this table is private): ' : 'Link to this table: '}</span>
+        <a href={link}>{link}</a>
+      </p>
       {table.isHost ? (
         <div className="flex flex-wrap items-center gap-3">
           <Button kind="primary" onClick={onStart} disabled={busy || !full}>

@@ -14,9 +14,9 @@ export function HomePage() {
     <div className="flex flex-col gap-6">
       <h1 className="text-title font-semibold">Welcome, {me.displayName}</h1>
       <Card>
-        <dl className="grid grid-cols-[max-content_1fr] gap-x-6 gap-y-2">
+        <dl className="grid grid-cols-1 gap-x-6 gap-y-1 sm:grid-cols-[max-content_1fr] sm:gap-y-2">
           <dt className="font-medium text-ink-soft">Signed in as</dt>
-          <dd>{me.email}</dd>
+          <dd className="min-w-0 break-all">{me.email}</dd>
           <dt className="font-medium text-ink-soft">Your role</dt>
           <dd>
             <span className="rounded-md border-2 border-accent bg-accent-soft px-2 py-0.5 font-semibold" data-testid="role">

@@ -3,7 +3,7 @@ import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
 import { useShallow } from 'zustand/react/shallow';
 import { isPassPhase, PASS_DIRECTION, type CourtesyCount } from '../../shared/exchange';
 import type { ClientEventName, ClientPayload, TableStateDto } from '../../shared/protocol';
-import { seatTo } from '../../shared/seats';
+import { SEATS, seatTo } from '../../shared/seats';
 import { useMe } from '../api/auth';
 import { AnalysisPanel } from '../components/AnalysisPanel';
 import { Button } from '../components/Button';
@@ -129,6 +129,21 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
             onAsk={(count) => void run('exchange:act', { action: { type: 'courtesy-ask', count }, version })}
             onBlind={(n) => setPick({ key, ids: picked.slice(0, view.passSize - n), blind: n })}
           />
+        </section>
+      )}
+      {!me && SEATS.some((s) => view.racks[s]) && (
+        <section aria-labelledby="all-racks" className="flex flex-col gap-3 rounded-card border border-line/60 bg-card p-3 sm:p-4">
+          <h2 id="all-racks" className="text-lead font-semibold">
+            Every rack
+          </h2>
+          {SEATS.filter((s) => view.racks[s]).map((s) => (
+            <div key={s} className="flex flex-col gap-1">
+              <h3 className="font-semibold">
+                {table.seats[s].occupant?.displayName ?? s} ({s})
+              </h3>
+              <Rack label={`Rack of ${table.seats[s].occupant?.displayName ?? s}`} tiles={view.racks[s]!} sending={view.pending[s]?.tiles ?? []} received={view.received[s]?.map((t) => t.id) ?? []} size="small" />
+            </div>
+          ))}
         </section>
       )}
       {!table.huddle.open && huddle}

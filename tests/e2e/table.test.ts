@@ -134,8 +134,9 @@ test('two players and two bots finish an exchange with a huddle, then replay it'
   expect(tableUrl).toContain('/tables/');
 }, 180_000);
 
-test('the table reflows on a 375 px phone with the rack readable', async () => {
+test('on a 375 px phone the rack reads at 44 px, plays by keyboard, and reduced motion stops the slide', async () => {
   const mina = await signIn('mina@harborlane.test', 'Mina Castellanos', 375);
+  await mina.emulateMedia({ reducedMotion: 'reduce' });
   await mina.getByLabel('Table name').fill('Phone table');
   await mina.getByRole('button', { name: 'Open the table' }).click();
   await mina.getByRole('button', { name: 'Sit at east' }).click();
@@ -150,4 +151,32 @@ test('the table reflows on a 375 px phone with the rack readable', async () => {
   const overflow = await mina.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
   expect(overflow).toBeLessThanOrEqual(0);
   await snap(mina, 'table-phone');
+
+  // Keyboard only: Tab into the rack, arrows move, Space picks (never a joker), Enter sends.
+  const first = rack(mina).locator('button[tabindex="0"]');
+  await first.focus();
+  let picked = 0;
+  for (let i = 0; i < 14 && picked < 3; i++) {
+    const label = (await mina.evaluate(() => document.activeElement?.getAttribute('aria-label'))) ?? '';
+    if (!label.startsWith('joker')) {
+      await mina.keyboard.press('Space');
+      picked++;
+    }
+    await mina.keyboard.press('ArrowRight');
+  }
+  await mina.keyboard.press('Enter');
+  const news = mina.getByText(/^You received 3 tiles from your left \(north\): /);
+  await news.waitFor();
+  const animation = await rack(mina).locator('.tile-arrive').first().evaluate((el) => getComputedStyle(el).animationName);
+  expect(animation).toBe('none');
+  await snap(mina, 'table-phone-received');
 }, 120_000);
+
+test('the lobby reflows at 320 px with the largest text', async () => {
+  const sol = await signIn('sol@harborlane.test', 'Sol Varga', 320);
+  await sol.getByRole('button', { name: 'Text size largest' }).click();
+  await sol.getByRole('heading', { name: 'Open a new table' }).waitFor();
+  const overflow = await sol.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+  await snap(sol, 'lobby-320-largest');
+  expect(overflow).toBeLessThanOrEqual(0);
+});
