@@ -102,6 +102,11 @@ test('two players and two bots finish an exchange with a huddle, then replay it'
   await theo.getByRole('group', { name: 'Rack of Theo Brandt' }).waitFor();
   await snap(theo, 'huddle');
   await snap(ines, 'huddle-host');
+  // A held pass can be revised: take it back and choose again.
+  await theo.getByRole('button', { name: 'Take back my choice' }).click();
+  await theo.getByRole('button', { name: 'Send 3 tiles' }).waitFor();
+  await pickAndSend(theo);
+  await theo.getByText(/Your pass is in/).waitFor();
   await pickAndSend(ines);
   await ines.getByRole('button', { name: 'Let the pass go' }).click();
   await theo.getByText(/^You received 3 tiles from/).waitFor();
@@ -180,3 +185,33 @@ test('the lobby reflows at 320 px with the largest text', async () => {
   await snap(sol, 'lobby-320-largest');
   expect(overflow).toBeLessThanOrEqual(0);
 });
+
+test('a new user registers, finishes an exchange against three bots, and replays it', async () => {
+  const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+  contexts.push(context);
+  const page = await context.newPage();
+  await page.goto(`${baseUrl}/register`);
+  await page.getByLabel('Name at the table').fill('Dana Okoye');
+  await page.getByLabel('E-mail').fill('dana@harborlane.test');
+  await page.getByLabel('Password').fill('three-bots-and-me');
+  await page.getByRole('button', { name: 'Make my account' }).click();
+  await page.getByRole('heading', { name: 'Welcome, Dana Okoye' }).waitFor();
+  await page.getByLabel('Table name').fill('Dana practises');
+  await page.getByRole('button', { name: 'Open the table' }).click();
+  await page.getByRole('button', { name: 'Sit at south' }).click();
+  for (let i = 0; i < 3; i++) {
+    await page.getByRole('button', { name: 'Seat a bot' }).first().click();
+    await expect.poll(() => page.getByRole('button', { name: 'Seat a bot' }).count()).toBe(2 - i);
+  }
+  await page.getByRole('button', { name: 'Deal and start the Charleston' }).click();
+  await rack(page).waitFor();
+  for (let round = 0; round < 40 && (await playStep(page, false)); round++) await page.waitForTimeout(200);
+  await page.getByText('The Charleston is over.').waitFor();
+  await page.getByRole('link', { name: 'Replay this exchange pass by pass' }).click();
+  await page.getByRole('heading', { name: 'Replay: Dana practises' }).waitFor();
+  await page.getByRole('button', { name: 'Next step →' }).click();
+  await page.getByText(/^Step 1 of \d+/).waitFor();
+  await snap(page, 'replay-1440');
+  await page.getByRole('link', { name: 'My exchanges' }).click();
+  await page.getByRole('link', { name: /^Replay Dana practises/ }).waitFor();
+}, 120_000);
