@@ -15,6 +15,7 @@ import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { exchangesRouter } from './routes/exchanges';
 import { tablesRouter } from './routes/tables';
+import { teachingRoutes } from './routes/teaching';
 import { drillsRouter } from './routes/drills';
 import { patternListsRouter } from './routes/pattern-lists';
 import { TableRegistry } from './realtime/registry';
@@ -48,7 +49,11 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   // One owner per table, shared by the REST routes and the sockets.
   const registry = new TableRegistry({ botDelayMs: config.botDelayMs, changed: (master) => onTableChange.forEach((fn) => fn(master)) });
 
+  const teaching = teachingRoutes({ config, sequelize, registry, tableChanged: (master) => onTableChange.forEach((fn) => fn(master)) });
+
   const api = express.Router();
+  // The payment service's webhook: raw body for its signature, and no browser Origin to check.
+  api.use('/payments/webhook', teaching.webhook);
   api.use(requireOwnOrigin(config));
   api.use(express.json({ limit: '100kb' }));
   api.use(session.middleware);
@@ -56,12 +61,14 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   api.use(passport.session());
   api.use(absoluteLifetime(config));
   api.use('/health', healthRouter(sequelize, () => !draining));
+  api.use('/auth/password-reset', teaching.passwordReset);
   api.use('/auth', authRouter(passport, config, { onLogout: (sid) => onLogout.forEach((fn) => fn(sid)), log: logger }));
   api.use('/admin', adminRouter(logger));
   api.use('/tables', tablesRouter(registry));
   api.use('/exchanges', exchangesRouter());
   api.use('/drills', drillsRouter());
   api.use('/pattern-lists', patternListsRouter());
+  api.use(teaching.routes);
   api.use(notFoundApi);
   app.use('/api', api);
 
@@ -87,7 +94,10 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
     drain: () => {
       draining = true;
     },
-    close: () => session.close(),
+    close: () => {
+      teaching.close();
+      session.close();
+    },
   };
 }
 

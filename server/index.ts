@@ -5,9 +5,12 @@ import { openDatabase } from './db';
 import { migrate } from './db/migrate';
 import { seedDemo } from './db/seed';
 import { attachRealtime } from './realtime';
+import { startLocalFakes } from './services/fakes';
 
 /** Opens the database, migrates, seeds the demo on an empty database, and listens. */
-export async function startServer(config: Config) {
+export async function startServer(givenConfig: Config) {
+  // Mail and payments not configured for real go to local fakes (development and tests).
+  const { config, fakes } = await startLocalFakes(givenConfig);
   const sequelize = await openDatabase(config.databaseUrl);
   await migrate(sequelize);
   if (config.seedDemo && (await seedDemo(config.bcryptRounds))) console.log('Seeded the Harbor Lane demo accounts.');
@@ -20,6 +23,7 @@ export async function startServer(config: Config) {
   await new Promise<void>((resolve) => httpServer.listen(config.port, resolve));
   const address = httpServer.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
+  fakes.listening(port);
 
   /** A clean stop: readiness off, no new connections, every queued action finished and stored, then the database closed. */
   async function close() {
@@ -28,9 +32,10 @@ export async function startServer(config: Config) {
     await registry.closeAll();
     await io.close();
     application.close();
+    await fakes.close();
     await sequelize.close();
   }
-  return { httpServer, io, registry, sequelize, port, close };
+  return { httpServer, io, registry, sequelize, port, close, fakes, config };
 }
 
 /** Starts Rackside and closes it cleanly on SIGTERM or SIGINT. */

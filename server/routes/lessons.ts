@@ -1,0 +1,157 @@
+import { Router } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { Op, type Sequelize } from 'sequelize';
+import { invitationsInputSchema, lessonInputSchema, roomInputSchema } from '../../shared/lessons';
+import { requireTeacher, requireUser } from '../auth/guards';
+import type { Config } from '../config';
+import { DrillRow, Enrollment, Invitation, Lesson, User } from '../db/models';
+import { badInput, HttpError } from '../errors';
+import type { TableRegistry } from '../realtime/registry';
+import type { TableMaster } from '../realtime/table-master';
+import { lessonDetail, lessonDto, lessonEnd, lessonFor, requireLessonTeacher } from '../services/lessons';
+import { createRoom, roomTables, startRoom } from '../services/lesson-room';
+import { publicBase } from '../services/links';
+import type { Mailer } from '../services/mail/mailer';
+import { invitationMail } from '../services/mail/messages';
+import { isTimeZone, zonedToUtc } from '../services/time';
+import { hashToken, signToken } from '../services/tokens';
+import { randomBytes } from 'node:crypto';
+
+export interface LessonDeps {
+  config: Config;
+  sequelize: Sequelize;
+  mailer: Mailer;
+  registry: TableRegistry;
+  tableChanged: (master: TableMaster) => void;
+}
+
+export function lessonsRouter({ config, sequelize, mailer, registry, tableChanged }: LessonDeps) {
+  const router = Router();
+  router.use(requireUser);
+
+  const inviteLimiter = rateLimit({
+    windowMs: config.rateLimits.invitations.windowMs,
+    limit: config.rateLimits.invitations.max,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    keyGenerator: (req) => `invite|${req.user?.id ?? 0}`,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'That is a lot of invitations in a short time. Please wait a while and try again.' } });
+    },
+  });
+
+  router.get('/', async (req, res) => {
+    const user = req.user!;
+    const teaching = await Lesson.findAll({ where: user.role === 'admin' ? {} : { teacherId: user.id }, order: [['startsAt', 'ASC']], limit: 300 });
+    const mine = await Enrollment.findAll({ where: { userId: user.id } });
+    const attending = mine.length ? await Lesson.findAll({ where: { id: { [Op.in]: mine.map((e) => e.lessonId) } }, order: [['startsAt', 'ASC']] }) : [];
+    const status = new Map(mine.map((e) => [e.lessonId, e.status]));
+    res.json({
+      teaching: await Promise.all(teaching.map((l) => lessonDto(l, user.id, null))),
+      attending: await Promise.all(attending.map((l) => lessonDto(l, user.id, status.get(l.id) ?? null))),
+    });
+  });
+
+  router.post('/', requireTeacher, async (req, res) => {
+    const parsed = lessonInputSchema.safeParse(req.body ?? {});
+    if (!parsed.success) throw badInput(parsed.error);
+    const input = parsed.data;
+    const fields: Record<string, string> = {};
+    let startsAt: Date | null = null;
+    if (!isTimeZone(input.timeZone)) fields.timeZone = 'Pick a time zone from the list, such as America/New_York.';
+    else {
+      startsAt = zonedToUtc(input.startsAtLocal, input.timeZone);
+      if (!startsAt) fields.startsAtLocal = 'That time does not exist in that time zone (the clocks skip it). Pick another time.';
+      else if (startsAt.getTime() < Date.now()) fields.startsAtLocal = 'Pick a start time in the future.';
+    }
+    if (input.drillIds.length) {
+      const drills = await DrillRow.findAll({ where: { id: { [Op.in]: input.drillIds } } });
+      const usable = new Set(drills.filter((d) => d.ownerId === req.user!.id || req.user!.role === 'admin').map((d) => d.id));
+      const missing = input.drillIds.filter((id) => !usable.has(id));
+      if (missing.length) fields.drillIds = 'Pick drills from your own list; one of these is not yours or no longer exists.';
+    }
+    if (Object.keys(fields).length) throw new HttpError(400, 'BAD_INPUT', 'Some fields need another look.', fields);
+    const lesson = await Lesson.create({
+      teacherId: req.user!.id,
+      title: input.title,
+      description: input.description,
+      startsAt: startsAt!,
+      timeZone: input.timeZone,
+      durationMinutes: input.durationMinutes,
+      seats: input.seats,
+      priceCents: input.priceCents,
+      currency: input.currency,
+      drillIds: input.drillIds,
+      seed: input.seed ?? null,
+    });
+    res.status(201).json({ lesson: await lessonDetail(lesson, req.user!.id, 'teacher', null) });
+  });
+
+  router.get('/:id', async (req, res) => {
+    const { lesson, role, enrollment } = await lessonFor(req, req.params.id);
+    res.json({ lesson: await lessonDetail(lesson, req.user!.id, role, enrollment) });
+  });
+
+  router.post('/:id/invitations', inviteLimiter, async (req, res) => {
+    const { lesson, role } = await lessonFor(req, req.params.id);
+    requireLessonTeacher(role);
+    const parsed = invitationsInputSchema.safeParse(req.body ?? {});
+    if (!parsed.success) throw badInput(parsed.error);
+    const ends = lessonEnd(lesson);
+    if (ends.getTime() <= Date.now()) throw new HttpError(409, 'LESSON_OVER', 'This lesson has already ended, so nobody can be invited to it.');
+    const teacher = (await User.findByPk(lesson.teacherId))!;
+    const base = publicBase(config, req);
+    const results: { email: string; status: 'sent' | 'already-enrolled' | 'failed'; message: string }[] = [];
+    for (const email of [...new Set(parsed.data.emails)]) {
+      const existing = await User.findOne({ where: { email } });
+      const enrollment = existing ? await Enrollment.findOne({ where: { lessonId: lesson.id, userId: existing.id } }) : null;
+      if (enrollment && enrollment.status !== 'invited') {
+        results.push({ email, status: 'already-enrolled', message: `${existing!.displayName} has already accepted.` });
+        continue;
+      }
+      const expiresAt = new Date(Math.min(Date.now() + config.invitationTtlMs, ends.getTime()));
+      // A new invitation replaces any unused one to the same address.
+      await Invitation.update({ expiresAt: new Date() }, { where: { lessonId: lesson.id, email, usedAt: null, expiresAt: { [Op.gt]: new Date() } } });
+      const invitation = await Invitation.create({ lessonId: lesson.id, email, tokenHash: randomBytes(32).toString('hex'), expiresAt });
+      const token = signToken(config.linkSecret, 'invitation', invitation.id, expiresAt);
+      await invitation.update({ tokenHash: hashToken(token) });
+      try {
+        await mailer.send({ to: email, ...invitationMail(lesson, teacher.displayName, `${base}/invitations/${token}`, expiresAt), kind: 'invitation', senderId: req.user!.id });
+      } catch (err) {
+        await invitation.destroy();
+        results.push({ email, status: 'failed', message: err instanceof HttpError ? err.message : 'The invitation could not be sent.' });
+        continue;
+      }
+      if (existing && !enrollment) await Enrollment.create({ lessonId: lesson.id, userId: existing.id, status: 'invited' });
+      results.push({ email, status: 'sent', message: `Invitation sent to ${email}.` });
+    }
+    const status = results.every((r) => r.status === 'failed') ? 502 : 201;
+    res.status(status).json({ results, lesson: await lessonDetail(lesson, req.user!.id, 'teacher', null) });
+  });
+
+  router.get('/:id/room', async (req, res) => {
+    const { lesson, role, enrollment } = await lessonFor(req, req.params.id);
+    if (role === 'student' && !enrollment) throw new HttpError(403, 'NOT_IN_LESSON', 'This lesson is only for its teacher and its students.');
+    res.json({ tables: await roomTables(lesson, role === 'teacher' ? null : req.user!.id) });
+  });
+
+  router.post('/:id/room', async (req, res) => {
+    const { lesson, role } = await lessonFor(req, req.params.id);
+    requireLessonTeacher(role);
+    const parsed = roomInputSchema.safeParse(req.body ?? {});
+    if (!parsed.success) throw badInput(parsed.error);
+    const teacher = (await User.findByPk(lesson.teacherId))!;
+    await createRoom(sequelize, lesson, teacher, parsed.data);
+    res.status(201).json({ tables: await roomTables(lesson, null) });
+  });
+
+  router.post('/:id/room/start', async (req, res) => {
+    const { lesson, role } = await lessonFor(req, req.params.id);
+    requireLessonTeacher(role);
+    const teacher = (await User.findByPk(lesson.teacherId))!;
+    const started = await startRoom(lesson, teacher, registry, tableChanged);
+    res.json({ started, tables: await roomTables(lesson, null) });
+  });
+
+  return router;
+}

@@ -1,0 +1,62 @@
+/**
+ * Seat accounting for lessons. Every change that may take a seat runs through `seatTransaction`:
+ * one at a time per lesson in this process, inside an IMMEDIATE SQLite transaction (the write
+ * lock is taken before the count is read, so a second process cannot count the same free seat).
+ */
+import { Op, Transaction, type Sequelize } from 'sequelize';
+import { Enrollment, Payment, type Lesson } from '../db/models';
+
+const queues = new Map<number, Promise<unknown>>();
+
+function oneAtATime<T>(lessonId: number, task: () => Promise<T>): Promise<T> {
+  const previous = queues.get(lessonId) ?? Promise.resolve();
+  const next = previous.then(task, task);
+  const settled = next.catch(() => undefined);
+  queues.set(lessonId, settled);
+  void settled.then(() => {
+    if (queues.get(lessonId) === settled) queues.delete(lessonId);
+  });
+  return next;
+}
+
+const isBusy = (err: unknown) => /SQLITE_BUSY|database is locked/i.test(String((err as Error)?.message ?? err));
+
+export function seatTransaction<T>(sequelize: Sequelize, lessonId: number, work: (t: Transaction) => Promise<T>): Promise<T> {
+  return oneAtATime(lessonId, async () => {
+    // A connection opened for a transaction may not wait on a lock held elsewhere: retry briefly.
+    for (let attempt = 0; ; attempt++) {
+      try {
+        return await sequelize.transaction({ type: Transaction.TYPES.IMMEDIATE }, work);
+      } catch (err) {
+        if (!isBusy(err) || attempt >= 20) throw err;
+        await new Promise((r) => setTimeout(r, 25 * (attempt + 1)));
+      }
+    }
+  });
+}
+
+/**
+ * Seats held now: in a free lesson every accepted student; in a priced one every paid student
+ * plus every checkout still inside its hold (other than `exceptPaymentId`).
+ */
+export async function seatsTaken(lesson: Lesson, t?: Transaction, exceptPaymentId?: number): Promise<number> {
+  if (lesson.priceCents === 0) {
+    return Enrollment.count({ where: { lessonId: lesson.id, status: { [Op.in]: ['enrolled', 'paid'] } }, transaction: t });
+  }
+  const paid = await Enrollment.count({ where: { lessonId: lesson.id, status: 'paid' }, transaction: t });
+  const holds = await Payment.count({
+    where: {
+      lessonId: lesson.id,
+      status: 'pending',
+      holdUntil: { [Op.gt]: new Date() },
+      ...(exceptPaymentId ? { id: { [Op.ne]: exceptPaymentId } } : {}),
+    },
+    transaction: t,
+  });
+  return paid + holds;
+}
+
+/** Students who hold a seat (and so go to the lesson room). */
+export function seatedStatuses(lesson: Lesson): ('enrolled' | 'paid')[] {
+  return lesson.priceCents === 0 ? ['enrolled', 'paid'] : ['paid'];
+}
