@@ -13,9 +13,9 @@ function open(): ClientSocket {
   const store = useTableStore.getState;
   const s: ClientSocket = io({ withCredentials: true, transports: ['websocket', 'polling'] });
   store().connectionChanged('connecting');
-  s.on('connect', () => {
-    store().connectionChanged('online');
-    // The server sends a full table:state on every join, so a reconnect loses nothing.
+  s.on('connect', () => store().connectionChanged('online'));
+  // After a drop, join again: the server sends a full table:state on every join, so nothing is lost.
+  s.io.on('reconnect', () => {
     if (joined) s.emit('table:join', { tableId: joined.tableId, as: 'player', invite: joined.invite }, () => {});
   });
   s.on('disconnect', () => store().connectionChanged('offline', 'The connection dropped. Rackside is trying again…'));

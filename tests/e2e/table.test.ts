@@ -67,6 +67,8 @@ test('two players and two bots finish an exchange with a huddle, then replay it'
 
   // A second player finds it among the open tables and sits across.
   await theo.reload();
+  await theo.getByRole('heading', { name: 'Open tables' }).waitFor();
+  await snap(theo, 'lobby-open-tables');
   await theo.getByRole('link', { name: 'Harbor Lane evening' }).first().click();
   await theo.getByRole('button', { name: 'Sit at west' }).click();
   await theo.getByRole('button', { name: 'Stand up' }).waitFor();
