@@ -1,5 +1,6 @@
 /** Starts the local mail and payment fakes for whatever is not configured for real. */
 import { LOCAL_STRIPE_KEY, type Config } from '../config';
+import { log } from '../log';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { startFakePayments, type FakePayments } from './payments/fake-server';
 
@@ -18,8 +19,8 @@ export async function startLocalFakes(config: Config): Promise<{ config: Config;
     wanted && !config.stripeApiBase && config.stripeSecretKey === LOCAL_STRIPE_KEY
       ? await startFakePayments({ apiKey: config.stripeSecretKey, webhookSecret: config.stripeWebhookSecret })
       : null;
-  if (smtp) console.log(`Mail goes to the local fake on ${smtp.url}; read it on the Mail page.`);
-  if (payments) console.log(`Payments go to the local fake on ${payments.url}.`);
+  if (smtp) log.info(`Mail goes to the local fake on ${smtp.url}; read it on the Mail page.`);
+  if (payments) log.info(`Payments go to the local fake on ${payments.url}.`);
   return {
     config: { ...config, smtpUrl: smtp?.url ?? config.smtpUrl, stripeApiBase: payments?.url ?? config.stripeApiBase },
     fakes: {
