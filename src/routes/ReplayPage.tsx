@@ -1,18 +1,37 @@
 import { useEffect, useMemo, useState } from 'react';
 import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { rankPatterns, starterPatterns } from '../../shared/analysis';
 import type { ExchangeReplayDto } from '../../shared/protocol';
 import { SEATS, seatTo, type Seat } from '../../shared/seats';
-import { tileName } from '../../shared/tiles';
+import { tileName, type Tile as TileData } from '../../shared/tiles';
 import { useMe } from '../api/auth';
 import { ApiError } from '../api/client';
 import { useReplay } from '../api/exchanges';
 import { AwayChart } from '../components/AwayChart';
 import { Button } from '../components/Button';
 import { MoveDiagram } from '../components/MoveDiagram';
+import { PatternRow } from '../components/PatternRow';
 import { Rack } from '../components/Rack';
 import { nearestOf, PASS_DIRECTION, replaySteps, type ReplayStep } from '../components/replaySteps';
 import { Tile } from '../components/Tile';
 import { capitalise } from '../realtime/seating';
+
+/** The three nearest patterns, worked out only when opened. */
+function RackDetail({ rack }: { rack: readonly TileData[] }) {
+  const [open, setOpen] = useState(false);
+  return (
+    <details onToggle={(e) => setOpen(e.currentTarget.open)}>
+      <summary className="cursor-pointer text-base font-medium">What this rack keeps and needs</summary>
+      {open && (
+        <ul>
+          {rankPatterns(rack.map((t) => t.kind), starterPatterns, 3).map((ranked) => (
+            <PatternRow key={ranked.pattern.id} ranked={ranked} />
+          ))}
+        </ul>
+      )}
+    </details>
+  );
+}
 
 function SeatPanel({ step, seat, name }: { step: ReplayStep; seat: Seat; name: string }) {
   const rack = step.state.racks[seat];
@@ -41,6 +60,7 @@ function SeatPanel({ step, seat, name }: { step: ReplayStep; seat: Seat; name: s
           Nearest: <span className="font-semibold">{nearest.pattern.name}</span>, {nearest.away} away
         </p>
       )}
+      <RackDetail rack={rack} />
     </section>
   );
 }

@@ -183,3 +183,23 @@ test('once a tab joins a table, states of another table are ignored', () => {
   store.stateArrived({ ...tableState(fresh(), 'east', {}, 1), tableId: 't2' });
   expect(useTableStore.getState().table?.tableId).toBe('t2');
 });
+
+test('a seat whose pair agreed on no courtesy tiles is told it has nothing to send', async () => {
+  let state = must(act(passAll(passAll(passAll(fresh()))), 'south', { type: 'vote', stop: true }));
+  const asks = { east: 0, west: 0, south: 2, north: 3 } as const;
+  for (const seat of ['east', 'south', 'west', 'north'] as const) state = must(act(state, seat, { type: 'courtesy-ask', count: asks[seat] }));
+  expect(state.phase).toBe('courtesy-pass');
+  await showTable(tableState(state, 'east', {}, 6));
+  expect(screen.getByText(/Your pair agreed on no tiles/)).toBeTruthy();
+  push(tableState(state, 'south', {}, 7));
+  expect(await screen.findByRole('button', { name: 'Send 2 tiles' })).toBeTruthy();
+});
+
+test('when the Charleston is over the table links to its replay', async () => {
+  let state = passAll(passAll(passAll(fresh())));
+  state = must(act(state, 'south', { type: 'vote', stop: true }));
+  for (const seat of ['east', 'south', 'west', 'north'] as const) state = must(act(state, seat, { type: 'courtesy-ask', count: 0 }));
+  expect(state.phase).toBe('done');
+  await showTable(tableState(state, 'east', {}, 9));
+  expect(screen.getByRole('link', { name: 'Replay this exchange pass by pass' }).getAttribute('href')).toBe('/replays/x1');
+});
