@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { advisePass, starterPatterns, summarizeRack } from '../../shared/analysis';
+import { advisePass, starterPatterns, summarizeRack, type Pattern } from '../../shared/analysis';
 import type { Phase } from '../../shared/exchange';
 import { tileName, type TileKind } from '../../shared/tiles';
 import { PatternRow } from './PatternRow';
@@ -11,20 +11,22 @@ interface Props {
   pass: { phase: Phase; blindAllowed: boolean; count: number } | null;
   /** The host hid advice at this table. */
   adviceHidden?: boolean;
+  /** The table's pattern list (GET /api/tables/:id/patterns); the starter list until it loads. */
+  patterns?: readonly Pattern[];
 }
 
 const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 
 /** The rack at a glance, the nearest patterns and the advised passes, all worked out in the browser. */
-export function AnalysisPanel({ hand, pass, adviceHidden = false }: Props) {
+export function AnalysisPanel({ hand, pass, adviceHidden = false, patterns = starterPatterns }: Props) {
   const [showAdvice, setShowAdvice] = useState(true);
   const key = hand.join(',');
   // eslint-disable-next-line react-hooks/exhaustive-deps
-  const summary = useMemo(() => summarizeRack(hand, starterPatterns), [key]);
+  const summary = useMemo(() => summarizeRack(hand, patterns), [key, patterns]);
   const advice = useMemo(
-    () => (pass && pass.count > 0 && showAdvice && !adviceHidden ? advisePass(hand, starterPatterns, pass).slice(0, 3) : []),
+    () => (pass && pass.count > 0 && showAdvice && !adviceHidden ? advisePass(hand, patterns, pass).slice(0, 3) : []),
     // eslint-disable-next-line react-hooks/exhaustive-deps
-    [key, pass?.phase, pass?.blindAllowed, pass?.count, showAdvice, adviceHidden],
+    [key, pass?.phase, pass?.blindAllowed, pass?.count, showAdvice, adviceHidden, patterns],
   );
   if (hand.length === 0) return null;
   const suits = `${summary.bySuit.bam} bam, ${summary.bySuit.crack} crack, ${summary.bySuit.dot} dot`;

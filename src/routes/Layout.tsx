@@ -60,6 +60,16 @@ export function Layout() {
                 My exchanges
               </NavLink>
             )}
+            {(me?.role === 'teacher' || me?.role === 'admin') && (
+              <>
+                <NavLink to="/drills" className={navClass}>
+                  Drills
+                </NavLink>
+                <NavLink to="/pattern-lists" className={navClass}>
+                  Pattern lists
+                </NavLink>
+              </>
+            )}
             {me?.role === 'admin' && (
               <NavLink to="/admin/users" className={navClass}>
                 People
