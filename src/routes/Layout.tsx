@@ -70,6 +70,16 @@ export function Layout() {
                 </NavLink>
               </>
             )}
+            {me && (
+              <NavLink to="/lessons" className={navClass}>
+                Lessons
+              </NavLink>
+            )}
+            {(me?.role === 'teacher' || me?.role === 'admin') && (
+              <NavLink to="/mail" className={navClass}>
+                Mail
+              </NavLink>
+            )}
             {me?.role === 'admin' && (
               <NavLink to="/admin/users" className={navClass}>
                 People

@@ -39,6 +39,9 @@ export function SignInPage() {
         </Button>
       </form>
       <p className="mt-6">
+        <Link to="/forgot-password">Forgot your password?</Link>
+      </p>
+      <p className="mt-2">
         New to Rackside? <Link to="/register">Make an account</Link>
       </p>
     </Card>

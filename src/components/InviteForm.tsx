@@ -1,0 +1,67 @@
+import { useState, type FormEvent } from 'react';
+import { ApiError } from '../api/client';
+import { useInvite, type InviteResult } from '../api/lessons';
+import { Button } from './Button';
+import { FormMessage } from './FormMessage';
+
+/** Invite by e-mail: one address a line (or separated by commas). */
+export function InviteForm({ lessonId }: { lessonId: string }) {
+  const invite = useInvite(lessonId);
+  const [text, setText] = useState('');
+  const [results, setResults] = useState<InviteResult[]>([]);
+  const error = invite.error instanceof ApiError ? invite.error : null;
+  const fieldError = error ? Object.values(error.fields)[0] : undefined;
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    const emails = text.split(/[\s,;]+/).filter(Boolean);
+    invite.mutate(emails, {
+      onSuccess: ({ results: r }) => {
+        setResults(r);
+        if (r.every((x) => x.status !== 'failed')) setText('');
+      },
+    });
+  }
+
+  return (
+    <form noValidate onSubmit={submit} className="flex flex-col gap-3" aria-labelledby="invite-title">
+      <h2 id="invite-title" className="text-lead font-semibold">
+        Invite students
+      </h2>
+      <label htmlFor="invite-emails" className="font-medium">
+        E-mail addresses
+      </label>
+      <p id="invite-hint" className="text-base text-ink-soft">
+        One a line, or separated by commas. Each gets a link that works once.
+      </p>
+      <textarea
+        id="invite-emails"
+        rows={3}
+        value={text}
+        onChange={(e) => setText(e.target.value)}
+        aria-describedby={fieldError ? 'invite-hint invite-error' : 'invite-hint'}
+        aria-invalid={fieldError ? true : undefined}
+        className={`rounded-lg border-2 bg-card px-3 py-2 text-body ${fieldError ? 'border-danger' : 'border-line'}`}
+      />
+      {fieldError && (
+        <p id="invite-error" className="font-medium text-danger">
+          <span aria-hidden="true">✕ </span>
+          {fieldError}
+        </p>
+      )}
+      {error && !fieldError && <FormMessage error>{error.message}</FormMessage>}
+      {results.length > 0 && (
+        <FormMessage error={results.some((r) => r.status === 'failed')}>
+          <ul>
+            {results.map((r) => (
+              <li key={r.email}>{r.message}</li>
+            ))}
+          </ul>
+        </FormMessage>
+      )}
+      <Button kind="primary" type="submit" disabled={invite.isPending} className="self-start">
+        {invite.isPending ? 'Sending…' : 'Send invitations'}
+      </Button>
+    </form>
+  );
+}
