@@ -45,6 +45,10 @@ function rankCell(group: Group): string {
   return offset === 0 ? v : `${v}${offset > 0 ? '+' : ''}${offset}`;
 }
 
+/** A spreadsheet would run a cell that starts with = + - or @ as a formula; a leading apostrophe keeps it text. */
+const guard = (cell: string) => (/^[=+\-@]/.test(cell) ? `'${cell}` : cell);
+const unguard = (cell: string) => cell.replace(/^'(?=[=+\-@])/, '');
+
 export function patternListCsv(list: PatternListFile): string {
   const rows: string[][] = [[PATTERN_LIST_FORMAT, String(PATTERN_LIST_VERSION)], ['name', list.name]];
   if (list.description) rows.push(['description', list.description]);
@@ -66,7 +70,7 @@ export function patternListCsv(list: PatternListFile): string {
       ]);
     });
   }
-  return stringify(rows);
+  return stringify(rows.map((row) => row.map(guard)));
 }
 
 // ───────────── reading ─────────────
@@ -132,7 +136,7 @@ export function readPatternListCsv(text: string): PatternListFile {
   let rows: Row[];
   try {
     const records = parse(text, { bom: true, relax_column_count: true, skip_empty_lines: true, trim: true, info: true }) as unknown as { record: string[]; info: { lines: number } }[];
-    rows = records.map((r) => ({ line: r.info.lines, cells: r.record }));
+    rows = records.map((r) => ({ line: r.info.lines, cells: r.record.map(unguard) }));
   } catch (err) {
     const e = err as { lines?: number; message: string };
     throw new FileRejected([{ where: `line ${e.lines ?? 1}`, message: `This line can't be read as CSV (${e.message.replace(/^Invalid [^:]*:\s*/, '')}). Check its quotes and commas.` }]);

@@ -141,6 +141,16 @@ test('the starter list goes out as JSON and CSV and both come back as the same p
   expect(fromCsv.body.list.name).toBe('Starter list');
 });
 
+test('a CSV download keeps formula-like names as text, and reads them back unchanged', async () => {
+  const sly = { name: '=HYPERLINK("x")', description: '', patterns: [{ ...windsPattern, name: '+1 winds', family: '@home' }] };
+  const made = (await t.ines.post('/api/pattern-lists').send(sly)).body.list;
+  const csv = (await t.ines.get(`/api/pattern-lists/${made.id}/export?format=csv`)).text;
+  expect(csv).toContain(`name,"'=HYPERLINK(""x"")"`);
+  expect(csv).toContain("harbor-01,'+1 winds,'@home,25,no");
+  const back = (await upload(t.ines, '/api/pattern-lists/import', csv, 'sly.csv')).body.list;
+  expect(back).toMatchObject({ name: sly.name, patterns: [{ name: '+1 winds', family: '@home' }] });
+});
+
 const goodCsv = [
   'rackside-pattern-list,1',
   'name,Harbor Lane CSV list',

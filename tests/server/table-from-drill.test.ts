@@ -1,6 +1,8 @@
 import request from 'supertest';
 import { afterEach, beforeEach, expect, test } from 'vitest';
-import { User } from '../../server/db/models';
+import { TableRow, User } from '../../server/db/models';
+import { TableMaster } from '../../server/realtime/table-master';
+import { rackOf } from '../../shared/exchange';
 import type { TileKind } from '../../shared/tiles';
 import { Client, client, liveServer, register, type Server } from './live';
 import { smallList } from './teaching-helpers';
@@ -69,6 +71,11 @@ test('a table opened from a drill deals its preset racks, keeps them off the wir
   expect(master.patterns.map((p) => p.id)).toEqual(['harbor-01', 'harbor-02']);
   const patterns = await request(server.url).get(`/api/tables/${table.id}/patterns`).set('Cookie', mina.cookie);
   expect(patterns.body.list).toMatchObject({ id: list.id, name: smallList.name, patterns: [{ id: 'harbor-01' }, { id: 'harbor-02' }] });
+
+  // After a restart the table is rebuilt from its log with the same presets and the same list.
+  const rebuilt = await TableMaster.load((await TableRow.findByPk(table.id))!, { changed: () => undefined, botDelayMs: 0 });
+  expect(rebuilt.patterns.map((p) => p.id)).toEqual(['harbor-01', 'harbor-02']);
+  expect(sorted(rackOf(rebuilt.exchange!.state, 'west').map((t) => t.kind))).toEqual(sorted(rackOf(master.exchange!.state, 'west').map((t) => t.kind)));
 });
 
 test('the same drill deals the same racks at two tables', async () => {
