@@ -222,7 +222,7 @@ export async function startFakePayments(options: { apiKey: string; webhookSecret
 <style>body{font-family:sans-serif;font-size:20px;line-height:1.5;color:#1a1a1a;background:#f4f1ea;margin:0;padding:2rem}
 main{max-width:34rem;margin:auto;background:#fff;border:2px solid #555;border-radius:12px;padding:1.5rem}
 button,a.button{font-size:20px;min-height:48px;padding:.5rem 1.25rem;border-radius:8px;border:2px solid #3b3b98;cursor:pointer}
-button{background:#3b3b98;color:#fff}a.button{background:#fff;color:#3b3b98;display:inline-block;text-decoration:none}
+button{background:#3b3b98;color:#fff}a.button{background:#fff;color:#3b3b98;display:inline-flex;align-items:center;text-decoration:none}
 :focus-visible{outline:3px solid #b35900;outline-offset:2px}.note{background:#fff6d6;border:2px solid #8a6d00;padding:.75rem;border-radius:8px}</style></head>
 <body><main>
 <p class="note"><strong>Local test checkout.</strong> This page stands in for the payment service while Rackside runs in development. Nothing is charged and no card is asked for.</p>
