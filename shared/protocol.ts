@@ -97,7 +97,9 @@ export const createTableSchema = z
 export type CreateTableInput = z.input<typeof createTableSchema>;
 
 export interface TableOptions {
+  /** Only the host sees a fixed seed; others get null and `seedHidden`. */
   seed: string | null;
+  seedHidden?: boolean;
   jokers: boolean;
   secondCharleston: boolean;
   courtesy: boolean;
@@ -195,6 +197,11 @@ export interface ExchangeSummaryDto {
   status: 'playing' | 'done';
   startedAt: string;
   finishedAt: string | null;
+  /** For a finished exchange where the viewer sat: the fewest tiles away from the table's pattern list after the deal, and at the end. */
+  awayBefore?: number | null;
+  awayAfter?: number | null;
+  /** The pattern the viewer's final rack is nearest to. */
+  nearestPattern?: string | null;
 }
 
 /** Everything a replay needs: the client rebuilds each step with the shared engine. */

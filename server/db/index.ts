@@ -11,11 +11,29 @@ export async function openDatabase(databaseUrl: string): Promise<Sequelize> {
   const storage = databaseUrl.slice('sqlite:'.length) || ':memory:';
   const inMemory = storage === ':memory:';
   if (!inMemory) mkdirSync(dirname(storage), { recursive: true });
+  // Sequelize's sqlite driver opens a separate connection for each transaction, so these settings go on
+  // every connection as it opens, not only on the first.
+  //  - busy_timeout: a write that finds the file locked waits (up to 5 s) instead of failing at once.
+  //  - journal_mode=WAL: readers go on while a write commits (set once; it stays with the file).
+  //  - synchronous=NORMAL (in WAL): commits are written to the WAL before they return, so a stored event
+  //    survives the process being killed; only a power cut can lose the last moments. FULL would make
+  //    every stored action wait on the disk.
+  const pragmas = ['PRAGMA busy_timeout = 5000;', 'PRAGMA foreign_keys = ON;', ...(inMemory ? [] : ['PRAGMA journal_mode = WAL;', 'PRAGMA synchronous = NORMAL;'])];
   const sequelize = new Sequelize({ dialect: 'sqlite', storage, logging: false });
-  // WAL lets readers go on while a write commits; busy_timeout makes a locked write wait instead of failing at once.
-  if (!inMemory) await sequelize.query('PRAGMA journal_mode = WAL;');
-  await sequelize.query('PRAGMA busy_timeout = 5000;');
-  await sequelize.query('PRAGMA foreign_keys = ON;');
+  // The sqlite driver runs no connect hooks, so wrap the place where it hands out connections.
+  type Connection = { run(sql: string, done: (err: Error | null) => void): void };
+  const manager = sequelize.connectionManager as unknown as { getConnection(options: unknown): Promise<Connection> };
+  const getConnection = manager.getConnection.bind(manager);
+  const prepared = new WeakSet<Connection>();
+  manager.getConnection = async (options) => {
+    const connection = await getConnection(options);
+    if (!prepared.has(connection)) {
+      prepared.add(connection);
+      for (const sql of pragmas) await new Promise<void>((resolve, reject) => connection.run(sql, (err) => (err ? reject(err) : resolve())));
+    }
+    return connection;
+  };
+  await sequelize.authenticate();
   initModels(sequelize);
   return sequelize;
 }

@@ -386,7 +386,7 @@ export class TableMaster {
       hostName: row.hostName,
       private: row.private,
       status: row.status,
-      options: publicTableOptions(row.options),
+      options: publicTableOptions(row.options, forUserId === row.hostId),
       seats: Object.fromEntries(SEATS.map((s) => [s, this.occupantDto(s)])) as TableDto['seats'],
       ...(forUserId === row.hostId && row.inviteCode ? { inviteCode: row.inviteCode } : {}),
       currentExchangeId: row.currentExchangeId,
@@ -428,7 +428,7 @@ export class TableMaster {
       mySeat,
       myRack: mySeat && live ? rackOf(live.state, mySeat) : [],
       seats,
-      options: publicTableOptions(this.row.options),
+      options: publicTableOptions(this.row.options, this.isHost(viewer.userId)),
       exchangeId: live?.id ?? null,
       view,
       huddle: { open: live?.huddle.open ?? false, revealed, notes: live ? notesFor(live, this.viewerKind(viewer)) : [] },
@@ -488,10 +488,14 @@ export function rebuild(row: ExchangeRow, events: ExchangeEventRow[], notes: Hud
   return { id: row.id, options: row.options, state, seq: events.length, huddle, notes };
 }
 
-/** What players and hosts see of a table's options: a drill's preset racks stay on the server. */
-export function publicTableOptions(options: StoredTableOptions): TableOptions {
+/**
+ * What a viewer sees of a table's options: a drill's preset racks stay on the server, and only
+ * the host sees the seed (with the seed and the public engine anyone could work out every rack).
+ */
+export function publicTableOptions(options: StoredTableOptions, isHost: boolean): TableOptions {
   const { racks: _racks, ...rest } = options;
-  return rest;
+  if (isHost || rest.seed === null) return rest;
+  return { ...rest, seed: null, seedHidden: true };
 }
 
 export function defaultTableOptions(input: Partial<TableOptions> = {}): TableOptions {

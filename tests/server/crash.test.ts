@@ -74,7 +74,7 @@ function autoPlayer(name: string, cookie: string, tableId: string) {
 test('SIGKILL mid-exchange: after a restart on the same file every acknowledged action is still there and the table finishes', async () => {
   proc = await startProcess();
   const names = ['ines', 'theo', 'mina', 'ruth'];
-  const cookies = [];
+  const cookies: string[] = [];
   for (const n of names) cookies.push(await register(n));
   const table = (await request(url).post('/api/tables').set('Cookie', cookies[0]).send({ name: 'Crash drill', options: { seed: 'harbor-lane-week-05' } })).body.table;
   // Seat everyone before play starts.

@@ -23,6 +23,11 @@ test('a file database is created with its folder, in WAL mode, with a busy timeo
   expect(mode.journal_mode).toBe('wal');
   const [[timeout]] = (await db.query('PRAGMA busy_timeout;')) as [Record<string, number>[], unknown];
   expect(Object.values(timeout)[0]).toBe(5000);
+  // A transaction runs on a connection of its own; it gets the same settings.
+  const inTransaction = await db.transaction(async (transaction) => (await db!.query('PRAGMA busy_timeout;', { transaction }))[0] as Record<string, number>[]);
+  expect(Object.values(inTransaction[0])[0]).toBe(5000);
+  const [[sync]] = (await db.query('PRAGMA synchronous;')) as [Record<string, number>[], unknown];
+  expect(Object.values(sync)[0]).toBe(1); // 1 = NORMAL in SQLite's PRAGMA synchronous numbering
 });
 
 test('migrations run once and record themselves', async () => {

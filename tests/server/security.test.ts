@@ -80,7 +80,7 @@ test('ASVS 4.4.2: the Socket.IO handshake refuses an Origin that is not ours', a
   const port = new URL(s.url).port;
   const own = connect(s.url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: c.cookie, Origin: `http://127.0.0.1:${port}` } });
   await new Promise((resolve, reject) => {
-    own.on('connect', resolve);
+    own.on('connect', () => resolve(undefined));
     own.on('connect_error', reject);
   });
   own.disconnect();
@@ -144,7 +144,7 @@ test('ASVS 7.2.4 and 7.4.1: sign-in issues a new session id; sign-out ends it an
   expect(fresh).not.toBe(c.cookie);
   expect((await request(s.url).get('/api/auth/me').set('Cookie', c.cookie)).status).toBe(401);
   const socket = connect(s.url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: fresh } });
-  await new Promise((resolve) => socket.on('connect', resolve));
+  await new Promise((resolve) => socket.on('connect', () => resolve(undefined)));
   const closed = new Promise((resolve) => socket.on('disconnect', resolve));
   await request(s.url).post('/api/auth/logout').set('Cookie', fresh).expect(200);
   await closed;

@@ -122,6 +122,11 @@ test('no client ever receives a tile id its seat was never dealt or passed, unti
     await everyoneActs(cs, { blind: phase.endsWith('left') || phase === 'second-right' ? 2 : 0, ask: 3 });
   }
   await Promise.all(cs.map((c) => c.until(inPhase('done'))));
+  for (const c of cs.slice(1)) {
+    // The seed with the public engine would give every rack away: only the host is told it.
+    expect(c.states.filter((s) => s.phase !== 'done' && JSON.stringify(s).includes('harbor-lane-week-03'))).toEqual([]);
+  }
+  expect(host.state.options.seed).toBe('harbor-lane-week-03');
   for (const c of cs) {
     const own = new Set(c.states.flatMap((s) => s.myRack.map((t) => t.id)));
     for (const s of c.states.filter((x) => x.phase !== 'done')) {
