@@ -1,0 +1,276 @@
+/**
+ * `npm run bench:load [-- --tables 250]`: plays whole exchanges on many tables at once against
+ * the real server in its own process, and the same client count against a bare Socket.IO relay.
+ * Prints latency from a pass's fourth commit to all four clients holding the next step, passes
+ * per second, errors and the server's memory per table, and our latency as a ratio to the floor.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { io as connect, type Socket } from 'socket.io-client';
+import type { Action } from '../../shared/exchange/types';
+import type { TableStateDto } from '../../shared/protocol';
+import { SEATS } from '../../shared/seats';
+
+const args = process.argv.slice(2);
+const arg = (name: string, fallback: number) => {
+  const i = args.indexOf(`--${name}`);
+  return i >= 0 ? Number(args[i + 1]) : fallback;
+};
+const TABLES = arg('tables', 250);
+const HUDDLE_EVERY = 10;
+const dir = mkdtempSync(join(tmpdir(), 'rackside-load-'));
+const began = performance.now();
+const stage = (what: string) => console.error(`  … ${what} (${((performance.now() - began) / 1000).toFixed(1)} s)`);
+
+function start(script: string, env: Record<string, string>, ready: RegExp): Promise<{ child: ChildProcess; port: number }> {
+  const child = spawn(process.execPath, ['--import', 'tsx', script], { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'] });
+  return new Promise((resolve, reject) => {
+    child.stdout!.on('data', (d: Buffer) => {
+      const m = d.toString().match(ready);
+      if (m) resolve({ child, port: Number(m[1]) });
+    });
+    child.once('exit', (code) => reject(new Error(`${script} exited with ${code}`)));
+  });
+}
+
+function rssKb(pid: number): number {
+  const line = readFileSync(`/proc/${pid}/status`, 'utf8').split('\n').find((l) => l.startsWith('VmRSS:'))!;
+  return Number(line.replace(/\D+/g, ''));
+}
+
+function percentile(sorted: number[], p: number) {
+  if (!sorted.length) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+function summary(values: number[]) {
+  const s = [...values].sort((a, b) => a - b);
+  return { n: s.length, p50: percentile(s, 50), p95: percentile(s, 95), p99: percentile(s, 99) };
+}
+
+async function inBatches<T>(items: T[], size: number, fn: (item: T, i: number) => Promise<void>) {
+  for (let i = 0; i < items.length; i += size) await Promise.all(items.slice(i, i + size).map((item, j) => fn(item, i + j)));
+}
+
+function plainAction(state: TableStateDto): Action | null {
+  const view = state.view;
+  const seat = state.mySeat;
+  if (!view || !seat || view.seats[seat].committed) return null;
+  if (state.phase === 'vote') return { type: 'vote', stop: false };
+  if (state.phase === 'courtesy-ask') return { type: 'courtesy-ask', count: 1 };
+  if (view.passSize > 0) return { type: 'pass', tiles: state.myRack.filter((t) => t.kind !== 'joker').slice(0, view.passSize).map((t) => t.id) };
+  return null;
+}
+
+async function benchRackside() {
+  const { child, port } = await start(
+    'server/index.ts',
+    {
+      PORT: '0',
+      DATABASE_URL: `sqlite:${join(dir, 'load.sqlite')}`,
+      BCRYPT_ROUNDS: '4',
+      SEED_DEMO: 'false',
+      CLIENT_DIR: 'none',
+      BOT_DELAY_MS: '0',
+      REGISTER_RATE_MAX: '100000',
+      LOGIN_RATE_MAX: '100000',
+      CHAT_RATE_PER_MINUTE: '100000',
+      SESSION_SECRET: 'load',
+      LOG_LEVEL: 'error',
+    },
+    /ready on http:\/\/localhost:(\d+)/,
+  );
+  const url = `http://127.0.0.1:${port}`;
+  const baseline = rssKb(child.pid!);
+  let errors = 0;
+
+  const people = Array.from({ length: TABLES * 4 }, (_, i) => `p${i}`);
+  const cookies: string[] = [];
+  await inBatches(people, 25, async (name, i) => {
+    const res = await fetch(`${url}/api/auth/register`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: `${name}@load.test`, password: 'load-test-pass', displayName: name }) });
+    if (res.status !== 201) throw new Error(`register failed: ${res.status} ${await res.text()}`);
+    cookies[i] = res.headers.getSetCookie()[0].split(';')[0];
+  });
+
+  stage(`registered ${people.length} people`);
+  const tableIds: string[] = [];
+  await inBatches(Array.from({ length: TABLES }, (_, t) => t), 25, async (t) => {
+    const res = await fetch(`${url}/api/tables`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', Cookie: cookies[t * 4] },
+      body: JSON.stringify({ name: `Load ${t}`, options: { seed: `load-${t}`, huddleEveryPass: t % HUDDLE_EVERY === 0 } }),
+    });
+    tableIds[t] = (await res.json()).table.id;
+  });
+
+  stage(`opened ${TABLES} tables`);
+  interface Seat4 { socket: Socket; latest: TableStateDto | null }
+  const tables: Seat4[][] = [];
+  await inBatches(Array.from({ length: TABLES }, (_, t) => t), 10, async (t) => {
+    const seats: Seat4[] = [];
+    for (let s = 0; s < 4; s++) {
+      const socket = connect(url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: cookies[t * 4 + s] } });
+      await new Promise<void>((resolve, reject) => {
+        socket.once('connect', () => resolve());
+        socket.once('connect_error', reject);
+      });
+      const seat: Seat4 = { socket, latest: null };
+      socket.on('table:state', (st: TableStateDto) => (seat.latest = st));
+      const joined = await socket.emitWithAck('table:join', { tableId: tableIds[t], as: 'player' });
+      const sat = await socket.emitWithAck('table:sit', { seat: SEATS[s] });
+      if (!joined.ok || !sat.ok) errors++;
+      seats.push(seat);
+    }
+    tables.push(seats);
+  });
+  const connected = rssKb(child.pid!);
+  stage(`seated ${TABLES * 4} connections`);
+
+  const latencies: number[] = [];
+  const huddleLatencies: number[] = [];
+  let resolved = 0;
+  const t0 = performance.now();
+  await Promise.all(
+    tables.map(
+      (seats) =>
+        new Promise<void>((done) => {
+          // For pass k (k passes resolved before it): when each commit was emitted, and when each seat first saw k + 1 resolved.
+          const emitted = new Map<number, number[]>();
+          const arrived = new Map<number, number[]>();
+          const huddled = new Set<number>();
+          const seen = [0, 0, 0, 0];
+          const busy = [false, false, false, false];
+          let releasing = false;
+          let finished = false;
+          function onState(i: number) {
+            const st = seats[i].latest!;
+            const now = performance.now();
+            const k = st.view?.history.length ?? 0;
+            while (seen[i] < k) {
+              seen[i] += 1;
+              const list = arrived.get(seen[i] - 1) ?? [];
+              list.push(now);
+              arrived.set(seen[i] - 1, list);
+              if (list.length === 4) {
+                const commits = emitted.get(seen[i] - 1) ?? [];
+                if (commits.length === 4) {
+                  (huddled.has(seen[i] - 1) ? huddleLatencies : latencies).push(Math.max(...list) - Math.max(...commits));
+                }
+                resolved++;
+              }
+            }
+            if (st.phase === 'done') {
+              if (!finished && seats.every((s) => s.latest?.phase === 'done')) {
+                finished = true;
+                done();
+              }
+              return;
+            }
+            if (st.huddle.open) huddled.add(k);
+            if (i === 0 && st.huddle.open && st.isHost && !releasing) {
+              releasing = true;
+              seats[0].socket
+                .emitWithAck('huddle:release', {})
+                .then((a) => {
+                  if (!a.ok) errors++;
+                })
+                .catch(() => errors++)
+                .finally(() => (releasing = false));
+            }
+            const action = plainAction(st);
+            if (!action || busy[i]) return;
+            busy[i] = true;
+            if (action.type === 'pass') {
+              const list = emitted.get(k) ?? [];
+              list.push(performance.now());
+              emitted.set(k, list);
+            }
+            seats[i].socket
+              .timeout(30_000)
+              .emitWithAck('exchange:act', { action })
+              .then((a) => {
+                if (!a.ok && a.code !== 'WRONG_PHASE' && a.code !== 'ALREADY_COMMITTED') errors++;
+              })
+              .catch(() => errors++)
+              .finally(() => {
+                busy[i] = false;
+                onState(i);
+              });
+          }
+          seats.forEach((s, i) => s.socket.on('table:state', () => onState(i)));
+          seats[0].socket.emitWithAck('table:start', {}).then((a) => {
+            if (!a.ok) errors++;
+          });
+        }),
+    ),
+  );
+  const seconds = (performance.now() - t0) / 1000;
+  stage(`played every exchange`);
+  const peak = rssKb(child.pid!);
+  tables.flat().forEach((s) => s.socket.disconnect());
+  child.kill('SIGTERM');
+  return { latency: summary(latencies), huddle: summary(huddleLatencies), resolved, seconds, errors, baseline, connected, peak };
+}
+
+async function benchFloor() {
+  const { child, port } = await start('tests/bench/bare-relay.ts', { PORT: '0' }, /bare relay ready on (\d+)/);
+  const url = `http://127.0.0.1:${port}`;
+  const rooms: Socket[][] = [];
+  const names: string[] = [];
+  await inBatches(Array.from({ length: TABLES }, (_, t) => t), 10, async (t) => {
+    const room: Socket[] = [];
+    for (let s = 0; s < 4; s++) {
+      const socket = connect(url, { transports: ['websocket'], reconnection: false });
+      await new Promise<void>((resolve) => socket.once('connect', () => resolve()));
+      await socket.emitWithAck('join', `room-${t}`);
+      room.push(socket);
+    }
+    rooms.push(room);
+    names.push(`room-${t}`);
+  });
+  stage(`floor: ${rooms.length * 4} connections in rooms of four`);
+  const latencies: number[] = [];
+  const ROUNDS = 9;
+  await Promise.all(
+    rooms.map(async (room, t) => {
+      for (let r = 0; r < ROUNDS; r++) {
+        const got = room.map((s) => new Promise<void>((resolve) => s.once('relayed', () => resolve())));
+        const at = performance.now();
+        room[r % 4].emit('relay', names[t], { round: r });
+        await Promise.all(got);
+        latencies.push(performance.now() - at);
+      }
+    }),
+  );
+  rooms.flat().forEach((s) => s.disconnect());
+  child.kill('SIGTERM');
+  return summary(latencies);
+}
+
+const fmt = (ms: number) => `${ms.toFixed(2)} ms`;
+try {
+  console.log(`Rackside load: ${TABLES} tables, ${TABLES * 4} signed-in connections, a huddle on one table in ${HUDDLE_EVERY}\n`);
+  const ours = await benchRackside();
+  const floor = await benchFloor();
+  const rows = [
+    ['pass latency p50 (4th commit → all four hold the next step)', fmt(ours.latency.p50)],
+    ['pass latency p95', fmt(ours.latency.p95)],
+    ['pass latency p99', fmt(ours.latency.p99)],
+    ['bare Socket.IO relay to a room of 4: p50 / p95 / p99', `${fmt(floor.p50)} / ${fmt(floor.p95)} / ${fmt(floor.p99)}`],
+    ['ratio p99 Rackside / bare floor', `${(ours.latency.p99 / floor.p99).toFixed(2)}x`],
+    ['passes resolved (huddled ones counted apart)', `${ours.latency.n} (+${ours.huddle.n} released from a huddle)`],
+    ['passes resolved per second', (ours.resolved / ours.seconds).toFixed(1)],
+    ['wall time of play', `${ours.seconds.toFixed(1)} s`],
+    ['errors', String(ours.errors)],
+    ['server memory: started / all connected / at the end', `${(ours.baseline / 1024).toFixed(0)} / ${(ours.connected / 1024).toFixed(0)} / ${(ours.peak / 1024).toFixed(0)} MB`],
+    ['server memory per table (end − start) / tables', `${((ours.peak - ours.baseline) / TABLES).toFixed(0)} KB`],
+  ];
+  const width = Math.max(...rows.map((r) => r[0].length));
+  for (const [k, v] of rows) console.log(`${k.padEnd(width)}  ${v}`);
+} finally {
+  rmSync(dir, { recursive: true, force: true });
+}
+process.exit(0);
