@@ -18,6 +18,8 @@ import { tablesRouter } from './routes/tables';
 import { teachingRoutes } from './routes/teaching';
 import { drillsRouter } from './routes/drills';
 import { patternListsRouter } from './routes/pattern-lists';
+import { comparisonsRouter } from './routes/comparisons';
+import { progressRouter } from './routes/progress';
 import { TableRegistry } from './realtime/registry';
 import type { TableMaster } from './realtime/table-master';
 
@@ -68,6 +70,8 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   api.use('/exchanges', exchangesRouter());
   api.use('/drills', drillsRouter());
   api.use('/pattern-lists', patternListsRouter());
+  api.use('/comparisons', comparisonsRouter());
+  api.use('/progress', progressRouter());
   api.use(teaching.routes);
   api.use(notFoundApi);
   app.use('/api', api);

@@ -1,15 +1,12 @@
 import { Router } from 'express';
 import { Op } from 'sequelize';
 import type { ExchangeReplayDto, ExchangeSummaryDto } from '../../shared/protocol';
-import type { LogEntry } from '../../shared/exchange/types';
 import { SEATS, type Seat } from '../../shared/seats';
 import { requireUser } from '../auth/guards';
-import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, isParticipant } from '../db/models';
+import { ExchangeRow, HuddleNoteRow, isParticipant } from '../db/models';
 import { HttpError } from '../errors';
-
-function seatOf(row: ExchangeRow, userId: number): Seat | null {
-  return SEATS.find((s) => { const o = row.seats[s]; return o?.kind === 'user' && o.userId === userId; }) ?? null;
-}
+import { storedLog } from '../services/exchange-log';
+import { figuresFor, seatOfUser as seatOf } from '../services/exchange-stats';
 
 export function exchangesRouter() {
   const router = Router();
@@ -22,15 +19,24 @@ export function exchangesRouter() {
       order: [['startedAt', 'DESC']],
       limit: 500,
     });
-    const exchanges: ExchangeSummaryDto[] = rows.map((r) => ({
+    const seated = rows.filter((r) => r.status === 'done' && seatOf(r, userId));
+    const figures = await figuresFor(seated, (r) => [seatOf(r, userId)!], false);
+    const exchanges: ExchangeSummaryDto[] = rows.map((r) => {
+      const seat = seatOf(r, userId);
+      const mine = seat ? figures.get(r.id)?.seats[seat] : undefined;
+      return {
         id: r.id,
         tableId: r.tableId,
         tableName: r.tableName,
-        seat: seatOf(r, userId),
+        seat,
         status: r.status,
         startedAt: r.startedAt.toISOString(),
-      finishedAt: r.finishedAt?.toISOString() ?? null,
-    }));
+        finishedAt: r.finishedAt?.toISOString() ?? null,
+        awayBefore: mine?.awayBefore ?? null,
+        awayAfter: mine?.awayAfter ?? null,
+        nearestPattern: mine?.nearest ?? null,
+      };
+    });
     res.json({ exchanges });
   });
 
@@ -42,13 +48,8 @@ export function exchangesRouter() {
       throw new HttpError(403, 'FORBIDDEN', 'Only the players, the host and admins can replay this exchange.');
     }
     if (row.status !== 'done') throw new HttpError(409, 'NOT_FINISHED', 'This exchange is still under way; its replay opens when it ends.');
-    const events = await ExchangeEventRow.findAll({ where: { exchangeId: row.id }, order: [['seq', 'ASC']] });
+    const log = await storedLog(row.id);
     const notes = await HuddleNoteRow.findAll({ where: { exchangeId: row.id }, order: [['id', 'ASC']] });
-    const log: LogEntry[] = events.flatMap((e): LogEntry[] => {
-      if (e.type === 'act') return [{ seat: e.seat as Seat, action: e.payload as LogEntry extends { action: infer A } ? A : never }];
-      if (e.type === 'resolve') return [{ resolve: true }];
-      return [];
-    });
     const replay: ExchangeReplayDto = {
       id: row.id,
       tableId: row.tableId,
