@@ -17,6 +17,10 @@ export const routes: RouteObject[] = [
       // The live table, replays and history load their own code, so sign-in and home stay small.
       { path: '/tables/:id', handle: { wide: true }, lazy: async () => ({ Component: (await import('./routes/TablePage')).TablePage }) },
       { path: '/replays/:id', handle: { wide: true }, lazy: async () => ({ Component: (await import('./routes/ReplayPage')).ReplayPage }) },
+      { path: '/progress', lazy: async () => ({ Component: (await import('./routes/ProgressPage')).ProgressPage }) },
+      { path: '/progress/:userId', lazy: async () => ({ Component: (await import('./routes/ProgressPage')).ProgressPage }) },
+      { path: '/compare', handle: { wide: true }, lazy: async () => ({ Component: (await import('./routes/ComparisonPage')).ComparisonPage }) },
+      { path: '/compare/:kind/:id', handle: { wide: true }, lazy: async () => ({ Component: (await import('./routes/ComparisonPage')).ComparisonPage }) },
       { path: '/history', lazy: async () => ({ Component: (await import('./routes/HistoryPage')).HistoryPage }) },
       { path: '/drills', lazy: async () => ({ Component: (await import('./routes/DrillsPage')).DrillsPage }) },
       { path: '/drills/new', lazy: async () => ({ Component: (await import('./routes/DrillEditPage')).DrillEditPage }) },

@@ -1,12 +1,8 @@
-import { useQueries } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { Link, Navigate } from 'react-router-dom';
-import { bestAway, rankPatterns, starterPatterns } from '../../shared/analysis';
-import { createExchange, replay } from '../../shared/exchange';
-import type { ExchangeReplayDto, ExchangeSummaryDto } from '../../shared/protocol';
-import type { Seat } from '../../shared/seats';
+import type { ExchangeSummaryDto } from '../../shared/protocol';
 import { useMe } from '../api/auth';
-import { replayQuery, useExchanges } from '../api/exchanges';
+import { useExchanges } from '../api/exchanges';
 import { Button } from '../components/Button';
 
 const PAGE_SIZE = 10;
@@ -27,18 +23,6 @@ const COLUMNS: { key: Column; label: string }[] = [
   { key: 'after', label: 'Tiles away at the end' },
   { key: 'nearest', label: 'Ended nearest' },
 ];
-
-function analyse(dto: ExchangeReplayDto, seat: Seat | null): Omit<Row, 'summary'> {
-  if (!seat) return { before: null, after: null, nearest: null };
-  const start = createExchange(dto.options).racks[seat].map((t) => t.kind);
-  const end = replay(dto.options, dto.log).racks[seat].map((t) => t.kind);
-  return { before: bestAway(start, starterPatterns), after: bestAway(end, starterPatterns), nearest: rankPatterns(end, starterPatterns, 1)[0]?.pattern.name ?? null };
-}
-
-/** Stable, so TanStack Query keeps the same array while no replay changes. */
-function dataOf(results: { data?: ExchangeReplayDto }[]) {
-  return results.map((r) => r.data);
-}
 
 function valueOf(row: Row, column: Column): string | number {
   switch (column) {
@@ -62,15 +46,11 @@ export function HistoryPage() {
   const exchanges = useExchanges();
   const [sort, setSort] = useState<{ column: Column; descending: boolean }>({ column: 'date', descending: true });
   const [page, setPage] = useState(0);
-  const done = useMemo(() => (exchanges.data ?? []).filter((e) => e.status === 'done'), [exchanges.data]);
-  const loaded = useQueries({ queries: done.map((e) => replayQuery(e.id)), combine: dataOf });
-  const rows = useMemo(() => {
-    const byId = new Map(loaded.filter(Boolean).map((d) => [d!.id, d!]));
-    return (exchanges.data ?? []).map((summary): Row => {
-      const dto = byId.get(summary.id);
-      return { summary, ...(dto ? analyse(dto, summary.seat) : { before: null, after: null, nearest: null }) };
-    });
-  }, [exchanges.data, loaded]);
+  // The server works out the figures with each table's own pattern list.
+  const rows = useMemo(
+    () => (exchanges.data ?? []).map((summary): Row => ({ summary, before: summary.awayBefore ?? null, after: summary.awayAfter ?? null, nearest: summary.nearestPattern ?? null })),
+    [exchanges.data],
+  );
 
   if (mePending) return <p role="status">Loading…</p>;
   if (!me) return <Navigate to="/sign-in" replace />;
@@ -114,7 +94,7 @@ export function HistoryPage() {
                     </th>
                   ))}
                   <th scope="col" className="p-2">
-                    <span className="sr-only">Replay</span>
+                    <span className="sr-only">Replay and compare</span>
                   </th>
                 </tr>
               </thead>
@@ -124,14 +104,19 @@ export function HistoryPage() {
                     <td className="p-2">{new Date(row.summary.startedAt).toLocaleDateString()}</td>
                     <td className="p-2">{row.summary.tableName}</td>
                     <td className="p-2">{row.summary.seat ?? 'host'}</td>
-                    <td className="p-2">{row.before ?? (row.summary.status === 'done' ? '…' : '—')}</td>
-                    <td className="p-2">{row.after ?? (row.summary.status === 'done' ? '…' : '—')}</td>
+                    <td className="p-2">{row.before ?? '—'}</td>
+                    <td className="p-2">{row.after ?? '—'}</td>
                     <td className="p-2">{row.nearest ?? '—'}</td>
                     <td className="p-2">
                       {row.summary.status === 'done' ? (
-                        <Link to={`/replays/${row.summary.id}`} aria-label={`Replay ${row.summary.tableName}, ${new Date(row.summary.startedAt).toLocaleDateString()}`}>
-                          Replay
-                        </Link>
+                        <span className="flex flex-wrap gap-x-3">
+                          <Link to={`/replays/${row.summary.id}`} aria-label={`Replay ${row.summary.tableName}, ${new Date(row.summary.startedAt).toLocaleDateString()}`}>
+                            Replay
+                          </Link>
+                          <Link to={`/compare/exchanges/${row.summary.id}`} aria-label={`Compare ${row.summary.tableName} with other tables on the same deal`}>
+                            Compare
+                          </Link>
+                        </span>
                       ) : (
                         <Link to={`/tables/${row.summary.tableId}`}>Still passing</Link>
                       )}

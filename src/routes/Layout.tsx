@@ -60,6 +60,11 @@ export function Layout() {
                 My exchanges
               </NavLink>
             )}
+            {me && (
+              <NavLink to="/progress" end className={navClass}>
+                My progress
+              </NavLink>
+            )}
             {(me?.role === 'teacher' || me?.role === 'admin') && (
               <>
                 <NavLink to="/drills" className={navClass}>

@@ -1,4 +1,4 @@
-import { Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
 import { useMe } from '../api/auth';
 import { ApiError } from '../api/client';
 import { useLesson } from '../api/lessons';
@@ -84,6 +84,9 @@ export function LessonPage() {
                   <th scope="col">Name</th>
                   <th scope="col">E-mail</th>
                   <th scope="col">Place</th>
+                  <th scope="col">
+                    <span className="sr-only">Progress</span>
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -92,6 +95,13 @@ export function LessonPage() {
                     <td className="py-2">{e.displayName}</td>
                     <td className="py-2 break-all">{e.email}</td>
                     <td className="py-2">{ENROLLMENT_WORDS[e.status]}</td>
+                    <td className="py-2">
+                      {e.status !== 'invited' && (
+                        <Link to={`/progress/${e.userId}`} aria-label={`Progress of ${e.displayName}`}>
+                          Progress
+                        </Link>
+                      )}
+                    </td>
                   </tr>
                 ))}
               </tbody>
@@ -116,6 +126,12 @@ export function LessonPage() {
       {(teaches || holdsSeat) && (
         <Card>
           <LessonRoom lessonId={id} isTeacher={teaches} />
+          <p className="mt-4">
+            <Link to={`/compare/lessons/${id}`} className="font-semibold">
+              Compare the tables of this lesson
+            </Link>{' '}
+            <span className="text-ink-soft">(each table&apos;s passes side by side, once it has finished)</span>
+          </p>
         </Card>
       )}
     </div>

@@ -1,3 +1,4 @@
+import { useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
 import { useShallow } from 'zustand/react/shallow';
@@ -5,6 +6,7 @@ import { isPassPhase, PASS_DIRECTION, type CourtesyCount } from '../../shared/ex
 import type { ClientEventName, ClientPayload, TableStateDto } from '../../shared/protocol';
 import { SEATS, seatTo } from '../../shared/seats';
 import { useMe } from '../api/auth';
+import { tablePatternsQuery } from '../api/pattern-lists';
 import { AnalysisPanel } from '../components/AnalysisPanel';
 import { Button } from '../components/Button';
 import { Chat } from '../components/Chat';
@@ -165,6 +167,8 @@ export function TablePage() {
   const { table, chat, connection, problem } = useTableStore(useShallow((s) => ({ table: s.table, chat: s.chat, connection: s.connection, problem: s.problem })));
   const [joinError, setJoinError] = useState<string | null>(null);
   const { busy, error, run } = useActions();
+  // The table's own list; the panel judges by the starter list until it loads.
+  const list = useQuery({ ...tablePatternsQuery(id, invite), enabled: Boolean(userId && id) });
 
   useEffect(() => {
     if (!userId || !id) return;
@@ -216,6 +220,7 @@ export function TablePage() {
             <AnalysisPanel
               hand={hand}
               adviceHidden={adviceHidden}
+              patterns={list.data?.patterns}
               pass={isPassPhase(view.phase) && view.passSize > 0 && !(table.mySeat && table.seats[table.mySeat].committed) ? { phase: view.phase, blindAllowed: view.blindAllowed, count: view.passSize } : null}
             />
           )}

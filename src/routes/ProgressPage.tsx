@@ -1,0 +1,192 @@
+import { CartesianGrid, Legend, Line, LineChart, Tooltip, XAxis, YAxis } from 'recharts';
+import { Link, Navigate, useParams } from 'react-router-dom';
+import type { ProgressDto, ProgressPointDto } from '../../shared/progress';
+import { useMe } from '../api/auth';
+import { useProgress } from '../api/progress';
+import { Card } from '../components/Card';
+import { FormMessage } from '../components/FormMessage';
+
+const percent = (n: number | null) => (n === null ? '—' : `${Math.round(n * 100)}%`);
+const share = (n: number, of: number) => (of ? Math.round((n / of) * 100) : 0);
+const dateOf = (iso: string) => new Date(iso).toLocaleDateString();
+
+/** Each line has its own dash and marker as well as its own shade, so none relies on colour alone. */
+type Shape = 'circle' | 'square' | 'diamond';
+interface LineStyle { key: string; name: string; stroke: string; dash?: string; dot: Shape }
+
+function Marker({ cx, cy, shape, stroke }: { cx?: number; cy?: number; shape: Shape; stroke: string }) {
+  if (cx === undefined || cy === undefined) return null;
+  const common = { fill: 'var(--color-card)', stroke, strokeWidth: 2 };
+  if (shape === 'square') return <rect x={cx - 4.5} y={cy - 4.5} width={9} height={9} {...common} />;
+  if (shape === 'diamond') return <path d={`M${cx} ${cy - 6} L${cx + 6} ${cy} L${cx} ${cy + 6} L${cx - 6} ${cy} Z`} {...common} />;
+  return <circle cx={cx} cy={cy} r={5} {...common} />;
+}
+
+function Chart({ data, lines, unit, domain }: { data: Record<string, string | number>[]; lines: LineStyle[]; unit?: string; domain: [number, number | string] }) {
+  return (
+    <div aria-hidden="true">
+      <LineChart responsive style={{ width: '100%', height: 240 }} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
+        <CartesianGrid stroke="#d9d5cc" />
+        <XAxis dataKey="label" tick={{ fill: '#1b2430', fontSize: 13 }} />
+        <YAxis allowDecimals={false} tick={{ fill: '#1b2430', fontSize: 13 }} width={40} domain={domain} unit={unit} />
+        <Tooltip />
+        <Legend />
+        {lines.map((l) => (
+          <Line
+            key={l.key}
+            type="monotone"
+            dataKey={l.key}
+            name={l.name}
+            stroke={l.stroke}
+            strokeWidth={2.5}
+            strokeDasharray={l.dash}
+            dot={(p: { cx?: number; cy?: number; index?: number }) => <Marker key={`${l.key}-${p.index}`} cx={p.cx} cy={p.cy} shape={l.dot} stroke={l.stroke} />}
+            isAnimationActive={false}
+          />
+        ))}
+      </LineChart>
+    </div>
+  );
+}
+
+const AWAY_LINES: LineStyle[] = [
+  { key: 'before', name: 'Tiles away after the deal', stroke: '#7a3b00', dash: '8 4', dot: 'square' },
+  { key: 'after', name: 'Tiles away at the end', stroke: '#0a6560', dot: 'circle' },
+];
+const HABIT_LINES: LineStyle[] = [
+  { key: 'advised', name: 'Passes as advised', stroke: '#0a6560', dot: 'circle' },
+  { key: 'pair', name: 'Passes that broke a pair', stroke: '#7a3b00', dash: '8 4', dot: 'square' },
+  { key: 'flower', name: 'Passes with a flower', stroke: '#4a3a9e', dash: '2 4', dot: 'diamond' },
+];
+
+function Totals({ progress }: { progress: ProgressDto }) {
+  const t = progress.totals;
+  const items: [string, string][] = [
+    ['Exchanges played', String(t.exchanges)],
+    ['Tiles away gained on average', t.meanGained === null ? '—' : (Math.round(t.meanGained * 10) / 10).toString()],
+    ['Passes as advised', percent(t.asAdvisedRate)],
+    ['Passes that broke a pair', percent(t.brokePairRate)],
+    ['Passes with a flower', percent(t.passedFlowerRate)],
+  ];
+  return (
+    <dl className="grid grid-cols-1 gap-3 sm:grid-cols-3 lg:grid-cols-5">
+      {items.map(([term, value]) => (
+        <div key={term} className="rounded-lg border-2 border-line/60 bg-card p-3">
+          <dt className="text-sm text-ink-soft">{term}</dt>
+          <dd className="text-title font-semibold">{value}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+function PointsTable({ points, name }: { points: ProgressPointDto[]; name: string }) {
+  return (
+    <div className="overflow-x-auto rounded-card border border-line/60 bg-card">
+      <table className="w-full text-left text-base">
+        <caption className="sr-only">Every exchange of {name}, oldest first</caption>
+        <thead>
+          <tr className="border-b-2 border-line/60">
+            <th scope="col" className="p-2">#</th>
+            <th scope="col" className="p-2">Date</th>
+            <th scope="col" className="p-2">Table</th>
+            <th scope="col" className="p-2">Seat</th>
+            <th scope="col" className="p-2">Tiles away after the deal</th>
+            <th scope="col" className="p-2">At the end</th>
+            <th scope="col" className="p-2">Gained</th>
+            <th scope="col" className="p-2">Passes as advised</th>
+            <th scope="col" className="p-2">Broke a pair</th>
+            <th scope="col" className="p-2">With a flower</th>
+          </tr>
+        </thead>
+        <tbody>
+          {points.map((p, i) => (
+            <tr key={p.exchangeId} className="border-b border-line/30">
+              <td className="p-2">{i + 1}</td>
+              <td className="p-2">{dateOf(p.finishedAt)}</td>
+              <td className="p-2">{p.tableName}</td>
+              <td className="p-2 capitalize">{p.seat}</td>
+              <td className="p-2">{p.awayBefore}</td>
+              <td className="p-2">{p.awayAfter}</td>
+              <td className="p-2">{p.gained > 0 ? `+${p.gained}` : p.gained}</td>
+              <td className="p-2">
+                {p.asAdvised} of {p.passes}
+              </td>
+              <td className="p-2">
+                {p.brokePair} of {p.passes}
+              </td>
+              <td className="p-2">
+                {p.passedFlower} of {p.passes}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+export function ProgressPage() {
+  const { userId } = useParams();
+  const { data: me, isPending: mePending } = useMe();
+  const who = userId ? Number(userId) : 'me';
+  const progress = useProgress(who);
+  if (mePending) return <p role="status">Loading…</p>;
+  if (!me) return <Navigate to="/sign-in" replace />;
+  if (progress.error) {
+    return (
+      <Card className="mx-auto max-w-lg">
+        <h1 className="mb-3 text-title font-semibold">This progress is not open to you</h1>
+        <FormMessage error>{progress.error.message}</FormMessage>
+        <p className="mt-3">
+          <Link to="/progress">See your own progress</Link>
+        </p>
+      </Card>
+    );
+  }
+  if (!progress.data) return <p role="status">Working out the figures…</p>;
+  const p = progress.data;
+  const mine = p.user.id === me.id;
+  const title = mine ? 'My progress' : `Progress of ${p.user.displayName}`;
+  const label = (x: ProgressPointDto, i: number) => `${i + 1}. ${dateOf(x.finishedAt)}`;
+  const away = p.points.map((x, i) => ({ label: label(x, i), before: x.awayBefore, after: x.awayAfter }));
+  const habits = p.points.map((x, i) => ({ label: label(x, i), advised: share(x.asAdvised, x.passes), pair: share(x.brokePair, x.passes), flower: share(x.passedFlower, x.passes) }));
+
+  return (
+    <div className="flex flex-col gap-6">
+      <h1 className="text-title font-semibold">{title}</h1>
+      {p.points.length === 0 ? (
+        <p>
+          No finished exchanges yet. {mine ? <Link to="/">Sit at a table</Link> : null}
+          {mine ? ' and play one to see your figures here.' : ''}
+        </p>
+      ) : (
+        <>
+          <Totals progress={p} />
+          <p className="text-ink-soft">
+            Tiles away are counted from the nearest pattern of each table&apos;s own list. A pass counts as advised when it sent the same tiles as the top advice
+            for the rack at that step (or advice scored just as high). {p.truncated ? `Only the ${p.points.length} most recent exchanges are counted.` : ''}
+          </p>
+          <Card>
+            <figure className="flex flex-col gap-2">
+              <figcaption className="font-semibold">Tiles away from the nearest pattern, after the deal and at the end of each exchange</figcaption>
+              <Chart data={away} lines={AWAY_LINES} domain={[0, 'dataMax + 1']} />
+            </figure>
+          </Card>
+          <Card>
+            <figure className="flex flex-col gap-2">
+              <figcaption className="font-semibold">Share of passes in each exchange: as advised, breaking a pair, with a flower</figcaption>
+              <Chart data={habits} lines={HABIT_LINES} unit="%" domain={[0, 100]} />
+            </figure>
+          </Card>
+          <section aria-labelledby="points-title" className="flex flex-col gap-2">
+            <h2 id="points-title" className="text-lead font-semibold">
+              Every exchange, oldest first
+            </h2>
+            <PointsTable points={p.points} name={mine ? 'you' : p.user.displayName} />
+          </section>
+        </>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,37 @@
+import { act as reactAct, screen, waitFor, within } from '@testing-library/react';
+import { beforeEach, expect, test, vi } from 'vitest';
+import { useTableStore } from '../../src/realtime/tableStore';
+import { fakeApi, renderAt, signedInAs } from './render';
+import { fresh, tableState } from './fakeTable';
+
+const socket = vi.hoisted(() => ({
+  send: vi.fn(async () => ({ ok: true }) as const),
+  joinTable: vi.fn(async () => ({ ok: true }) as const),
+  leaveTable: vi.fn(),
+}));
+vi.mock('../../src/realtime/socket', () => socket);
+
+beforeEach(() => useTableStore.getState().reset());
+
+/** A list of one pattern nobody else uses, so the panel can only have it from the table. */
+const harborList = {
+  id: 'l1',
+  name: 'Harbor Lane steps list',
+  patterns: [
+    {
+      id: 'harbor-steps', name: 'Harbor steps', family: 'ladder', points: 25, concealed: false,
+      groups: [{ size: 4, tile: 'bam1' }, { size: 4, tile: 'bam2' }, { size: 3, tile: 'bam3' }, { size: 3, tile: 'bam4' }],
+    },
+  ],
+};
+
+test('the analysis beside the rack judges by the table’s own pattern list', async () => {
+  const calls = fakeApi({ ...signedInAs('player'), 'GET /api/tables/t1/patterns': { status: 200, body: { list: harborList } } });
+  renderAt('/tables/t1');
+  await waitFor(() => expect(socket.joinTable).toHaveBeenCalled());
+  reactAct(() => useTableStore.getState().stateArrived(tableState(fresh(), 'west')));
+  const panel = (await screen.findByRole('heading', { name: 'Nearest patterns' })).parentElement!;
+  // The nearest pattern named beside the rack is the table's one pattern, not one of the starter list.
+  expect(await within(panel).findByText('Harbor steps', { selector: 'span' })).toBeTruthy();
+  expect(calls.some((c) => c.key === 'GET /api/tables/t1/patterns')).toBe(true);
+});
