@@ -29,6 +29,7 @@ export async function startServer(givenConfig: Config) {
   async function close() {
     application.drain();
     httpServer.close();
+    await io.drain(config.shutdownGraceMs);
     await registry.closeAll();
     await io.close();
     application.close();

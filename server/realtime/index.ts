@@ -55,6 +55,10 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
   });
 
   const registry = application.registry;
+  // Shutdown: once closing, new messages are answered SHUTTING_DOWN; those already received run to their ack.
+  let closing = false;
+  let inFlight = 0;
+  let settled: (() => void) | null = null;
   application.onTableChange((master) => broadcast(master));
 
   function member(socket: RacksideSocket): Member {
@@ -102,12 +106,17 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     function on<E extends ClientEventName>(event: E, run: (payload: ReturnType<(typeof clientEventSchemas)[E]['parse']>) => Promise<object | void>) {
       socket.on(event as never, async (...args: unknown[]) => {
         const ack = (typeof args[args.length - 1] === 'function' ? args.pop() : () => undefined) as (a: Ack) => void;
+        if (closing) {
+          ack({ ok: false, code: 'SHUTTING_DOWN', message: 'Rackside is restarting. Your table will be back in a moment; send that again then.' });
+          return;
+        }
         const parsed = clientEventSchemas[event].safeParse(args[0] ?? {});
         if (!parsed.success) {
           const issue = parsed.error.issues[0];
           ack({ ok: false, code: 'BAD_INPUT', message: `That ${event} message is not one Rackside understands: ${issue?.path.join('.') || 'payload'}: ${issue?.message}` });
           return;
         }
+        inFlight += 1;
         try {
           const extra = await run(parsed.data as never);
           ack({ ok: true, ...(extra ?? {}) });
@@ -117,6 +126,9 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
             console.error(`Unexpected error in ${event}`, err);
             ack({ ok: false, code: 'SERVER_ERROR', message: 'Something went wrong on our side. Please try again.' });
           }
+        } finally {
+          inFlight -= 1;
+          if (inFlight === 0) settled?.();
         }
       });
     }
@@ -224,5 +236,13 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     io.in(`session:${sessionId}`).disconnectSockets(true);
   });
 
-  return io;
+  /** Answers every message already received, refuses new ones, then resolves. */
+  async function drain(graceMs = 200) {
+    closing = true;
+    // Messages may already sit in the sockets' buffers: give the event loop a moment to read and answer them.
+    await new Promise((resolve) => setTimeout(resolve, graceMs));
+    if (inFlight > 0) await new Promise<void>((resolve) => (settled = resolve));
+  }
+
+  return Object.assign(io, { drain });
 }

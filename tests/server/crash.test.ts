@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { io as connect } from 'socket.io-client';
@@ -113,3 +113,47 @@ test('SIGKILL mid-exchange: after a restart on the same file every acknowledged 
   }
   players.forEach((p) => p.c.socket.disconnect());
 }, 90_000);
+
+test('SIGTERM: an action sent just before is finished and stored, the process exits 0 and closes the database', async () => {
+  if (proc && proc.exitCode === null) {
+    proc.kill('SIGKILL');
+    await new Promise((r) => proc!.once('exit', r));
+  }
+  proc = await startProcess();
+  const names = ['una', 'vic', 'wes', 'xia'];
+  const cookies: string[] = [];
+  for (const n of names) cookies.push(await register(n));
+  const table = (await request(url).post('/api/tables').set('Cookie', cookies[0]).send({ name: 'Stop drill' })).body.table;
+  const cs: Client[] = [];
+  for (const [i, cookie] of cookies.entries()) {
+    const c = new Client(names[i], cookie, connect(url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: cookie } }));
+    await c.ok('table:join', { tableId: table.id, as: 'player' });
+    await c.ok('table:sit', { seat: SEATS[i] });
+    cs.push(c);
+  }
+  await cs[0].ok('table:start');
+  const states = await Promise.all(cs.map((c) => c.until((x) => x.phase === 'first-right')));
+  const exited = new Promise<number | null>((resolve) => proc!.once('exit', (code) => resolve(code)));
+  const acks = cs.map((c, i) => c.emit('exchange:act', { action: simpleAction(states[i]) }));
+  await new Promise((r) => setTimeout(r, 3));
+  proc.kill('SIGTERM');
+  // Every message the server received gets its answer: done and stored, or refused because it is stopping.
+  const answers = await Promise.all(acks);
+  for (const a of answers) expect(a.ok || a.code === 'SHUTTING_DOWN', JSON.stringify(a)).toBe(true);
+  expect(await exited).toBe(0);
+  // A clean close checkpoints the write-ahead log and removes it.
+  expect(existsSync(join(dir, 'crash.sqlite-wal'))).toBe(false);
+  cs.forEach((c) => c.socket.disconnect());
+
+  proc = await startProcess();
+  const again = new Client('vic', cookies[1], connect(url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: cookies[1] } }));
+  await again.ok('table:join', { tableId: table.id, as: 'player' });
+  if (answers.every((a) => a.ok)) {
+    // All four passes were taken, so the pass resolved before the stop.
+    expect(again.state.phase).toBe('first-across');
+    expect(again.state.view!.history).toHaveLength(1);
+  } else {
+    expect(SEATS.map((seat) => again.state.seats[seat].committed)).toEqual(answers.map((a) => a.ok));
+  }
+  again.socket.disconnect();
+}, 60_000);
