@@ -101,7 +101,16 @@ function Deal({ deal }: { deal: DealComparisonDto }) {
               ))}
             </ol>
             <h3 className="font-semibold">Every seat, nearest first</h3>
-            <div className="overflow-x-auto">
+            {/* On a phone the same rows as a list, so nothing scrolls sideways; only one of the two is ever shown. */}
+            <ol className="flex flex-col gap-2 sm:hidden" aria-label={`Every seat of ${deal.title}, by tiles away at the end`}>
+              {deal.standings.map((s) => (
+                <li key={`${s.exchangeId}-${s.seat}`} className="border-b border-line/30 pb-2">
+                  <strong>{ordinal(s.place)}</strong> {s.player}, {seatName(s.seat)} at {s.tableName}: {s.awayBefore} away after the deal, <strong>{s.awayAfter} at the end</strong>
+                  {s.nearest ? ` (${s.nearest})` : ''}
+                </li>
+              ))}
+            </ol>
+            <div className="hidden overflow-x-auto sm:block">
               <table className="w-full text-left text-base">
                 <caption className="sr-only">Every seat of {deal.title}, by tiles away at the end</caption>
                 <thead>

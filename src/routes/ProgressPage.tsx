@@ -82,47 +82,65 @@ function Totals({ progress }: { progress: ProgressDto }) {
 
 function PointsTable({ points, name }: { points: ProgressPointDto[]; name: string }) {
   return (
-    <div className="overflow-x-auto rounded-card border border-line/60 bg-card">
-      <table className="w-full text-left text-base">
-        <caption className="sr-only">Every exchange of {name}, oldest first</caption>
-        <thead>
-          <tr className="border-b-2 border-line/60">
-            <th scope="col" className="p-2">#</th>
-            <th scope="col" className="p-2">Date</th>
-            <th scope="col" className="p-2">Table</th>
-            <th scope="col" className="p-2">Seat</th>
-            <th scope="col" className="p-2">Tiles away after the deal</th>
-            <th scope="col" className="p-2">At the end</th>
-            <th scope="col" className="p-2">Gained</th>
-            <th scope="col" className="p-2">Passes as advised</th>
-            <th scope="col" className="p-2">Broke a pair</th>
-            <th scope="col" className="p-2">With a flower</th>
-          </tr>
-        </thead>
-        <tbody>
-          {points.map((p, i) => (
-            <tr key={p.exchangeId} className="border-b border-line/30">
-              <td className="p-2">{i + 1}</td>
-              <td className="p-2">{dateOf(p.finishedAt)}</td>
-              <td className="p-2">{p.tableName}</td>
-              <td className="p-2 capitalize">{p.seat}</td>
-              <td className="p-2">{p.awayBefore}</td>
-              <td className="p-2">{p.awayAfter}</td>
-              <td className="p-2">{p.gained > 0 ? `+${p.gained}` : p.gained}</td>
-              <td className="p-2">
-                {p.asAdvised} of {p.passes}
-              </td>
-              <td className="p-2">
-                {p.brokePair} of {p.passes}
-              </td>
-              <td className="p-2">
-                {p.passedFlower} of {p.passes}
-              </td>
+    <>
+      {/* On a phone the same rows as a list, so nothing scrolls sideways; only one of the two is ever shown. */}
+      <ol className="flex flex-col gap-2 sm:hidden" aria-label={`Every exchange of ${name}, oldest first`}>
+        {points.map((p, i) => (
+          <li key={p.exchangeId} className="rounded-lg border-2 border-line/60 bg-card p-3">
+            <p className="font-semibold">
+              {i + 1}. {dateOf(p.finishedAt)} · {p.tableName} · <span className="capitalize">{p.seat}</span>
+            </p>
+            <p>
+              {p.awayBefore} away after the deal, {p.awayAfter} at the end ({p.gained > 0 ? `+${p.gained}` : p.gained})
+            </p>
+            <p>
+              Of {p.passes} passes: {p.asAdvised} as advised, {p.brokePair} broke a pair, {p.passedFlower} with a flower
+            </p>
+          </li>
+        ))}
+      </ol>
+      <div className="hidden overflow-x-auto rounded-card border border-line/60 bg-card sm:block">
+        <table className="w-full text-left text-base">
+          <caption className="sr-only">Every exchange of {name}, oldest first</caption>
+          <thead>
+            <tr className="border-b-2 border-line/60">
+              <th scope="col" className="p-2">#</th>
+              <th scope="col" className="p-2">Date</th>
+              <th scope="col" className="p-2">Table</th>
+              <th scope="col" className="p-2">Seat</th>
+              <th scope="col" className="p-2">Tiles away after the deal</th>
+              <th scope="col" className="p-2">At the end</th>
+              <th scope="col" className="p-2">Gained</th>
+              <th scope="col" className="p-2">Passes as advised</th>
+              <th scope="col" className="p-2">Broke a pair</th>
+              <th scope="col" className="p-2">With a flower</th>
             </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+          </thead>
+          <tbody>
+            {points.map((p, i) => (
+              <tr key={p.exchangeId} className="border-b border-line/30">
+                <td className="p-2">{i + 1}</td>
+                <td className="p-2">{dateOf(p.finishedAt)}</td>
+                <td className="p-2">{p.tableName}</td>
+                <td className="p-2 capitalize">{p.seat}</td>
+                <td className="p-2">{p.awayBefore}</td>
+                <td className="p-2">{p.awayAfter}</td>
+                <td className="p-2">{p.gained > 0 ? `+${p.gained}` : p.gained}</td>
+                <td className="p-2">
+                  {p.asAdvised} of {p.passes}
+                </td>
+                <td className="p-2">
+                  {p.brokePair} of {p.passes}
+                </td>
+                <td className="p-2">
+                  {p.passedFlower} of {p.passes}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </>
   );
 }
 
