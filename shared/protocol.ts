@@ -243,6 +243,9 @@ export const clientEventSchemas = {
   'huddle:reveal': z.object({ seat }).strict(),
   'huddle:note': z.object({ text: z.string().trim().min(1, 'A note needs some text.').max(TABLE_LIMITS.noteMax), seat: seat.optional() }).strict(),
   'huddle:release': z.object({}).strict().default({}),
+  'table:leave': z.object({}).strict().default({}),
+  /** Host: show or hide the pass advice for the players. */
+  'table:advice': z.object({ hidden: z.boolean() }).strict(),
   'chat:send': z.object({ text: z.string().trim().min(1, 'Say something first.').max(TABLE_LIMITS.chatMax, `A message has at most ${TABLE_LIMITS.chatMax} characters.`) }).strict(),
 } as const;
 

@@ -199,6 +199,14 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       const master = await joined();
       return after(master, master.release(member(socket)));
     });
+    on('table:leave', async () => {
+      if (!socket.data.tableId) throw new TableError('NOT_JOINED', 'You are not at a table.');
+      await leaveTable(socket);
+    });
+    on('table:advice', async ({ hidden }) => {
+      const master = await joined();
+      return after(master, master.setAdvice(member(socket), hidden));
+    });
     on('chat:send', async ({ text }) => {
       const master = await joined();
       try {

@@ -164,7 +164,7 @@ export class TableMaster {
         }
       }
       const info = BOT_STRATEGIES.find((s) => s.id === strategy)!;
-      await this.saveRow({ seats: { ...this.row.seats, [seat]: { kind: 'bot', strategy, displayName: `${info.name} (bot)` } } });
+      await this.saveRow({ seats: { ...this.row.seats, [seat]: { kind: 'bot', strategy, displayName: `${info.name} (bot, ${seat})` } } });
     });
   }
 
@@ -202,6 +202,15 @@ export class TableMaster {
       });
       await this.saveRow({ status: 'playing', currentExchangeId: id });
       this.exchange = { id, options, state, seq: 0, huddle: closedHuddle(), notes: [] };
+    });
+  }
+
+  /** The host changes what players are shown, at any time: advice on or off. */
+  setAdvice(viewer: Member, hidden: boolean) {
+    return this.run(async () => {
+      this.requireHost(viewer);
+      if (this.row.options.hideAdvice === hidden) return;
+      await this.saveRow({ options: { ...this.row.options, hideAdvice: hidden } });
     });
   }
 
@@ -319,7 +328,7 @@ export class TableMaster {
     this.version += 1;
   }
 
-  private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId'>>) {
+  private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId' | 'options'>>) {
     await this.row.update(changes);
     this.version += 1;
   }

@@ -77,6 +77,7 @@ test('a non-host gets NOT_HOST for every host event', async () => {
     ['huddle:reveal', { seat: 'east' }],
     ['huddle:note', { text: 'hello' }],
     ['huddle:release', {}],
+    ['table:advice', { hidden: true }],
   ] as const) {
     expect(await theo.emit(event, payload), event).toMatchObject({ ok: false, code: 'NOT_HOST' });
   }
@@ -154,7 +155,7 @@ test('random payloads of random shapes on every client event never crash the ser
   const sol = await person('Sol');
   await sol.ok('table:join', { tableId: table.id, as: 'spectator' });
   const version = (await cs[0].until((s) => s.spectators === 1)).version;
-  const events = [...Object.keys(clientEventSchemas).filter((e) => e !== 'table:join' && e !== 'chat:send'), 'nonsense:event'];
+  const events = [...Object.keys(clientEventSchemas).filter((e) => e !== 'table:join' && e !== 'chat:send' && e !== 'table:leave'), 'nonsense:event'];
   await fc.assert(
     fc.asyncProperty(fc.constantFrom(...events), fc.anything(), async (event, payload) => {
       const ack = await sol.emit(event, payload);
@@ -190,4 +191,37 @@ test('a second tab or a reconnect of the same person gets that seat back, rack a
   expect(tab.state.myRack).toEqual(theo.state.myRack);
   await tab.ok('exchange:act', { action: simpleAction(tab.state) });
   await theo.until((s) => s.seats.south.committed);
+});
+
+test('the host hides and shows the advice mid-exchange; everyone sees the change', async () => {
+  const { host, clients: cs } = await started();
+  await host.ok('table:advice', { hidden: true });
+  for (const c of cs) await c.until((s) => s.options.hideAdvice === true);
+  await host.ok('table:advice', { hidden: false });
+  for (const c of cs) await c.until((s) => s.options.hideAdvice === false);
+});
+
+test('leaving a table stops its states and frees the presence', async () => {
+  const { table, clients: cs } = await started();
+  const theo = cs[1];
+  await theo.ok('table:leave');
+  await cs[0].until((s) => s.seats.south.occupant?.kind === 'user' && !s.seats.south.occupant.connected);
+  const seen = theo.states.length;
+  await cs[0].ok('chat:send', { text: 'still here?' });
+  await cs[0].ok('exchange:act', { action: simpleAction(cs[0].state) });
+  await new Promise((r) => setTimeout(r, 50));
+  expect(theo.states.length).toBe(seen);
+  expect(await theo.emit('table:leave')).toMatchObject({ ok: false, code: 'NOT_JOINED' });
+  await theo.ok('table:join', { tableId: table.id, as: 'player' });
+  expect(theo.state.mySeat).toBe('south');
+});
+
+test('two bots of one strategy get names that tell them apart', async () => {
+  const ines = await person('Ines');
+  const t = await createTable(server, ines.cookie);
+  await ines.ok('table:join', { tableId: t.id, as: 'player' });
+  await ines.ok('table:bot', { seat: 'south', strategy: 'advised' });
+  await ines.ok('table:bot', { seat: 'north', strategy: 'advised' });
+  const names = [ines.state.seats.south.occupant!.displayName, ines.state.seats.north.occupant!.displayName];
+  expect(new Set(names).size).toBe(2);
 });
