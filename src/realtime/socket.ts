@@ -54,6 +54,7 @@ export function joinTable(tableId: string, invite?: string) {
 }
 
 export function leaveTable() {
+  if (joined && socket?.connected) socket.emit('table:leave', {}, () => {});
   joined = null;
   useTableStore.getState().reset();
 }

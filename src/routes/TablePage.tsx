@@ -224,6 +224,18 @@ export function TablePage() {
               pass={isPassPhase(view.phase) && view.passSize > 0 && !(table.mySeat && table.seats[table.mySeat].committed) ? { phase: view.phase, blindAllowed: view.blindAllowed, count: view.passSize } : null}
             />
           )}
+          {table.isHost && view && (
+            <label className="flex min-h-12 items-center gap-3 rounded-card border border-line/60 bg-card px-4 py-2">
+              <input
+                type="checkbox"
+                className="size-6"
+                checked={table.options.hideAdvice}
+                disabled={busy}
+                onChange={(e) => void run('table:advice', { hidden: e.target.checked })}
+              />
+              <span>Hide the advice from the players</span>
+            </label>
+          )}
           <Chat messages={chat} onSend={(text) => run('chat:send', { text })} />
         </aside>
       </div>
