@@ -25,7 +25,7 @@ function Marker({ cx, cy, shape, stroke }: { cx?: number; cy?: number; shape: Sh
 function Chart({ data, lines, unit, domain }: { data: Record<string, string | number>[]; lines: LineStyle[]; unit?: string; domain: [number, number | string] }) {
   return (
     <div aria-hidden="true">
-      <LineChart responsive style={{ width: '100%', height: 240 }} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
+      <LineChart accessibilityLayer={false} responsive style={{ width: '100%', height: 240 }} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
         <CartesianGrid stroke="#d9d5cc" />
         <XAxis dataKey="label" tick={{ fill: '#1b2430', fontSize: 13 }} />
         <YAxis allowDecimals={false} tick={{ fill: '#1b2430', fontSize: 13 }} width={40} domain={domain} unit={unit} />
