@@ -48,6 +48,8 @@ interface LiveExchange {
 
 type StoredEvent = { type: EventType; seat: Seat | null; payload: unknown; userId: number | null };
 
+const INSERT_EVENT = 'INSERT INTO "ExchangeEvents" ("exchangeId", "seq", "type", "seat", "payload", "userId", "createdAt") VALUES (?, ?, ?, ?, ?, ?, ?)';
+
 const closedHuddle = (): Huddle => ({ open: false, revealed: [], heldAt: null });
 
 export interface MasterHooks {
@@ -323,7 +325,11 @@ export class TableMaster {
 
   /** Appends one event at the next position of the log. Nothing is told to anyone before this returns. */
   private async store(live: LiveExchange, event: StoredEvent) {
-    await ExchangeEventRow.create({ exchangeId: live.id, seq: live.seq, ...event });
+    // Every action passes through here, so it is one plain INSERT (a third of a model create's
+    // cost). The unique (exchangeId, seq) index refuses a second writer at the same position.
+    await ExchangeEventRow.sequelize!.query(INSERT_EVENT, {
+      replacements: [live.id, live.seq, event.type, event.seat, event.payload === null ? null : JSON.stringify(event.payload), event.userId, new Date().toISOString()],
+    });
     live.seq += 1;
     this.version += 1;
   }
