@@ -9,6 +9,7 @@ import { startLocalFakes } from './services/fakes';
 
 /** Opens the database, migrates, seeds the demo on an empty database, and listens. */
 export async function startServer(givenConfig: Config) {
+  process.setSourceMapsEnabled(givenConfig.sourceMaps);
   // Mail and payments not configured for real go to local fakes (development and tests).
   const { config, fakes } = await startLocalFakes(givenConfig);
   const sequelize = await openDatabase(config.databaseUrl);

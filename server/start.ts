@@ -11,7 +11,8 @@ function newestChange(path: string): number {
   return Math.max(stat.mtimeMs, ...readdirSync(path).map((name) => newestChange(join(path, name))));
 }
 
-const config = loadConfig({ NODE_ENV: 'production', ...process.env });
+// The demo runs with the local mail and payment fakes unless NODE_ENV=production or real services are configured.
+const config = loadConfig();
 const builtIndex = join(config.clientDir, 'index.html');
 const sources = ['src', 'shared', 'index.html', 'vite.config.ts'].filter((p) => existsSync(p));
 if (!existsSync(builtIndex) || statSync(builtIndex).mtimeMs < Math.max(...sources.map(newestChange))) {

@@ -26,7 +26,7 @@ const began = performance.now();
 const stage = (what: string) => console.error(`  … ${what} (${((performance.now() - began) / 1000).toFixed(1)} s)`);
 
 function start(script: string, env: Record<string, string>, ready: RegExp): Promise<{ child: ChildProcess; port: number }> {
-  const child = spawn(process.execPath, ['--import', 'tsx', script], { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'] });
+  const child = spawn(process.execPath, [...(script.startsWith('server') && process.env.PROFILE_SERVER ? ['--cpu-prof', '--cpu-prof-dir=/tmp/prof'] : []), '--import', 'tsx', script], { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'] });
   return new Promise((resolve, reject) => {
     child.stdout!.on('data', (d: Buffer) => {
       const m = d.toString().match(ready);
@@ -80,6 +80,8 @@ async function benchRackside() {
       CHAT_RATE_PER_MINUTE: '100000',
       SESSION_SECRET: 'load',
       LOG_LEVEL: 'error',
+      // As in production: stack traces unmapped (the database driver reads one on every query).
+      SOURCE_MAPS: 'false',
     },
     /ready on http:\/\/localhost:(\d+)/,
   );
