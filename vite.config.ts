@@ -7,7 +7,8 @@ const serverPort = Number(process.env.PORT ?? 3000);
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
-  build: { outDir: 'dist/client', emptyOutDir: true },
+  // The manifest lets `npm run bench:bundle` follow each route's chunks; it sits in .vite/, which the server does not serve.
+  build: { outDir: 'dist/client', emptyOutDir: true, manifest: true },
   server: {
     port: 5173,
     proxy: {

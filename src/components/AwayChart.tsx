@@ -25,8 +25,9 @@ export function AwayChart({ steps, names, current }: { steps: ReplayStep[]; name
   return (
     <figure className="flex flex-col gap-2">
       <figcaption className="font-semibold">Tiles away from the nearest pattern, step by step</figcaption>
+      {/* Hidden from screen readers, who get the table below, so it must hold nothing focusable either. */}
       <div aria-hidden="true">
-        <LineChart responsive style={{ width: '100%', height: 260 }} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
+        <LineChart accessibilityLayer={false} responsive style={{ width: '100%', height: 260 }} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
           <CartesianGrid stroke="#d9d5cc" />
           <XAxis dataKey="label" tick={{ fill: '#1b2430', fontSize: 13 }} />
           <YAxis allowDecimals={false} tick={{ fill: '#1b2430', fontSize: 13 }} width={32} domain={[0, 'dataMax + 1']} />

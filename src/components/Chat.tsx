@@ -11,15 +11,18 @@ export function Chat({ messages, onSend }: { messages: readonly ChatMessageDto[]
       <h2 id="chat-title" className="text-lead font-semibold">
         Table talk
       </h2>
-      <ol role="log" aria-live="polite" aria-label="Messages" className="flex max-h-72 flex-col gap-1 overflow-y-auto">
-        {messages.length === 0 && <li className="text-ink-soft">No messages yet.</li>}
-        {messages.map((m) => (
-          <li key={m.id}>
-            <span className="font-semibold">{m.displayName}</span>
-            {m.seat && <span className="text-sm text-ink-soft"> ({m.seat})</span>}: {m.text}
-          </li>
-        ))}
-      </ol>
+      {/* The log wraps the list (a role on the list itself would unmake it) and takes focus so the keyboard can scroll it. */}
+      <div role="log" aria-live="polite" aria-label="Messages" tabIndex={0} className="max-h-72 overflow-y-auto rounded-md">
+        <ol className="flex flex-col gap-1">
+          {messages.length === 0 && <li className="text-ink-soft">No messages yet.</li>}
+          {messages.map((m) => (
+            <li key={m.id}>
+              <span className="font-semibold">{m.displayName}</span>
+              {m.seat && <span className="text-sm text-ink-soft"> ({m.seat})</span>}: {m.text}
+            </li>
+          ))}
+        </ol>
+      </div>
       <form
         className="flex flex-wrap gap-2"
         onSubmit={async (e) => {

@@ -173,7 +173,7 @@ test('on a 375 px phone the rack reads at 44 px, plays by keyboard, and reduced 
   }
   await mina.keyboard.press('Enter');
   const news = mina.getByText(/^You received 3 tiles from your left \(north\): /);
-  await news.waitFor();
+  await news.waitFor({ timeout: 8000 }).catch(async (e) => { await snap(mina, 'debug-phone'); throw e; });
   const animation = await rack(mina).locator('.tile-arrive').first().evaluate((el) => getComputedStyle(el).animationName);
   expect(animation).toBe('none');
   await snap(mina, 'table-phone-received');
