@@ -1,5 +1,5 @@
 import { randomBytes, randomUUID } from 'node:crypto';
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import { Op } from 'sequelize';
 import { createTableSchema } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
@@ -8,11 +8,30 @@ import { TableRow } from '../db/models';
 import { badInput, HttpError } from '../errors';
 import type { TableRegistry } from '../realtime/registry';
 import { defaultTableOptions, TableMaster } from '../realtime/table-master';
-import { drillNotFound, findOwnDrill, listNotYours } from '../teaching/drills';
+import { drillNotFound, drillTableOptions, findOwnDrill, listNotYours } from '../teaching/drills';
 import { mayUseList, patternsForTable } from '../teaching/pattern-source';
 import type { StoredTableOptions } from '../db/models';
 
 const noHooks = { changed: () => undefined, botDelayMs: 0 };
+
+function seatedAt(row: TableRow, userId: number) {
+  return SEATS.some((s) => {
+    const o = row.seats[s];
+    return o?.kind === 'user' && o.userId === userId;
+  });
+}
+
+/** The table named in the path, if this user may see it: its host, its players, admins, or anyone with a public table or the invite. */
+async function visibleTable(req: Request): Promise<TableRow> {
+  const row = await TableRow.findByPk(String(req.params.id));
+  if (!row) throw new HttpError(404, 'NOT_FOUND', 'There is no table with that id.');
+  const userId = req.user!.id;
+  const insider = row.hostId === userId || req.user!.role === 'admin' || seatedAt(row, userId);
+  if (row.private && !insider && req.query.invite !== row.inviteCode) {
+    throw new HttpError(403, 'INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
+  }
+  return row;
+}
 
 export function tablesRouter(registry: TableRegistry) {
   const router = Router();
@@ -34,16 +53,7 @@ export function tablesRouter(registry: TableRegistry) {
       if (req.user!.role !== 'teacher' && req.user!.role !== 'admin') throw new HttpError(403, 'FORBIDDEN', 'Only teachers open tables from drills.');
       const drill = await findOwnDrill(req.user!.id, drillId);
       if (!drill) throw drillNotFound();
-      Object.assign(stored, {
-        seed: drill.seed,
-        jokers: drill.jokers,
-        secondCharleston: drill.secondCharleston,
-        courtesy: drill.courtesy,
-        patternListId: drill.patternListId,
-        drillId: drill.id,
-        drillName: drill.name,
-        ...(Object.keys(drill.racks).length ? { racks: drill.racks } : {}),
-      });
+      Object.assign(stored, drillTableOptions(drill));
     } else if (!(await mayUseList(req.user!.id, stored.patternListId!))) {
       throw new HttpError(400, 'BAD_INPUT', 'Some fields need another look.', { 'options.patternListId': listNotYours });
     }
@@ -73,7 +83,7 @@ export function tablesRouter(registry: TableRegistry) {
     const seatedPrivate = await TableRow.findAll({ where: { private: true, hostId: { [Op.ne]: userId } }, order: [['updatedAt', 'DESC']], limit: 500 });
     const mine: TableRow[] = [];
     const open: TableRow[] = [];
-    const isMine = (row: TableRow) => row.hostId === userId || SEATS.some((s) => { const o = row.seats[s]; return o?.kind === 'user' && o.userId === userId; });
+    const isMine = (row: TableRow) => row.hostId === userId || seatedAt(row, userId);
     for (const row of rows) (isMine(row) ? mine : open).push(row);
     for (const row of seatedPrivate) if (isMine(row)) mine.push(row);
     res.json({
@@ -83,25 +93,13 @@ export function tablesRouter(registry: TableRegistry) {
   });
 
   router.get('/:id', async (req, res) => {
-    const row = await TableRow.findByPk(String(req.params.id));
-    if (!row) throw new HttpError(404, 'NOT_FOUND', 'There is no table with that id.');
-    const userId = req.user!.id;
-    const insider = row.hostId === userId || req.user!.role === 'admin' || SEATS.some((s) => { const o = row.seats[s]; return o?.kind === 'user' && o.userId === userId; });
-    if (row.private && !insider && req.query.invite !== row.inviteCode) {
-      throw new HttpError(403, 'INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
-    }
-    res.json({ table: await dtoOf(row, userId) });
+    const row = await visibleTable(req);
+    res.json({ table: await dtoOf(row, req.user!.id) });
   });
 
   /** The pattern list the table's analysis uses, for whoever may see the table. */
   router.get('/:id/patterns', async (req, res) => {
-    const row = await TableRow.findByPk(String(req.params.id));
-    if (!row) throw new HttpError(404, 'NOT_FOUND', 'There is no table with that id.');
-    const userId = req.user!.id;
-    const insider = row.hostId === userId || req.user!.role === 'admin' || SEATS.some((s) => { const o = row.seats[s]; return o?.kind === 'user' && o.userId === userId; });
-    if (row.private && !insider && req.query.invite !== row.inviteCode) {
-      throw new HttpError(403, 'INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
-    }
+    const row = await visibleTable(req);
     res.json({ list: await patternsForTable(row.options.patternListId) });
   });
 

@@ -14,6 +14,7 @@ import { HttpError } from '../errors';
 import type { TableRegistry } from '../realtime/registry';
 import { defaultTableOptions, TableError, type TableMaster } from '../realtime/table-master';
 import { seatedStatuses } from './seats';
+import { drillTableOptions } from '../teaching/drills';
 
 const PER_TABLE = SEATS.length;
 
@@ -31,16 +32,7 @@ async function dealFor(lesson: Lesson, drillId: string | undefined, holdEveryPas
   if (!lesson.drillIds.includes(id)) throw new HttpError(400, 'BAD_INPUT', 'Some fields need another look.', { drillId: 'Pick one of the drills this lesson plays.' });
   const drill = await DrillRow.findByPk(id);
   if (!drill) throw new HttpError(409, 'DRILL_GONE', 'A drill of this lesson no longer exists. Edit the lesson or name a seed.');
-  return Object.assign(options, {
-    seed: drill.seed,
-    jokers: drill.jokers,
-    secondCharleston: drill.secondCharleston,
-    courtesy: drill.courtesy,
-    patternListId: drill.patternListId,
-    drillId: drill.id,
-    drillName: drill.name,
-    ...(Object.keys(drill.racks).length ? { racks: drill.racks } : {}),
-  });
+  return Object.assign(options, drillTableOptions(drill));
 }
 
 export async function createRoom(

@@ -40,3 +40,17 @@ export function drillData(row: DrillRow): DrillData {
 export async function drillDto(row: DrillRow): Promise<DrillDto> {
   return { id: row.id, ...drillData(row), patternListName: await listName(row.patternListId), updatedAt: row.updatedAt.toISOString() };
 }
+
+/** What a table dealt from a drill takes from it: the deal, the parts that run and the pattern list. */
+export function drillTableOptions(drill: DrillRow) {
+  return {
+    seed: drill.seed,
+    jokers: drill.jokers,
+    secondCharleston: drill.secondCharleston,
+    courtesy: drill.courtesy,
+    patternListId: drill.patternListId,
+    drillId: drill.id,
+    drillName: drill.name,
+    ...(Object.keys(drill.racks).length ? { racks: drill.racks } : {}),
+  };
+}
