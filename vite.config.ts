@@ -42,6 +42,7 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/client/**/*.test.tsx', 'src/**/*.test.tsx'],
           setupFiles: ['tests/client/setup.ts'],
+          testTimeout: 15_000,
         },
       },
       {
