@@ -1,7 +1,7 @@
 /**
  * The only source of chance in Rackside. Every generator is seeded from the exchange's seed
  * plus a label saying what it is for (and, during play, the log position), so the same seed
- * and log give the same choices on any machine. Never the clock, never Math.random.
+ * and log give the same choices on any machine. Never the clock, never an unseeded source.
  */
 import seedrandom from 'seedrandom';
 

@@ -6,6 +6,7 @@ import { ApiError } from '../api/client';
 import { drillExportUrl, useDeleteDrill, useDrill, useSaveDrill } from '../api/drills';
 import { usePatternLists } from '../api/pattern-lists';
 import { Button } from '../components/Button';
+import { DeleteConfirm } from '../components/DeleteConfirm';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { DownloadLink } from '../components/LinkButton';
@@ -50,7 +51,6 @@ function DrillForm({ drill }: { drill?: DrillDto }) {
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState('');
   const [saved, setSaved] = useState('');
-  const [confirming, setConfirming] = useState(false);
   const ids = { description: useId(), list: useId() };
   const set = (patch: Partial<Draft>) => {
     setDraft((d) => ({ ...d, ...patch }));
@@ -173,24 +173,13 @@ function DrillForm({ drill }: { drill?: DrillDto }) {
         </div>
       </form>
       {drill && (
-        <div className="flex flex-wrap items-center gap-3 border-t border-line/40 pt-4">
-          {confirming ? (
-            <>
-              <span>Delete “{drill.name}”? Tables already opened keep their deal.</span>
-              <Button onClick={() => remove.mutate(drill.id, { onSuccess: () => navigate('/drills') })} disabled={remove.isPending}>
-                Yes, delete it
-              </Button>
-              <Button kind="quiet" onClick={() => setConfirming(false)}>
-                Keep it
-              </Button>
-            </>
-          ) : (
-            <Button kind="quiet" onClick={() => setConfirming(true)}>
-              Delete this drill
-            </Button>
-          )}
-          {remove.error && <FormMessage error>{remove.error.message}</FormMessage>}
-        </div>
+        <DeleteConfirm
+          label="Delete this drill"
+          question={`Delete “${drill.name}”? Tables already opened keep their deal.`}
+          onConfirm={() => remove.mutate(drill.id, { onSuccess: () => navigate('/drills') })}
+          pending={remove.isPending}
+          error={remove.error}
+        />
       )}
     </div>
   );

@@ -5,6 +5,7 @@ import type { PatternListDto } from '../../shared/pattern-lists';
 import { ApiError } from '../api/client';
 import { patternListExportUrl, useCopyPatternList, useDeletePatternList, usePatternList, useSavePatternList } from '../api/pattern-lists';
 import { Button } from '../components/Button';
+import { DeleteConfirm } from '../components/DeleteConfirm';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { DownloadLink } from '../components/LinkButton';
@@ -88,7 +89,6 @@ function ListForm({ list }: { list?: PatternListDto }) {
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [problem, setProblem] = useState('');
   const [saved, setSaved] = useState('');
-  const [confirming, setConfirming] = useState(false);
   const descriptionId = useId();
 
   const onSubmit = (e: FormEvent) => {
@@ -192,24 +192,13 @@ function ListForm({ list }: { list?: PatternListDto }) {
         {saved && <FormMessage>{saved}</FormMessage>}
       </form>
       {list && (
-        <div className="flex flex-wrap items-center gap-3 border-t border-line/40 pt-4">
-          {confirming ? (
-            <>
-              <span>Delete “{list.name}”?</span>
-              <Button onClick={() => remove.mutate(list.id, { onSuccess: () => navigate('/pattern-lists') })} disabled={remove.isPending}>
-                Yes, delete it
-              </Button>
-              <Button kind="quiet" onClick={() => setConfirming(false)}>
-                Keep it
-              </Button>
-            </>
-          ) : (
-            <Button kind="quiet" onClick={() => setConfirming(true)}>
-              Delete this list
-            </Button>
-          )}
-          {remove.error && <FormMessage error>{remove.error.message}</FormMessage>}
-        </div>
+        <DeleteConfirm
+          label="Delete this list"
+          question={`Delete “${list.name}”?`}
+          onConfirm={() => remove.mutate(list.id, { onSuccess: () => navigate('/pattern-lists') })}
+          pending={remove.isPending}
+          error={remove.error}
+        />
       )}
     </div>
   );
