@@ -15,11 +15,14 @@ let dir: string | undefined;
 
 /** Builds the client and starts the real server, as `npm start` would, on a temporary database. */
 export default async function setup(project: TestProject) {
-  execSync('npx vite build --logLevel error', { stdio: 'inherit' });
   dir = mkdtempSync(join(tmpdir(), 'rackside-e2e-'));
+  // The client is built into this run's own folder, so another build of dist/client cannot pull files from under it.
+  // NODE_ENV is "test" under vitest, which would make Vite bundle React's development build; build what users get.
+  const clientDir = join(dir, 'client');
+  execSync(`npx vite build --logLevel error --outDir ${JSON.stringify(clientDir)} --emptyOutDir`, { stdio: 'inherit', env: { ...process.env, NODE_ENV: 'production' } });
   const port = 3400 + Math.floor(Math.random() * 500);
   server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, PORT: String(port), DATABASE_URL: `sqlite:${join(dir, 'e2e.sqlite')}`, BCRYPT_ROUNDS: '4', SESSION_SECRET: 'e2e' },
+    env: { ...process.env, PORT: String(port), CLIENT_DIR: clientDir, DATABASE_URL: `sqlite:${join(dir, 'e2e.sqlite')}`, BCRYPT_ROUNDS: '4', SESSION_SECRET: 'e2e' },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
   await new Promise<void>((resolve, reject) => {
