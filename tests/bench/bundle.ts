@@ -132,6 +132,10 @@ console.log(
   `Sign-in and home: ${kB(initialSize.gzip)} of JavaScript gzipped (${kB(initialSize.raw)} raw, ${initial.size} files) — ` +
     `budget ${kB(BUDGET_BYTES)}: ${met ? 'MET' : 'NOT MET'} (${met ? `${kB(BUDGET_BYTES - initialSize.gzip)} to spare` : `${kB(initialSize.gzip - BUDGET_BYTES)} over`})`,
 );
+// React's development build greets the console with this line; a production bundle never carries it.
+if ([...initial].some((f) => readFileSync(join(DIST, f), 'utf8').includes('Download the React DevTools'))) {
+  console.log('Warning: this is a development build of React (NODE_ENV was set and not "production" when it was built); the figures are not what users load.');
+}
 console.log(`Stylesheet, for reference: ${kB(css.gzip)} gzipped (${kB(css.raw)} raw).`);
 if (missing.length || extra.length) {
   console.log(`Note: index.html and the manifest disagree — not in the page: ${missing.join(', ') || 'none'}; only in the page: ${extra.join(', ') || 'none'}.`);
