@@ -81,7 +81,7 @@ export class TableMaster {
 
   /** Runs `task` after every task queued before it: one action at a time per table. */
   run<T>(task: () => Promise<T> | T): Promise<T> {
-    const next = this.queue.then(() => task());
+    const next = this.queue.then(() => task()).finally(() => this.noteStep());
     this.queue = next.catch(() => undefined);
     return next;
   }
@@ -223,8 +223,9 @@ export class TableMaster {
       const seat = this.seatOf(viewer.userId);
       if (!seat || viewer.as !== 'player') throw new TableError('NOT_SEATED', 'Take a seat at this table to play.');
       const live = this.requireExchange();
-      if (version !== undefined && version !== this.version) {
-        throw new TableError('STALE', 'The table changed while you were choosing. Look again and resend.');
+      // Only a move to another step makes a choice stale: other seats committing meanwhile does not.
+      if (version !== undefined && version < this.stepVersion()) {
+        throw new TableError('STALE', 'The table moved on while you were choosing. Look again and resend.');
       }
       await this.applyAct(live, seat, action, viewer.userId);
     });
@@ -370,6 +371,19 @@ export class TableMaster {
       }, this.hooks.botDelayMs);
       this.botTimers.set(seat, timer);
     }
+  }
+
+  private step = { key: '', version: 0 };
+
+  /** Called after every task: remembers the table version at which the current step (phase and passes resolved) began. */
+  private noteStep() {
+    const live = this.exchange;
+    const key = live ? `${live.id}:${live.state.phase}:${live.state.history.length}` : '';
+    if (key !== this.step.key) this.step = { key, version: this.version };
+  }
+
+  private stepVersion(): number {
+    return this.step.version;
   }
 
   /** Resolves once every task queued so far has finished. */

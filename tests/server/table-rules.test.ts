@@ -225,3 +225,17 @@ test('two bots of one strategy get names that tell them apart', async () => {
   const names = [ines.state.seats.south.occupant!.displayName, ines.state.seats.north.occupant!.displayName];
   expect(new Set(names).size).toBe(2);
 });
+
+test('a pass sent with the version of the current step is taken even if others committed since; one from an earlier step is stale', async () => {
+  const { clients: cs } = await started();
+  const [ines, theo, mina] = cs;
+  const seenAtStep = theo.state.version;
+  await ines.ok('exchange:act', { action: simpleAction(ines.state) });
+  await mina.ok('exchange:act', { action: simpleAction(mina.state) });
+  await theo.until((s) => s.version > seenAtStep + 1);
+  await theo.ok('exchange:act', { action: simpleAction(theo.states.find((s) => s.version === seenAtStep)!), version: seenAtStep });
+  await cs[3].ok('exchange:act', { action: simpleAction(cs[3].state) });
+  await theo.until((s) => s.phase === 'first-across');
+  const ack = await theo.emit('exchange:act', { action: simpleAction(theo.state), version: seenAtStep });
+  expect(ack).toMatchObject({ ok: false, code: 'STALE' });
+});
