@@ -5,10 +5,12 @@ import { SignInPage } from './routes/SignInPage';
 import { RegisterPage } from './routes/RegisterPage';
 import { AdminUsersPage } from './routes/AdminUsersPage';
 import { NotFoundPage } from './routes/NotFoundPage';
+import { RouteErrorPage } from './routes/RouteErrorPage';
 
 export const routes: RouteObject[] = [
   {
     element: <Layout />,
+    errorElement: <RouteErrorPage />,
     children: [
       { path: '/', element: <HomePage /> },
       { path: '/sign-in', element: <SignInPage /> },

@@ -35,7 +35,7 @@ export function HuddlePanel({ table, busy, onCall, onReveal, onNote, onRelease }
             <rect x={12} y={3} width={4} height={14} rx={1} fill="currentColor" />
           </svg>
         )}
-        {huddle.open ? 'This pass is on hold' : 'Hold this pass'}
+        {huddle.open ? 'This pass is on hold' : table.isHost && passing ? 'Hold this pass' : 'Notes from the huddle'}
       </h2>
       {huddle.open ? (
         <p role="status">

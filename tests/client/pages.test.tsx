@@ -1,6 +1,7 @@
 import { fireEvent, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { expect, test } from 'vitest';
+import type { RouteObject } from 'react-router-dom';
+import { expect, test, vi } from 'vitest';
 import { fakeApi, renderAt, signedInAs, signedOut } from './render';
 
 test('the home page shows the signed-in user and their role', async () => {
@@ -102,4 +103,28 @@ test('the text size choice scales the page and is remembered', async () => {
   await userEvent.click(screen.getByRole('button', { name: 'Text size largest' }));
   expect(document.documentElement.style.getPropertyValue('--rackside-root-size')).toBe('137.5%');
   expect(localStorage.getItem('rackside.preferences')).toContain('largest');
+});
+
+test('a page whose code cannot load shows a plain way back instead of a crash', async () => {
+  fakeApi(signedInAs('player'));
+  const { createMemoryRouter, RouterProvider } = await import('react-router-dom');
+  const { QueryClient, QueryClientProvider } = await import('@tanstack/react-query');
+  const { render } = await import('@testing-library/react');
+  const { routes } = await import('../../src/router');
+  const broken: RouteObject[] = [
+    {
+      element: routes[0].element,
+      errorElement: routes[0].errorElement,
+      children: [{ path: '/broken', lazy: async () => Promise.reject(new Error('chunk gone')) }],
+    },
+  ];
+  const spy = vi.spyOn(console, 'error').mockImplementation(() => undefined);
+  render(
+    <QueryClientProvider client={new QueryClient()}>
+      <RouterProvider router={createMemoryRouter(broken, { initialEntries: ['/broken'] })} />
+    </QueryClientProvider>,
+  );
+  expect(await screen.findByRole('heading', { name: 'This page could not load' })).toBeTruthy();
+  expect(screen.getByRole('button', { name: 'Reload the page' })).toBeTruthy();
+  spy.mockRestore();
 });
