@@ -4,7 +4,7 @@ import reactHooks from 'eslint-plugin-react-hooks';
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['dist', 'node_modules', 'coverage', 'data'] },
+  { ignores: ['dist', 'node_modules', 'coverage', 'data', '.tmp'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
