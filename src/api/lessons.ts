@@ -24,7 +24,17 @@ export function invitationQuery(token: string) {
 
 export const useLessons = (enabled = true) => useQuery({ ...lessonsQuery, enabled });
 export const useLesson = (id: string) => useQuery(lessonQuery(id));
-export const useRoom = (id: string, enabled: boolean) => useQuery({ ...roomQuery(id), enabled });
+/** Nothing pushes room changes, so the room asks again every few seconds until every table has finished: a waiting student sees their table appear. */
+const ROOM_POLL_MS = 4000;
+export const useRoom = (id: string, enabled: boolean) =>
+  useQuery({
+    ...roomQuery(id),
+    enabled,
+    refetchInterval: (query) => {
+      const tables = query.state.data;
+      return !tables?.length || tables.some((t) => t.status !== 'done') ? ROOM_POLL_MS : false;
+    },
+  });
 export const useInvitation = (token: string) => useQuery(invitationQuery(token));
 
 export function useScheduleLesson() {

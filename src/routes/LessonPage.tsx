@@ -2,6 +2,7 @@ import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
 import { useMe } from '../api/auth';
 import { ApiError } from '../api/client';
 import { useLesson } from '../api/lessons';
+import { useDrills } from '../api/drills';
 import { useCheckout } from '../api/payments';
 import { Button } from '../components/Button';
 import { Card } from '../components/Card';
@@ -21,6 +22,8 @@ export function LessonPage() {
   const { data: me, isPending: mePending } = useMe();
   const lesson = useLesson(id);
   const checkout = useCheckout();
+  // The teacher reads the deal by the drills' names, not their ids.
+  const drills = useDrills(Boolean(lesson.data?.enrollments));
   if (mePending) return <p role="status">Loading…</p>;
   if (!me) return <Navigate to="/sign-in" replace />;
   if (lesson.error) {
@@ -49,7 +52,11 @@ export function LessonPage() {
           {l.durationMinutes} minutes with {l.teacherName} · {lessonPrice(l)} · {l.seatsTaken} of {l.seats} seats taken
         </p>
         {l.description && <p className="mt-3 whitespace-pre-line">{l.description}</p>}
-        {teaches && <p className="mt-3 text-ink-soft">Deal: {l.drillIds.length ? `drill ${l.drillIds.join(', ')}` : `seed ${l.seed}`}</p>}
+        {teaches && (
+          <p className="mt-3 text-ink-soft">
+            Deal: {l.drillIds.length ? `drill ${l.drillIds.map((d) => `“${drills.data?.find((x) => x.id === d)?.name ?? d}”`).join(', ')}` : `seed ${l.seed}`}
+          </p>
+        )}
         {!teaches && l.myStatus && (
           <p className="mt-3">
             Your place: <strong>{ENROLLMENT_WORDS[l.myStatus]}</strong>
