@@ -22,7 +22,9 @@ export default async function setup(project: TestProject) {
   execSync(`npx vite build --logLevel error --outDir ${JSON.stringify(clientDir)} --emptyOutDir`, { stdio: 'inherit', env: { ...process.env, NODE_ENV: 'production' } });
   const port = 3400 + Math.floor(Math.random() * 500);
   server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, PORT: String(port), CLIENT_DIR: clientDir, DATABASE_URL: `sqlite:${join(dir, 'e2e.sqlite')}`, BCRYPT_ROUNDS: '4', SESSION_SECRET: 'e2e' },
+    env: { ...process.env, PORT: String(port), CLIENT_DIR: clientDir, DATABASE_URL: `sqlite:${join(dir, 'e2e.sqlite')}`, BCRYPT_ROUNDS: '4', SESSION_SECRET: 'e2e',
+      // Every browser test comes from one address; the limits themselves are tested in tests/server.
+      LOGIN_RATE_MAX: '10000', REGISTER_RATE_MAX: '10000', RESET_RATE_MAX: '10000', INVITE_RATE_MAX: '10000', CHAT_RATE_PER_MINUTE: '10000' },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
   await new Promise<void>((resolve, reject) => {
