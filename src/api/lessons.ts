@@ -23,7 +23,9 @@ export function invitationQuery(token: string) {
 }
 
 export const useLessons = (enabled = true) => useQuery({ ...lessonsQuery, enabled });
-export const useLesson = (id: string) => useQuery(lessonQuery(id));
+/** Nothing pushes enrolments or payments either, so an open lesson page asks again now and then: the teacher sees seats fill. */
+const LESSON_POLL_MS = 10_000;
+export const useLesson = (id: string) => useQuery({ ...lessonQuery(id), refetchInterval: LESSON_POLL_MS });
 /** Nothing pushes room changes, so the room asks again every few seconds until every table has finished: a waiting student sees their table appear. */
 const ROOM_POLL_MS = 4000;
 export const useRoom = (id: string, enabled: boolean) =>
