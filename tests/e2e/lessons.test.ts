@@ -97,6 +97,9 @@ test('forgot password: the reset mail arrives in the outbox and its link sets a 
   const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByRole('link', { name: 'Forgot your password?' }).click();
+  // The sign-in page has an E-mail field too: wait until the reset page has replaced it.
+  await page.waitForURL(/\/forgot-password$/);
+  await page.getByRole('button', { name: 'Send me a link' }).waitFor();
   await page.getByLabel('E-mail').fill('ruth@harborlane.test');
   await page.getByRole('button', { name: 'Send me a link' }).click();
   await page.getByText(/If an account uses that address/).waitFor();
