@@ -6,6 +6,7 @@ import { createTableErrors, useCreateTable } from '../api/tables';
 import { Button } from './Button';
 import { FormMessage } from './FormMessage';
 import { TextField } from './TextField';
+import { CheckField } from './CheckField';
 
 /** The on-or-off options. */
 type Switch = { [K in keyof TableOptionsInput]-?: NonNullable<TableOptionsInput[K]> extends boolean ? K : never }[keyof TableOptionsInput];
@@ -63,9 +64,9 @@ export function CreateTableForm() {
       />
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 font-semibold">How the table plays</legend>
-        <Check label="Private table" hint="Only people with the invite link can find and join it." checked={isPrivate} onChange={setPrivate} error={errors.private} />
+        <CheckField label="Private table" hint="Only people with the invite link can find and join it." checked={isPrivate} onChange={setPrivate} error={errors.private} />
         {SWITCHES.map((s) => (
-          <Check
+          <CheckField
             key={s.key}
             label={s.label}
             hint={s.hint}
@@ -84,15 +85,3 @@ export function CreateTableForm() {
   );
 }
 
-function Check({ label, hint, checked, onChange, error }: { label: string; hint: string; checked: boolean; onChange: (v: boolean) => void; error?: string }) {
-  return (
-    <label className="flex items-start gap-3">
-      <input type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} className="mt-1 h-6 w-6 shrink-0 accent-accent" aria-invalid={error ? true : undefined} />
-      <span>
-        <span className="font-medium">{label}</span>
-        <span className="block text-base text-ink-soft">{hint}</span>
-        {error && <span className="block font-medium text-danger">✕ {error}</span>}
-      </span>
-    </label>
-  );
-}

@@ -14,6 +14,7 @@ import { RackPresetPicker } from '../components/RackPresetPicker';
 import { TeacherOnly } from '../components/TeacherOnly';
 import { TextField } from '../components/TextField';
 import { OpenTableButton } from './DrillsPage';
+import { CheckField } from '../components/CheckField';
 
 type Draft = Required<Omit<DrillInput, 'racks'>> & { racks: PresetRacks };
 
@@ -29,18 +30,6 @@ function newSeed(name: string) {
   return `${stem}-${Math.random().toString(36).slice(2, 8)}`;
 }
 
-function Check({ label, hint, checked, onChange, error }: { label: string; hint: string; checked: boolean; onChange: (v: boolean) => void; error?: string }) {
-  return (
-    <label className="flex items-start gap-3">
-      <input type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} className="mt-1 h-6 w-6 shrink-0 accent-accent" aria-invalid={error ? true : undefined} />
-      <span>
-        <span className="font-medium">{label}</span>
-        <span className="block text-base text-ink-soft">{hint}</span>
-        {error && <span className="block font-medium text-danger">✕ {error}</span>}
-      </span>
-    </label>
-  );
-}
 
 function DrillForm({ drill }: { drill?: DrillDto }) {
   const navigate = useNavigate();
@@ -122,15 +111,15 @@ function DrillForm({ drill }: { drill?: DrillDto }) {
           </div>
           <fieldset className="flex flex-col gap-3">
             <legend className="mb-1 font-semibold">Which parts run</legend>
-            <Check label="Deal with jokers" hint="Off deals from the set without its 8 jokers." checked={draft.jokers} onChange={(jokers) => set({ jokers })} error={errors.jokers} />
-            <Check
+            <CheckField label="Deal with jokers" hint="Off deals from the set without its 8 jokers." checked={draft.jokers} onChange={(jokers) => set({ jokers })} error={errors.jokers} />
+            <CheckField
               label="Offer a second Charleston"
               hint="The first Charleston always runs; then the table votes on a second. Off stops after the first."
               checked={draft.secondCharleston}
               onChange={(secondCharleston) => set({ secondCharleston })}
               error={errors.secondCharleston}
             />
-            <Check label="Offer the courtesy pass" hint="Seats across from each other may swap up to 3 tiles at the end." checked={draft.courtesy} onChange={(courtesy) => set({ courtesy })} error={errors.courtesy} />
+            <CheckField label="Offer the courtesy pass" hint="Seats across from each other may swap up to 3 tiles at the end." checked={draft.courtesy} onChange={(courtesy) => set({ courtesy })} error={errors.courtesy} />
           </fieldset>
           <div className="flex flex-col gap-1">
             <label htmlFor={ids.list} className="font-medium">
