@@ -20,6 +20,7 @@ import { drillsRouter } from './routes/drills';
 import { patternListsRouter } from './routes/pattern-lists';
 import { comparisonsRouter } from './routes/comparisons';
 import { progressRouter } from './routes/progress';
+import { createEventWriter } from './db/event-writer';
 import { TableRegistry } from './realtime/registry';
 import type { TableMaster } from './realtime/table-master';
 
@@ -49,7 +50,8 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   const onLogout = new Set<(sessionId: string) => void>();
   const onTableChange = new Set<(master: TableMaster) => void>();
   // One owner per table, shared by the REST routes and the sockets.
-  const registry = new TableRegistry({ botDelayMs: config.botDelayMs, changed: (master) => onTableChange.forEach((fn) => fn(master)) });
+  const events = createEventWriter(sequelize);
+  const registry = new TableRegistry({ botDelayMs: config.botDelayMs, events, changed: (master) => onTableChange.forEach((fn) => fn(master)) });
 
   const teaching = teachingRoutes({ config, sequelize, registry, tableChanged: (master) => onTableChange.forEach((fn) => fn(master)) });
 
@@ -98,9 +100,11 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
     drain: () => {
       draining = true;
     },
-    close: () => {
+    /** Call once every table is idle: the event log's last group is written, then its connection closed. */
+    close: async () => {
       teaching.close();
       session.close();
+      await events.close();
     },
   };
 }

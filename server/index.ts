@@ -33,7 +33,7 @@ export async function startServer(givenConfig: Config) {
     await io.drain(config.shutdownGraceMs);
     await registry.closeAll();
     await io.close();
-    application.close();
+    await application.close();
     await fakes.close();
     await sequelize.close();
   }

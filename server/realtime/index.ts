@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import type { Server as HttpServer } from 'node:http';
-import type { RequestHandler } from 'express';
+import { ServerResponse, type Server as HttpServer } from 'node:http';
+import { EventEmitter } from 'node:events';
+import type { RequestHandler, Response } from 'express';
 import { Server, type Socket } from 'socket.io';
 import { clientEventSchemas, type Ack, type ClientEventName, type ClientToServerEvents, type ServerToClientEvents } from '../../shared/protocol';
 import type { Application } from '../app';
@@ -9,6 +10,7 @@ import { RateLimiterMemory } from 'rate-limiter-flexible';
 import type { SessionData } from 'express-session';
 import { pastAbsoluteLifetime } from '../auth/session';
 import { isOwnOrigin } from '../security/origin';
+import { textOnlyParser } from './text-encoder';
 
 interface SocketData {
   userId: number;
@@ -23,6 +25,20 @@ type RacksideSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<
 
 const room = (tableId: string) => `table:${tableId}`;
 
+/** A response for middleware to write to during a WebSocket upgrade: nothing it writes goes anywhere. */
+function upgradeStandIn() {
+  const headers: Record<string, unknown> = {};
+  return Object.assign(new EventEmitter(), {
+    setHeader: (name: string, value: unknown) => void (headers[name.toLowerCase()] = value),
+    getHeader: (name: string) => headers[name.toLowerCase()],
+    removeHeader: (name: string) => void delete headers[name.toLowerCase()],
+    writeHead: () => undefined,
+    write: () => true,
+    end: () => undefined,
+    headersSent: false,
+  });
+}
+
 /** Socket.IO on the app's HTTP server, sharing its sessions: a socket is the signed-in user of its cookie. */
 export function attachRealtime(httpServer: HttpServer, application: Application) {
   const { config } = application;
@@ -30,16 +46,22 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     // No client message is near this size; a larger one is dropped before it is parsed.
     maxHttpBufferSize: 64 * 1024,
     serveClient: false,
+    parser: textOnlyParser,
     // The handshake of a page from another site is refused, like a state-changing REST request.
     allowRequest: (req, done) => done(isOwnOrigin(req, config) ? null : 'FOREIGN_ORIGIN', isOwnOrigin(req, config)),
   });
   const chatLimiter = new RateLimiterMemory({ points: config.rateLimits.chatPerMinute, duration: 60 });
 
   // Run the session and passport on the handshake only (as Socket.IO's passport how-to shows).
+  // On a WebSocket upgrade there is no HTTP response to write: the engine hands middleware a stand-in
+  // that it keeps until the connection closes, and the session middleware hangs its closures (and so
+  // the request, its session and its user) on it. Hand them a stand-in of our own that is dropped once
+  // the handshake is read; the session's end-of-response hooks never run on an upgrade either way.
   const onlyHandshake = (middleware: RequestHandler): RequestHandler => (req, res, next) => {
     const isHandshake = (req as unknown as { _query: Record<string, string> })._query?.sid === undefined;
-    if (isHandshake) middleware(req, res, next);
-    else next();
+    if (!isHandshake) next();
+    else if (res instanceof ServerResponse) middleware(req, res, next);
+    else middleware(req, upgradeStandIn() as unknown as Response, next);
   };
   io.engine.use(onlyHandshake(application.session.middleware));
   io.engine.use(onlyHandshake(application.passport.session() as RequestHandler));
@@ -51,6 +73,12 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       return;
     }
     socket.data = { userId: req.user.id, displayName: req.user.displayName, isAdmin: req.user.role === 'admin', sessionId: req.sessionID };
+    // Everything needed from the handshake request is now in socket.data and socket.handshake. Socket.IO
+    // keeps that request (with its session and parsed headers) for the connection's whole life unless
+    // told otherwise (its memory-usage guide); let it go, a few kilobytes per open socket.
+    (socket.conn as unknown as { request: unknown }).request = null;
+    const held = req as unknown as Record<string, unknown>;
+    for (const key of ['user', 'session', 'sessionStore', 'sessionID', 'logIn', 'login']) delete held[key];
     next();
   });
 
@@ -59,14 +87,20 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
   let closing = false;
   let inFlight = 0;
   let settled: (() => void) | null = null;
-  application.onTableChange((master) => broadcast(master));
+  application.onTableChange((master) => broadcast(master, false));
 
   function member(socket: RacksideSocket): Member {
     return { userId: socket.data.userId, displayName: socket.data.displayName, as: socket.data.as ?? 'player', isAdmin: socket.data.isAdmin };
   }
 
-  /** Sends every socket at the table its own view, then lets the bots think. */
-  function broadcast(master: TableMaster) {
+  /**
+   * Sends every socket at the table its own view, then lets the bots think. Without `force`, a
+   * table whose shown version was already sent is skipped: one stored group of actions gives each
+   * viewer one state, however many of the group's actions are then acked.
+   */
+  function broadcast(master: TableMaster, force = true) {
+    if (!force && master.sentVersion === master.shownVersion) return;
+    master.sentVersion = master.shownVersion;
     const ids = io.of('/').adapter.rooms.get(room(master.id));
     for (const id of ids ?? []) {
       const socket = io.of('/').sockets.get(id) as RacksideSocket | undefined;
@@ -140,10 +174,11 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       return master;
     }
 
+    /** Waits until the change is stored, makes sure the viewers have it, then the caller acks. */
     async function after(master: TableMaster, work: Promise<unknown>) {
       await work;
-      broadcast(master);
-      return { version: master.version };
+      broadcast(master, false);
+      return { version: master.shownVersion };
     }
 
     on('table:join', async ({ tableId, as, invite }) => {

@@ -13,6 +13,7 @@ import type { HuddleNoteDto, SeatOccupant, SeatStateDto, TableDto, TableOptions,
 import { SEATS, type Seat } from '../../shared/seats';
 import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredSeats, type StoredTableOptions } from '../db/models';
 import { patternsForTable } from '../teaching/pattern-source';
+import { EventNotStored, type EventWriter } from '../db/event-writer';
 
 export class TableError extends Error {
   constructor(
@@ -48,7 +49,18 @@ interface LiveExchange {
 
 type StoredEvent = { type: EventType; seat: Seat | null; payload: unknown; userId: number | null };
 
-const INSERT_EVENT = 'INSERT INTO "ExchangeEvents" ("exchangeId", "seq", "type", "seat", "payload", "userId", "createdAt") VALUES (?, ?, ?, ?, ?, ?, ?)';
+/** What the table shows: the exchange as of its last stored event. */
+interface Shown {
+  exchangeId: string;
+  state: ExchangeState;
+  huddle: Huddle;
+  version: number;
+}
+
+/** What a queued task hands back: the promise that its events are stored (the queue does not wait for it). */
+interface Appended {
+  stored: Promise<void>;
+}
 
 const closedHuddle = (): Huddle => ({ open: false, revealed: [], heldAt: null });
 
@@ -56,6 +68,8 @@ export interface MasterHooks {
   /** Called after every change, once it is stored: the transport sends each viewer its view. */
   changed(master: TableMaster): void;
   botDelayMs: number;
+  /** Where exchange events are stored, in groups. */
+  events: EventWriter;
 }
 
 export class TableMaster {
@@ -69,6 +83,21 @@ export class TableMaster {
   spectators = 0;
   /** The table's pattern list, which its bots judge by; loaded when an exchange starts or is rebuilt. */
   patterns: readonly Pattern[] = starterPatterns;
+  /**
+   * The table runs ahead of its storage. A queued action is checked and applied to the in-memory
+   * state at once, and its event is appended to the next group write; the next action of the table
+   * may be checked against that state before the write returns. Nobody hears of an event before it
+   * is stored: views are built from `shown`, the state as of the last stored event, and acks wait for
+   * the store. If a write fails, everything after the last stored event is thrown away (`epoch`
+   * moves on, so still-waiting events are dropped) and the next task rebuilds the table from its log.
+   */
+  private pending = 0;
+  private shown: Shown | null = null;
+  private epoch = 0;
+  private broken = false;
+  private lastWrite: Promise<void> = Promise.resolve();
+  /** The version last sent to the sockets, so one stored group gives each viewer one state. */
+  sentVersion = -1;
 
   constructor(
     public row: TableRow,
@@ -81,9 +110,19 @@ export class TableMaster {
 
   /** Runs `task` after every task queued before it: one action at a time per table. */
   run<T>(task: () => Promise<T> | T): Promise<T> {
-    const next = this.queue.then(() => task()).finally(() => this.noteStep());
+    const next = this.queue
+      .then(async () => {
+        if (this.broken) await this.reload();
+        return task();
+      })
+      .finally(() => this.noteStep());
     this.queue = next.catch(() => undefined);
-    return next;
+    // A refusal is answered once what the table shows has caught up with what it checked against,
+    // so the asker already holds the state that explains it.
+    return next.catch(async (err) => {
+      await this.lastWrite;
+      throw err;
+    });
   }
 
   /** Rebuilds the open exchange from its stored events (after a restart). */
@@ -96,10 +135,47 @@ export class TableMaster {
         const notes = await HuddleNoteRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['id', 'ASC']] });
         master.exchange = rebuild(exchangeRow, events, notes.map(noteDto));
         master.version = events.length + 1;
+        master.showLive();
         master.patterns = (await patternsForTable(row.options.patternListId)).patterns;
       }
     }
     return master;
+  }
+
+  /** After a failed write: the in-memory state ran ahead of the log, so read the log again. */
+  private async reload() {
+    const row = await TableRow.findByPk(this.row.id);
+    if (row) this.row = row;
+    const exchangeRow = this.row.currentExchangeId ? await ExchangeRow.findByPk(this.row.currentExchangeId) : null;
+    if (exchangeRow) {
+      const events = await ExchangeEventRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['seq', 'ASC']] });
+      const notes = await HuddleNoteRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['id', 'ASC']] });
+      this.exchange = rebuild(exchangeRow, events, notes.map(noteDto));
+    }
+    // Versions only grow, so no client takes the rebuilt state for an old one.
+    this.version += 1;
+    this.pending = 0;
+    this.broken = false;
+    this.showLive();
+    this.hooks.changed(this);
+  }
+
+  /** Nothing is waiting to be stored: what the table holds is what it shows. */
+  private showLive() {
+    const live = this.exchange;
+    this.shown = live ? { exchangeId: live.id, state: live.state, huddle: live.huddle, version: this.version } : null;
+  }
+
+  /** The version a viewer is shown: the live one once everything is stored. */
+  get shownVersion(): number {
+    return this.pending === 0 ? this.version : (this.shown?.version ?? this.version);
+  }
+
+  private shownExchange(): { id: string; state: ExchangeState; huddle: Huddle; notes: HuddleNoteDto[] } | null {
+    const live = this.exchange;
+    if (!live) return null;
+    if (this.pending === 0 || !this.shown || this.shown.exchangeId !== live.id) return live;
+    return { id: live.id, state: this.shown.state, huddle: this.shown.huddle, notes: live.notes };
   }
 
   // ───────────── who is asking ─────────────
@@ -204,6 +280,7 @@ export class TableMaster {
       });
       await this.saveRow({ status: 'playing', currentExchangeId: id });
       this.exchange = { id, options, state, seq: 0, huddle: closedHuddle(), notes: [] };
+      this.showLive();
     });
   }
 
@@ -218,8 +295,20 @@ export class TableMaster {
 
   // ───────────── the exchange ─────────────
 
-  act(viewer: Member, action: Action, version?: number) {
-    return this.run(async () => {
+  /**
+   * One seat's action. If its place in the log turned out to be taken (another process stored an
+   * event of this exchange first), the table has read its log again by the time the retry runs, and
+   * the action is checked once more against that state: accepted if it still applies, refused if not.
+   */
+  act(viewer: Member, action: Action, version?: number): Promise<void> {
+    return this.actOnce(viewer, action, version).catch((err) => {
+      if (err instanceof TableError && err.code === 'LOG_CONFLICT') return this.actOnce(viewer, action, version);
+      throw err;
+    });
+  }
+
+  private actOnce(viewer: Member, action: Action, version?: number): Promise<void> {
+    return this.run(async (): Promise<Appended> => {
       const seat = this.seatOf(viewer.userId);
       if (!seat || viewer.as !== 'player') throw new TableError('NOT_SEATED', 'Take a seat at this table to play.');
       const live = this.requireExchange();
@@ -227,42 +316,54 @@ export class TableMaster {
       if (version !== undefined && version < this.stepVersion()) {
         throw new TableError('STALE', 'The table moved on while you were choosing. Look again and resend.');
       }
-      await this.applyAct(live, seat, action, viewer.userId);
-    });
+      return this.applyAct(live, seat, action, viewer.userId);
+    }).then(({ stored }) => stored);
   }
 
-  private async applyAct(live: LiveExchange, seat: Seat, action: Action, userId: number | null) {
+  /** Checks and applies one action, then whatever it makes due; hands back the promise that all of it is stored. */
+  private async applyAct(live: LiveExchange, seat: Seat, action: Action, userId: number | null): Promise<Appended> {
     const result = act(live.state, seat, action);
     if (!result.ok) throw new TableError(result.code, result.message);
-    await this.store(live, { type: 'act', seat, payload: action, userId });
-    live.state = result.state;
-    // The action is stored and so accepted; a failure to settle is retried on the next action or restart.
-    await this.settle(live).catch((err) => console.error(`Table ${this.id} could not settle after an action`, err));
+    const stored = [this.append(live, { type: 'act', seat, payload: action, userId }, result.state, live.huddle)];
+    try {
+      const settled = this.settle(live);
+      if (settled) stored.push(settled);
+    } catch (err) {
+      // The action stands; a resolve that failed is tried again on the next action or restart.
+      console.error(`Table ${this.id} could not settle after an action`, err);
+    }
+    return this.finishIfDone(live, Promise.all(stored).then(() => undefined));
+  }
+
+  /** The last resolve ended the exchange: once it is stored, mark the exchange and table done (inside the queue). */
+  private async finishIfDone(live: LiveExchange, stored: Promise<void>): Promise<Appended> {
+    if (live.state.phase !== 'done') return { stored };
+    await stored;
+    await this.finish(live);
+    return { stored };
   }
 
   /** Finishes whatever the stored log left due (a resolve that a crash cut off). */
   resume() {
     return this.run(async () => {
-      if (this.exchange && this.row.status === 'playing') await this.settle(this.exchange);
+      const live = this.exchange;
+      if (!live || this.row.status !== 'playing') return;
+      const settled = this.settle(live);
+      if (settled) await (await this.finishIfDone(live, settled)).stored;
     });
   }
 
-  /** After a change: hold the pass in a huddle, or resolve it, or finish the exchange. */
-  private async settle(live: LiveExchange) {
+  /** After a change: hold the pass in a huddle, or resolve it. Hands back the store of what it appended, if anything. */
+  private settle(live: LiveExchange): Promise<void> | null {
     const { state, huddle } = live;
-    if (!canResolve(state) || huddle.open) return;
+    if (!canResolve(state) || huddle.open) return null;
     const passIndex = state.history.length;
     if (this.row.options.huddleEveryPass && isPassPhase(state.phase) && huddle.heldAt !== passIndex) {
-      await this.store(live, { type: 'huddle-call', seat: null, payload: { auto: true }, userId: null });
-      live.huddle = { open: true, revealed: [], heldAt: passIndex };
-      return;
+      return this.append(live, { type: 'huddle-call', seat: null, payload: { auto: true }, userId: null }, state, { open: true, revealed: [], heldAt: passIndex });
     }
     const resolved = resolve(state);
     if (!resolved.ok) throw new TableError(resolved.code, resolved.message);
-    await this.store(live, { type: 'resolve', seat: null, payload: null, userId: null });
-    live.state = resolved.state;
-    live.huddle = { ...live.huddle, revealed: [] };
-    if (live.state.phase === 'done') await this.finish(live);
+    return this.append(live, { type: 'resolve', seat: null, payload: null, userId: null }, resolved.state, { ...live.huddle, revealed: [] });
   }
 
   private async finish(live: LiveExchange) {
@@ -272,26 +373,24 @@ export class TableMaster {
 
   // ───────────── the huddle ─────────────
 
-  callHuddle(viewer: Member) {
-    return this.run(async () => {
+  callHuddle(viewer: Member): Promise<void> {
+    return this.run(async (): Promise<Appended> => {
       this.requireHost(viewer);
       const live = this.requireExchange();
       if (!isPassPhase(live.state.phase)) throw new TableError('WRONG_PHASE', 'A huddle holds a pass; call it while the table is choosing tiles.');
       if (live.huddle.open) throw new TableError('HUDDLE_OPEN', 'This pass is already held.');
-      await this.store(live, { type: 'huddle-call', seat: null, payload: { auto: false }, userId: viewer.userId });
-      live.huddle = { open: true, revealed: [], heldAt: live.state.history.length };
-    });
+      return { stored: this.append(live, { type: 'huddle-call', seat: null, payload: { auto: false }, userId: viewer.userId }, live.state, { open: true, revealed: [], heldAt: live.state.history.length }) };
+    }).then(({ stored }) => stored);
   }
 
-  reveal(viewer: Member, seat: Seat) {
-    return this.run(async () => {
+  reveal(viewer: Member, seat: Seat): Promise<void> {
+    return this.run(async (): Promise<Appended> => {
       this.requireHost(viewer);
       const live = this.requireExchange();
       if (!live.huddle.open) throw new TableError('NO_HUDDLE', 'Call a huddle first: seats are shown only while a pass is held.');
-      if (live.huddle.revealed.includes(seat)) return;
-      await this.store(live, { type: 'huddle-reveal', seat, payload: null, userId: viewer.userId });
-      live.huddle = { ...live.huddle, revealed: [...live.huddle.revealed, seat] };
-    });
+      if (live.huddle.revealed.includes(seat)) return { stored: this.lastWrite };
+      return { stored: this.append(live, { type: 'huddle-reveal', seat, payload: null, userId: viewer.userId }, live.state, { ...live.huddle, revealed: [...live.huddle.revealed, seat] }) };
+    }).then(({ stored }) => stored);
   }
 
   note(viewer: Member, text: string, seat?: Seat) {
@@ -308,31 +407,77 @@ export class TableMaster {
         text,
       });
       live.notes = [...live.notes, noteDto(row)];
+      this.version += 1;
     });
   }
 
-  release(viewer: Member) {
-    return this.run(async () => {
+  release(viewer: Member): Promise<void> {
+    return this.run(async (): Promise<Appended> => {
       this.requireHost(viewer);
       const live = this.requireExchange();
       if (!live.huddle.open) throw new TableError('NO_HUDDLE', 'No huddle is open.');
-      await this.store(live, { type: 'huddle-release', seat: null, payload: null, userId: viewer.userId });
-      live.huddle = { ...live.huddle, open: false, revealed: [] };
-      await this.settle(live);
-    });
+      const stored = [this.append(live, { type: 'huddle-release', seat: null, payload: null, userId: viewer.userId }, live.state, { ...live.huddle, open: false, revealed: [] })];
+      const settled = this.settle(live);
+      if (settled) stored.push(settled);
+      return this.finishIfDone(live, Promise.all(stored).then(() => undefined));
+    }).then(({ stored }) => stored);
   }
 
   // ───────────── storage ─────────────
 
-  /** Appends one event at the next position of the log. Nothing is told to anyone before this returns. */
-  private async store(live: LiveExchange, event: StoredEvent) {
-    // Every action passes through here, so it is one plain INSERT (a third of a model create's
-    // cost). The unique (exchangeId, seq) index refuses a second writer at the same position.
-    await ExchangeEventRow.sequelize!.query(INSERT_EVENT, {
-      replacements: [live.id, live.seq, event.type, event.seat, event.payload === null ? null : JSON.stringify(event.payload), event.userId, new Date().toISOString()],
-    });
+  /**
+   * Moves the exchange on to `state` and `huddle` and appends the event that does so at the next
+   * position of its log. The returned promise settles when the event is stored (or refused); only
+   * then is the new state shown to anyone.
+   */
+  private append(live: LiveExchange, event: StoredEvent, state: ExchangeState, huddle: Huddle): Promise<void> {
+    if (this.pending === 0) this.showLive();
+    live.state = state;
+    live.huddle = huddle;
+    const seq = live.seq;
     live.seq += 1;
     this.version += 1;
+    this.noteStep();
+    const snapshot: Shown = { exchangeId: live.id, state, huddle, version: this.version };
+    const epoch = this.epoch;
+    this.pending += 1;
+    const stored = this.hooks.events.append(
+      { exchangeId: live.id, seq, type: event.type, seat: event.seat, payload: event.payload === null ? null : JSON.stringify(event.payload), userId: event.userId, createdAt: new Date().toISOString() },
+      {
+        wanted: () => epoch === this.epoch,
+        stored: () => {
+          if (epoch !== this.epoch) return;
+          this.pending -= 1;
+          this.shown = snapshot;
+          this.announce();
+        },
+      },
+    );
+    const guarded = stored.catch((err: Error) => {
+      if (epoch === this.epoch) {
+        // Throw away every guess after the last stored event; the next task reads the log again.
+        this.epoch += 1;
+        this.pending = 0;
+        this.broken = true;
+        console.error(`Table ${this.id}: an event was not stored, so the table reloads its log`, err.message);
+      }
+      if (err instanceof EventNotStored && err.conflict) throw new TableError('LOG_CONFLICT', 'The table moved on elsewhere before that move was stored. Look at the table again and resend it.');
+      throw new TableError('NOT_STORED', 'Rackside could not store that move. Look at the table again and resend it.');
+    });
+    this.lastWrite = guarded.catch(() => undefined);
+    return guarded;
+  }
+
+  private announcing = false;
+
+  /** One notice per stored group: every event of the group is marked stored before the viewers hear. */
+  private announce() {
+    if (this.announcing) return;
+    this.announcing = true;
+    queueMicrotask(() => {
+      this.announcing = false;
+      this.hooks.changed(this);
+    });
   }
 
   private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId' | 'options'>>) {
@@ -355,19 +500,18 @@ export class TableMaster {
           this.botTimers.delete(seat);
           const now = this.exchange;
           const bot = this.row.seats[seat];
-          if (this.closed || !now || bot?.kind !== 'bot' || this.row.status !== 'playing') return false;
+          if (this.closed || !now || bot?.kind !== 'bot' || this.row.status !== 'playing') return null;
           const action = chooseBotAction(bot.strategy as never, viewFor(now.state, seat), this.patterns, `${now.id}:${seat}`);
-          if (!action) return false;
+          if (!action) return null;
           try {
-            await this.applyAct(now, seat, action, null);
-            return true;
+            return await this.applyAct(now, seat, action, null);
           } catch (err) {
             console.error(`Bot at ${seat} of table ${this.id} made a move the engine refused`, err);
-            return false;
+            return null;
           }
-        }).then((moved) => {
-          if (moved) this.hooks.changed(this);
-        });
+        })
+          .then((appended) => appended?.stored)
+          .catch((err) => console.error(`A bot's move at table ${this.id} was not stored`, err));
       }, this.hooks.botDelayMs);
       this.botTimers.set(seat, timer);
     }
@@ -386,9 +530,10 @@ export class TableMaster {
     return this.step.version;
   }
 
-  /** Resolves once every task queued so far has finished. */
-  idle(): Promise<void> {
-    return this.run(() => undefined);
+  /** Resolves once every task queued so far has finished and its events are stored. */
+  async idle(): Promise<void> {
+    await this.run(() => undefined);
+    await this.lastWrite;
   }
 
   close() {
@@ -426,14 +571,14 @@ export class TableMaster {
   /** Which engine view a viewer gets. */
   viewerKind(viewer: Member): Viewer {
     const seat = viewer.as === 'player' ? this.seatOf(viewer.userId) : null;
-    const live = this.exchange;
+    const live = this.shownExchange();
     if (live && live.state.phase === 'done' && (seat || this.isHost(viewer.userId))) return 'replay';
     if (this.isHost(viewer.userId) && this.row.options.teaching) return 'host';
     return seat ?? 'spectator';
   }
 
   stateFor(viewer: Member): TableStateDto {
-    const live = this.exchange;
+    const live = this.shownExchange();
     const mySeat = viewer.as === 'player' ? this.seatOf(viewer.userId) : null;
     const view = live ? viewFor(live.state, this.viewerKind(viewer)) : null;
     const seats = Object.fromEntries(
@@ -449,7 +594,7 @@ export class TableMaster {
     return {
       tableId: this.row.id,
       name: this.row.name,
-      version: this.version,
+      version: this.shownVersion,
       phase: live ? live.state.phase : 'lobby',
       status: this.row.status,
       hostId: this.row.hostId,
@@ -468,7 +613,7 @@ export class TableMaster {
 }
 
 /** Notes are for everyone at the table as they are written; a note on a seat is shown once that seat may be seen. */
-function notesFor(live: LiveExchange, _viewer: Viewer): HuddleNoteDto[] {
+function notesFor(live: { notes: HuddleNoteDto[] }, _viewer: Viewer): HuddleNoteDto[] {
   return live.notes;
 }
 

@@ -1,3 +1,4 @@
+import { noEventWriter } from '../db/event-writer';
 import { randomBytes, randomUUID } from 'node:crypto';
 import { Router, type Request } from 'express';
 import { Op } from 'sequelize';
@@ -12,7 +13,7 @@ import { drillNotFound, drillTableOptions, findOwnDrill, listNotYours } from '..
 import { mayUseList, patternsForTable } from '../teaching/pattern-source';
 import type { StoredTableOptions } from '../db/models';
 
-const noHooks = { changed: () => undefined, botDelayMs: 0 };
+const noHooks = { changed: () => undefined, botDelayMs: 0, events: noEventWriter };
 
 function seatedAt(row: TableRow, userId: number) {
   return SEATS.some((s) => {

@@ -26,7 +26,8 @@ const began = performance.now();
 const stage = (what: string) => console.error(`  … ${what} (${((performance.now() - began) / 1000).toFixed(1)} s)`);
 
 function start(script: string, env: Record<string, string>, ready: RegExp): Promise<{ child: ChildProcess; port: number }> {
-  const child = spawn(process.execPath, [...(script.startsWith('server') && process.env.PROFILE_SERVER ? ['--cpu-prof', '--cpu-prof-dir=/tmp/prof'] : []), '--import', 'tsx', script], { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'] });
+  const profile = script.startsWith('server') && process.env.PROFILE_SERVER ? ['--cpu-prof', '--cpu-prof-dir=/tmp/prof'] : [];
+  const child = spawn(process.execPath, [...profile, '--expose-gc', '--import', 'tsx', '--import', './tests/bench/gc-on-signal.ts', script], { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'] });
   return new Promise((resolve, reject) => {
     child.stdout!.on('data', (d: Buffer) => {
       const m = d.toString().match(ready);
@@ -39,6 +40,23 @@ function start(script: string, env: Record<string, string>, ready: RegExp): Prom
 function rssKb(pid: number): number {
   const line = readFileSync(`/proc/${pid}/status`, 'utf8').split('\n').find((l) => l.startsWith('VmRSS:'))!;
   return Number(line.replace(/\D+/g, ''));
+}
+
+/** Resident memory of a server after it has run a full garbage collection (see gc-on-signal.ts). */
+async function settledRssKb(child: ChildProcess): Promise<number> {
+  const collected = new Promise<void>((resolve) => {
+    const hear = (d: Buffer) => {
+      if (d.toString().includes('collected')) {
+        if (process.env.SHOW_HEAP) console.error(d.toString().trim());
+        child.stdout!.off('data', hear);
+        resolve();
+      }
+    };
+    child.stdout!.on('data', hear);
+  });
+  child.kill('SIGUSR2');
+  await collected;
+  return rssKb(child.pid!);
 }
 
 function percentile(sorted: number[], p: number) {
@@ -86,7 +104,7 @@ async function benchRackside() {
     /ready on http:\/\/localhost:(\d+)/,
   );
   const url = `http://127.0.0.1:${port}`;
-  const baseline = rssKb(child.pid!);
+  const baseline = await settledRssKb(child);
   let errors = 0;
 
   const people = Array.from({ length: TABLES * 4 }, (_, i) => `p${i}`);
@@ -128,7 +146,7 @@ async function benchRackside() {
     }
     tables.push(seats);
   });
-  const connected = rssKb(child.pid!);
+  const connected = await settledRssKb(child);
   stage(`seated ${TABLES * 4} connections`);
 
   const latencies: number[] = [];
@@ -211,7 +229,7 @@ async function benchRackside() {
   );
   const seconds = (performance.now() - t0) / 1000;
   stage(`played every exchange`);
-  const peak = rssKb(child.pid!);
+  const peak = await settledRssKb(child);
   tables.flat().forEach((s) => s.socket.disconnect());
   child.kill('SIGTERM');
   return { latency: summary(latencies), huddle: summary(huddleLatencies), resolved, seconds, errors, baseline, connected, peak };
@@ -220,6 +238,7 @@ async function benchRackside() {
 async function benchFloor() {
   const { child, port } = await start('tests/bench/bare-relay.ts', { PORT: '0' }, /bare relay ready on (\d+)/);
   const url = `http://127.0.0.1:${port}`;
+  const empty = await settledRssKb(child);
   const rooms: Socket[][] = [];
   const names: string[] = [];
   await inBatches(Array.from({ length: TABLES }, (_, t) => t), 10, async (t) => {
@@ -233,6 +252,7 @@ async function benchFloor() {
     rooms.push(room);
     names.push(`room-${t}`);
   });
+  const full = await settledRssKb(child);
   stage(`floor: ${rooms.length * 4} connections in rooms of four`);
   const latencies: number[] = [];
   const ROUNDS = 9;
@@ -249,7 +269,7 @@ async function benchFloor() {
   );
   rooms.flat().forEach((s) => s.disconnect());
   child.kill('SIGTERM');
-  return summary(latencies);
+  return { ...summary(latencies), perRoomKb: (full - empty) / TABLES };
 }
 
 const fmt = (ms: number) => `${ms.toFixed(2)} ms`;
@@ -267,8 +287,9 @@ try {
     ['passes resolved per second', (ours.resolved / ours.seconds).toFixed(1)],
     ['wall time of play', `${ours.seconds.toFixed(1)} s`],
     ['errors', String(ours.errors)],
-    ['server memory: started / all connected / at the end', `${(ours.baseline / 1024).toFixed(0)} / ${(ours.connected / 1024).toFixed(0)} / ${(ours.peak / 1024).toFixed(0)} MB`],
+    ['server memory after a full collection: started / all connected / at the end', `${(ours.baseline / 1024).toFixed(0)} / ${(ours.connected / 1024).toFixed(0)} / ${(ours.peak / 1024).toFixed(0)} MB`],
     ['server memory per table (end − start) / tables', `${((ours.peak - ours.baseline) / TABLES).toFixed(0)} KB`],
+    ['bare relay memory per room of four connections', `${floor.perRoomKb.toFixed(0)} KB`],
   ];
   const width = Math.max(...rows.map((r) => r[0].length));
   for (const [k, v] of rows) console.log(`${k.padEnd(width)}  ${v}`);

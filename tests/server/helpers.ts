@@ -17,7 +17,7 @@ export async function makeApp(overrides: Partial<Config> = {}) {
     config,
     sequelize,
     async dispose() {
-      application.close();
+      await application.close();
       await sequelize.close();
     },
   };

@@ -1,3 +1,4 @@
+import { noEventWriter } from '../../server/db/event-writer';
 import request from 'supertest';
 import { afterEach, beforeEach, expect, test } from 'vitest';
 import { TableRow, User } from '../../server/db/models';
@@ -73,7 +74,7 @@ test('a table opened from a drill deals its preset racks, keeps them off the wir
   expect(patterns.body.list).toMatchObject({ id: list.id, name: smallList.name, patterns: [{ id: 'harbor-01' }, { id: 'harbor-02' }] });
 
   // After a restart the table is rebuilt from its log with the same presets and the same list.
-  const rebuilt = await TableMaster.load((await TableRow.findByPk(table.id))!, { changed: () => undefined, botDelayMs: 0 });
+  const rebuilt = await TableMaster.load((await TableRow.findByPk(table.id))!, { changed: () => undefined, botDelayMs: 0, events: noEventWriter });
   expect(rebuilt.patterns.map((p) => p.id)).toEqual(['harbor-01', 'harbor-02']);
   expect(sorted(rackOf(rebuilt.exchange!.state, 'west').map((t) => t.kind))).toEqual(sorted(rackOf(master.exchange!.state, 'west').map((t) => t.kind)));
 });

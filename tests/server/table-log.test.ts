@@ -1,0 +1,79 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterEach, expect, test } from 'vitest';
+import { ExchangeEventRow } from '../../server/db/models';
+import type { TableStateDto } from '../../shared/protocol';
+import { SEATS } from '../../shared/seats';
+import { fullTable, liveServer, simpleAction, type Client, type Server } from './live';
+
+let server: Server | undefined;
+let clients: Client[] = [];
+let dir: string | undefined;
+afterEach(async () => {
+  clients.forEach((c) => c.socket.disconnect());
+  clients = [];
+  await server?.close();
+  server = undefined;
+  if (dir) rmSync(dir, { recursive: true, force: true });
+  dir = undefined;
+});
+
+async function fileServer() {
+  dir = mkdtempSync(join(tmpdir(), 'rackside-table-log-'));
+  return liveServer({ databaseUrl: `sqlite:${join(dir, 'rackside.sqlite')}` });
+}
+
+const inPhase = (phase: string) => (s: TableStateDto) => s.phase === phase;
+
+test('on a file database, four players finish an exchange; every acked move is in the log, in order, with no gaps', async () => {
+  server = await fileServer();
+  const { clients: four, host } = await fullTable(server);
+  clients = four;
+  await host.ok('table:start');
+  for (let turn = 0; turn < 12; turn++) {
+    const states = await Promise.all(four.map((c) => c.until((s) => s.phase === 'done' || (s.view !== null && simpleAction(s, { ask: 1 }) !== null))));
+    if (states[0].phase === 'done') break;
+    // All four at once, as fast as they can: the table takes them in one stored group.
+    const acks = await Promise.all(four.map((c, i) => c.emit('exchange:act', { action: simpleAction(states[i], { ask: 1 }) })));
+    expect(acks.every((a) => a.ok)).toBe(true);
+    // An ack comes after the state that shows the move: the acting seat already holds it.
+    four.forEach((c, i) => {
+      const seat = SEATS[i];
+      const latest = c.state;
+      expect(latest.version).toBeGreaterThanOrEqual(Number(acks[i].version));
+      expect(latest.view!.history.length > states[i].view!.history.length || latest.view!.seats[seat].committed || latest.phase !== states[i].phase).toBe(true);
+    });
+  }
+  await Promise.all(four.map((c) => c.until(inPhase('done'))));
+  const events = await ExchangeEventRow.findAll({ where: { exchangeId: host.state.exchangeId! }, order: [['seq', 'ASC']] });
+  expect(events.map((e) => e.seq)).toEqual(events.map((_, i) => i));
+  expect(events.at(-1)!.type).toBe('resolve');
+});
+
+test('when another writer took the next place in the log, the table reads its log again and the move is tried once more', async () => {
+  server = await fileServer();
+  const { clients: four, host } = await fullTable(server);
+  clients = four;
+  await host.ok('table:start');
+  const [east, south] = four;
+  const southState = await south.until(inPhase('first-right'));
+  const exchangeId = host.state.exchangeId!;
+  // Another process stores south's pass at the next place of the log behind this one's back.
+  const next = await ExchangeEventRow.count({ where: { exchangeId } });
+  await ExchangeEventRow.create({ exchangeId, seq: next, type: 'act', seat: 'south', payload: simpleAction(southState), userId: null });
+  // East's move finds its place taken, the table rebuilds from the log (south's pass included) and takes east's move after it.
+  const eastState = await east.until(inPhase('first-right'));
+  const ack = await east.emit('exchange:act', { action: simpleAction(eastState) });
+  expect(ack).toMatchObject({ ok: true });
+  const after = await east.until((s) => s.view!.seats.east.committed && s.view!.seats.south.committed);
+  expect(after.phase).toBe('first-right');
+  const events = await ExchangeEventRow.findAll({ where: { exchangeId }, order: [['seq', 'ASC']] });
+  expect(events.map((e) => [e.seq, e.seat])).toEqual([
+    [next, 'south'],
+    [next + 1, 'east'],
+  ]);
+  // South's own resend is now refused: the log already holds its pass.
+  const again = await south.emit('exchange:act', { action: simpleAction(southState) });
+  expect(again).toMatchObject({ ok: false, code: 'ALREADY_COMMITTED' });
+});
