@@ -48,10 +48,10 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   let draining = false;
   const passport = createPassport();
   const onLogout = new Set<(sessionId: string) => void>();
-  const onTableChange = new Set<(master: TableMaster) => void>();
+  const onTableChange = new Set<(master: TableMaster, fromPeer?: boolean) => void>();
   // One owner per table, shared by the REST routes and the sockets.
   const events = createEventWriter(sequelize);
-  const registry = new TableRegistry({ botDelayMs: config.botDelayMs, events, changed: (master) => onTableChange.forEach((fn) => fn(master)) });
+  const registry = new TableRegistry({ botDelayMs: config.botDelayMs, events, changed: (master, fromPeer) => onTableChange.forEach((fn) => fn(master, fromPeer)) });
 
   const teaching = teachingRoutes({ config, sequelize, registry, tableChanged: (master) => onTableChange.forEach((fn) => fn(master)) });
 
@@ -94,7 +94,7 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
     onLogout: (fn: (sessionId: string) => void) => onLogout.add(fn),
     registry,
     /** Lets the realtime layer hear of every stored table change. */
-    onTableChange: (fn: (master: TableMaster) => void) => onTableChange.add(fn),
+    onTableChange: (fn: (master: TableMaster, fromPeer?: boolean) => void) => onTableChange.add(fn),
     logger,
     /** Readiness goes false once shutdown begins, so a load balancer stops sending new work. */
     drain: () => {

@@ -33,6 +33,7 @@ export async function startServer(givenConfig: Config) {
     await io.drain(config.shutdownGraceMs);
     await registry.closeAll();
     await io.close();
+    await io.closePeers();
     await application.close();
     await fakes.close();
     await sequelize.close();

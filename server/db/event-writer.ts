@@ -67,7 +67,18 @@ interface Entry {
 
 type Run = (sql: string, params?: unknown[]) => Promise<void>;
 
-const isConflict = (err: unknown) => /UNIQUE constraint failed/i.test(String((err as Error)?.message));
+/** SQLite's and PostgreSQL's words for a unique key refusing a row. */
+const isConflict = (err: unknown) => (err as { code?: string })?.code === '23505' || /UNIQUE constraint failed|duplicate key value/i.test(String((err as Error)?.message));
+
+export interface GroupOptions {
+  /** How a group's transaction starts. */
+  begin: string;
+  /**
+   * PostgreSQL ends a whole transaction at the first failed statement, so each insert gets a
+   * savepoint there, and a refused one is rolled back to it while the rest of the group goes on.
+   */
+  savepoints: boolean;
+}
 
 /** Groups appends and writes them through `run`; `transactions` says whether a group is one transaction. */
 export class GroupWriter implements EventWriter {
@@ -79,6 +90,7 @@ export class GroupWriter implements EventWriter {
     private readonly run: Run,
     private readonly transactions: boolean,
     private readonly onClose: () => Promise<void> = async () => undefined,
+    private readonly options: GroupOptions = { begin: 'BEGIN IMMEDIATE', savepoints: false },
   ) {}
 
   append(record: EventRecord, hooks: AppendHooks = {}): Promise<void> {
@@ -103,7 +115,7 @@ export class GroupWriter implements EventWriter {
     const failedExchange = new Map<string, Error>();
     const written: Entry[] = [];
     try {
-      if (this.transactions) await this.run('BEGIN IMMEDIATE');
+      if (this.transactions) await this.run(this.options.begin);
       for (const entry of group) {
         const { record } = entry;
         const earlier = failedExchange.get(record.exchangeId);
@@ -116,10 +128,14 @@ export class GroupWriter implements EventWriter {
           failedExchange.set(record.exchangeId, entry.error);
           continue;
         }
+        const savepoint = this.transactions && this.options.savepoints;
         try {
+          if (savepoint) await this.run('SAVEPOINT event');
           await this.run(INSERT, [record.exchangeId, record.seq, record.type, record.seat, record.payload, record.userId, record.createdAt]);
+          if (savepoint) await this.run('RELEASE SAVEPOINT event');
           written.push(entry);
         } catch (err) {
+          if (savepoint) await this.run('ROLLBACK TO SAVEPOINT event');
           entry.error = isConflict(err)
             ? new EventNotStored(`Event ${record.seq} of exchange ${record.exchangeId} is already taken.`, true)
             : new EventNotStored(`Event ${record.seq} of exchange ${record.exchangeId} could not be written: ${(err as Error).message}`, false);
@@ -169,6 +185,7 @@ function promisedRun(db: { run(sql: string, params: unknown[], done: (err: Error
  * An in-memory database has only the one connection, so its events are written one by one on it.
  */
 export function createEventWriter(sequelize: Sequelize): EventWriter {
+  if (sequelize.getDialect() === 'postgres') return postgresWriter(sequelize);
   const storage = ((sequelize as unknown as { options: { storage?: string } }).options).storage ?? ':memory:';
   if (storage === ':memory:' || storage === '') {
     const manager = sequelize.connectionManager as unknown as { getConnection(options: object): Promise<Parameters<typeof promisedRun>[0]> };
@@ -188,5 +205,48 @@ export function createEventWriter(sequelize: Sequelize): EventWriter {
     async (sql, params) => (await ready)(sql, params),
     true,
     () => new Promise<void>((resolve) => (db ? db.close(() => resolve()) : resolve())),
+  );
+}
+
+interface PgClient {
+  query(text: string, values?: unknown[]): Promise<unknown>;
+}
+
+/** `?` placeholders as PostgreSQL writes them: $1, $2, … */
+const numbered = (sql: string) => {
+  let n = 0;
+  return sql.replace(/\?/g, () => `$${++n}`);
+};
+
+/**
+ * On PostgreSQL the writer keeps one connection of the pool for itself (a group's transaction must
+ * stay on one connection). If that connection breaks, the group fails and the next group takes a
+ * fresh one.
+ */
+function postgresWriter(sequelize: Sequelize): EventWriter {
+  const manager = sequelize.connectionManager as unknown as { getConnection(options: object): Promise<PgClient>; releaseConnection(c: PgClient): Promise<void> };
+  let held: Promise<PgClient> | null = null;
+  const connection = () => (held ??= manager.getConnection({ type: 'write' }));
+  const run: Run = async (sql, params = []) => {
+    const client = await connection();
+    try {
+      await client.query(numbered(sql), params);
+    } catch (err) {
+      // A statement refused by the database keeps the connection; a broken connection is let go.
+      if (!(err as { code?: string }).code) {
+        held = null;
+        manager.releaseConnection(client).catch(() => undefined);
+      }
+      throw err;
+    }
+  };
+  return new GroupWriter(
+    run,
+    true,
+    async () => {
+      if (held) await manager.releaseConnection(await held).catch(() => undefined);
+      held = null;
+    },
+    { begin: 'BEGIN', savepoints: true },
   );
 }

@@ -3,6 +3,8 @@ import { ServerResponse, type Server as HttpServer } from 'node:http';
 import { EventEmitter } from 'node:events';
 import type { RequestHandler, Response } from 'express';
 import { Server, type Socket } from 'socket.io';
+import { createAdapter } from '@socket.io/redis-adapter';
+import { Redis } from 'ioredis';
 import { clientEventSchemas, type Ack, type ClientEventName, type ClientToServerEvents, type ServerToClientEvents } from '../../shared/protocol';
 import type { Application } from '../app';
 import { TableError, type Member, type TableMaster } from './table-master';
@@ -24,6 +26,22 @@ interface SocketData {
 type RacksideSocket = Socket<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
 
 const room = (tableId: string) => `table:${tableId}`;
+
+/** The two Redis connections the adapter needs (one publishes, one listens); errors are logged, and ioredis reconnects. */
+function connectRedis(url: string, application: Application) {
+  const pub = new Redis(url, { maxRetriesPerRequest: 2 });
+  const sub = pub.duplicate();
+  for (const [name, client] of [['publish', pub], ['subscribe', sub]] as const) {
+    client.on('error', (err: Error) => application.logger.error({ connection: name, error: err.message }, 'redis connection error'));
+  }
+  return {
+    pub,
+    sub,
+    close: async () => {
+      await Promise.allSettled([pub.quit(), sub.quit()]);
+    },
+  };
+}
 
 /** A response for middleware to write to during a WebSocket upgrade: nothing it writes goes anywhere. */
 function upgradeStandIn() {
@@ -87,7 +105,28 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
   let closing = false;
   let inFlight = 0;
   let settled: (() => void) | null = null;
-  application.onTableChange((master) => broadcast(master, false));
+  // Several processes: Socket.IO's Redis adapter carries room emits and server-side notices between them.
+  const redis = config.redisUrl ? connectRedis(config.redisUrl, application) : null;
+  if (redis) io.adapter(createAdapter(redis.pub, redis.sub));
+
+  /** Tells the other processes that a table changed in the database, so that they catch up and show it. */
+  function tellPeers(master: TableMaster) {
+    if (redis) io.serverSideEmit('table:moved', master.id);
+  }
+  if (redis) {
+    (io as unknown as { on(event: 'table:moved', fn: (tableId: string) => void): void }).on('table:moved', (tableId) => {
+      if (typeof tableId !== 'string') return;
+      registry
+        .peek(tableId)
+        .then((master) => master?.catchUp())
+        .catch((err) => application.logger.error({ err, tableId }, 'catching up with another process failed'));
+    });
+  }
+
+  application.onTableChange((master, fromPeer) => {
+    broadcast(master, false);
+    if (!fromPeer) tellPeers(master);
+  });
 
   function member(socket: RacksideSocket): Member {
     return { userId: socket.data.userId, displayName: socket.data.displayName, as: socket.data.as ?? 'player', isAdmin: socket.data.isAdmin };
@@ -117,7 +156,6 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       if (n > 0) master.connected.set(socket.data.userId, n);
       else master.connected.delete(socket.data.userId);
     }
-    master.version += 1;
   }
 
   async function leaveTable(socket: RacksideSocket) {
@@ -174,10 +212,15 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       return master;
     }
 
-    /** Waits until the change is stored, makes sure the viewers have it, then the caller acks. */
-    async function after(master: TableMaster, work: Promise<unknown>) {
+    /**
+     * Waits until the change is stored, makes sure the viewers have it, then the caller acks. An
+     * exchange action's stored group has already been shown and told (through the change hook), so
+     * it is only sent again if that has not happened; any other change is sent and told here.
+     */
+    async function after(master: TableMaster, work: Promise<unknown>, hot = false) {
       await work;
-      broadcast(master, false);
+      broadcast(master, !hot);
+      if (!hot) tellPeers(master);
       return { version: master.shownVersion };
     }
 
@@ -190,6 +233,9 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
         throw new TableError('INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
       }
       if (socket.data.tableId) await leaveTable(socket);
+      // With other processes about, this one's copy of the table may be behind (its player may come
+      // from a process that just died): read the table again before showing it.
+      if (redis) await master.catchUp();
       socket.data.tableId = tableId;
       socket.data.as = as;
       await socket.join(room(tableId));
@@ -216,7 +262,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     });
     on('exchange:act', async ({ action, version }) => {
       const master = await joined();
-      return after(master, master.act(member(socket), action, version));
+      return after(master, master.act(member(socket), action, version), true);
     });
     on('huddle:call', async () => {
       const master = await joined();
@@ -287,5 +333,10 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     if (inFlight > 0) await new Promise<void>((resolve) => (settled = resolve));
   }
 
-  return Object.assign(io, { drain });
+  /** Closes the connections to Redis, once the sockets are closed. */
+  async function closePeers() {
+    await redis?.close();
+  }
+
+  return Object.assign(io, { drain, closePeers });
 }

@@ -11,6 +11,7 @@ import { act, canResolve, createExchange, isPassPhase, rackOf, resolve, viewFor 
 import type { Action, ExchangeOptions, ExchangeState, Viewer } from '../../shared/exchange/types';
 import type { HuddleNoteDto, SeatOccupant, SeatStateDto, TableDto, TableOptions, TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
+import { OptimisticLockError } from 'sequelize';
 import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredSeats, type StoredTableOptions } from '../db/models';
 import { patternsForTable } from '../teaching/pattern-source';
 import { EventNotStored, type EventWriter } from '../db/event-writer';
@@ -65,15 +66,23 @@ interface Appended {
 const closedHuddle = (): Huddle => ({ open: false, revealed: [], heldAt: null });
 
 export interface MasterHooks {
-  /** Called after every change, once it is stored: the transport sends each viewer its view. */
-  changed(master: TableMaster): void;
+  /**
+   * Called after every change, once it is stored: the transport sends each viewer its view, and
+   * tells the other processes (unless the change came from one of them: `fromPeer`).
+   */
+  changed(master: TableMaster, fromPeer?: boolean): void;
   botDelayMs: number;
   /** Where exchange events are stored, in groups. */
   events: EventWriter;
 }
 
+/** Refusals that mean another process got there first: the table reloads, and the task is tried once more. */
+const CONFLICTS = new Set(['LOG_CONFLICT', 'ROW_CONFLICT']);
+
+/** Room for the events of one exchange inside a version number. */
+const EVENTS_PER_REVISION = 100_000;
+
 export class TableMaster {
-  version = 0;
   exchange: LiveExchange | null = null;
   private queue: Promise<unknown> = Promise.resolve();
   private botTimers = new Map<Seat, NodeJS.Timeout>();
@@ -134,7 +143,6 @@ export class TableMaster {
         const events = await ExchangeEventRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['seq', 'ASC']] });
         const notes = await HuddleNoteRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['id', 'ASC']] });
         master.exchange = rebuild(exchangeRow, events, notes.map(noteDto));
-        master.version = events.length + 1;
         master.showLive();
         master.patterns = (await patternsForTable(row.options.patternListId)).patterns;
       }
@@ -142,8 +150,9 @@ export class TableMaster {
     return master;
   }
 
-  /** After a failed write: the in-memory state ran ahead of the log, so read the log again. */
-  private async reload() {
+  /** After a failed write, or when another process moved the table on: read the row and the log again. */
+  private async reload(fromPeer = false) {
+    await this.lastWrite;
     const row = await TableRow.findByPk(this.row.id);
     if (row) this.row = row;
     const exchangeRow = this.row.currentExchangeId ? await ExchangeRow.findByPk(this.row.currentExchangeId) : null;
@@ -152,18 +161,40 @@ export class TableMaster {
       const notes = await HuddleNoteRow.findAll({ where: { exchangeId: exchangeRow.id }, order: [['id', 'ASC']] });
       this.exchange = rebuild(exchangeRow, events, notes.map(noteDto));
     }
-    // Versions only grow, so no client takes the rebuilt state for an old one.
-    this.version += 1;
     this.pending = 0;
     this.broken = false;
     this.showLive();
-    this.hooks.changed(this);
+    this.hooks.changed(this, fromPeer);
+    // A process that stored a pass's last choice may have died before storing its resolve: settle what is due.
+    const live = this.exchange;
+    if (live && this.row.status === 'playing') {
+      try {
+        const settled = this.settle(live);
+        if (settled) await (await this.finishIfDone(live, settled)).stored;
+      } catch (err) {
+        if (!(err instanceof TableError && CONFLICTS.has(err.code))) console.error(`Table ${this.id} could not settle after reading its log`, err);
+      }
+    }
+  }
+
+  /** Another process stored a change to this table: catch up from the database, then show it here. */
+  catchUp(): Promise<void> {
+    return this.run(() => this.reload(true));
   }
 
   /** Nothing is waiting to be stored: what the table holds is what it shows. */
   private showLive() {
     const live = this.exchange;
     this.shown = live ? { exchangeId: live.id, state: live.state, huddle: live.huddle, version: this.version } : null;
+  }
+
+  /**
+   * A table's version comes from what is stored: the row's revision and the number of events of
+   * its exchange. Every process serving the table therefore gives the same state the same version,
+   * and a client that moves to another process never takes a newer state there for an older one.
+   */
+  get version(): number {
+    return (this.row.revision ?? 0) * EVENTS_PER_REVISION + (this.exchange?.seq ?? 0);
   }
 
   /** The version a viewer is shown: the live one once everything is stored. */
@@ -206,7 +237,11 @@ export class TableMaster {
 
   // ───────────── seats and start ─────────────
 
-  sit(viewer: Member, seat: Seat) {
+  sit(viewer: Member, seat: Seat): Promise<void> {
+    return this.retried(() => this.sitOnce(viewer, seat));
+  }
+
+  private sitOnce(viewer: Member, seat: Seat): Promise<void> {
     return this.run(async () => {
       if (viewer.as !== 'player') throw new TableError('SPECTATOR', 'You joined to watch. Join as a player to take a seat.');
       this.requireSeatChangesAllowed();
@@ -221,7 +256,11 @@ export class TableMaster {
     });
   }
 
-  stand(viewer: Member) {
+  stand(viewer: Member): Promise<void> {
+    return this.retried(() => this.standOnce(viewer));
+  }
+
+  private standOnce(viewer: Member): Promise<void> {
     return this.run(async () => {
       this.requireSeatChangesAllowed();
       const current = this.seatOf(viewer.userId);
@@ -230,7 +269,11 @@ export class TableMaster {
     });
   }
 
-  seatBot(viewer: Member, seat: Seat, strategy: string) {
+  seatBot(viewer: Member, seat: Seat, strategy: string): Promise<void> {
+    return this.retried(() => this.seatBotOnce(viewer, seat, strategy));
+  }
+
+  private seatBotOnce(viewer: Member, seat: Seat, strategy: string): Promise<void> {
     return this.run(async () => {
       this.requireHost(viewer);
       if (!isBotStrategyId(strategy)) throw new TableError('BAD_INPUT', 'Unknown bot strategy.');
@@ -246,7 +289,11 @@ export class TableMaster {
     });
   }
 
-  start(viewer: Member) {
+  start(viewer: Member): Promise<void> {
+    return this.retried(() => this.startOnce(viewer));
+  }
+
+  private startOnce(viewer: Member): Promise<void> {
     return this.run(async () => {
       this.requireHost(viewer);
       if (this.row.status === 'playing') throw new TableError('EXCHANGE_UNDER_WAY', 'An exchange is already under way.');
@@ -285,7 +332,11 @@ export class TableMaster {
   }
 
   /** The host changes what players are shown, at any time: advice on or off. */
-  setAdvice(viewer: Member, hidden: boolean) {
+  setAdvice(viewer: Member, hidden: boolean): Promise<void> {
+    return this.retried(() => this.setAdviceOnce(viewer, hidden));
+  }
+
+  private setAdviceOnce(viewer: Member, hidden: boolean): Promise<void> {
     return this.run(async () => {
       this.requireHost(viewer);
       if (this.row.options.hideAdvice === hidden) return;
@@ -301,8 +352,17 @@ export class TableMaster {
    * the action is checked once more against that state: accepted if it still applies, refused if not.
    */
   act(viewer: Member, action: Action, version?: number): Promise<void> {
-    return this.actOnce(viewer, action, version).catch((err) => {
-      if (err instanceof TableError && err.code === 'LOG_CONFLICT') return this.actOnce(viewer, action, version);
+    return this.retried(() => this.actOnce(viewer, action, version));
+  }
+
+  /**
+   * Runs a table task, and once more if another process changed the table first (its event took
+   * the log place, or its save raised the row's revision): by then the table has read the database
+   * again, so the retry is checked against what is really stored. A second conflict is refused.
+   */
+  private retried(task: () => Promise<void>): Promise<void> {
+    return task().catch((err) => {
+      if (err instanceof TableError && CONFLICTS.has(err.code)) return task();
       throw err;
     });
   }
@@ -368,12 +428,21 @@ export class TableMaster {
 
   private async finish(live: LiveExchange) {
     await ExchangeRow.update({ status: 'done', finishedAt: new Date() }, { where: { id: live.id } });
-    await this.saveRow({ status: 'done' });
+    try {
+      await this.saveRow({ status: 'done' });
+    } catch (err) {
+      // Another process that serves this table marked it done first: nothing is lost.
+      if (!(err instanceof TableError && err.code === 'ROW_CONFLICT')) throw err;
+    }
   }
 
   // ───────────── the huddle ─────────────
 
   callHuddle(viewer: Member): Promise<void> {
+    return this.retried(() => this.callHuddleOnce(viewer));
+  }
+
+  private callHuddleOnce(viewer: Member): Promise<void> {
     return this.run(async (): Promise<Appended> => {
       this.requireHost(viewer);
       const live = this.requireExchange();
@@ -384,6 +453,10 @@ export class TableMaster {
   }
 
   reveal(viewer: Member, seat: Seat): Promise<void> {
+    return this.retried(() => this.revealOnce(viewer, seat));
+  }
+
+  private revealOnce(viewer: Member, seat: Seat): Promise<void> {
     return this.run(async (): Promise<Appended> => {
       this.requireHost(viewer);
       const live = this.requireExchange();
@@ -407,11 +480,14 @@ export class TableMaster {
         text,
       });
       live.notes = [...live.notes, noteDto(row)];
-      this.version += 1;
     });
   }
 
   release(viewer: Member): Promise<void> {
+    return this.retried(() => this.releaseOnce(viewer));
+  }
+
+  private releaseOnce(viewer: Member): Promise<void> {
     return this.run(async (): Promise<Appended> => {
       this.requireHost(viewer);
       const live = this.requireExchange();
@@ -436,7 +512,6 @@ export class TableMaster {
     live.huddle = huddle;
     const seq = live.seq;
     live.seq += 1;
-    this.version += 1;
     this.noteStep();
     const snapshot: Shown = { exchangeId: live.id, state, huddle, version: this.version };
     const epoch = this.epoch;
@@ -481,8 +556,15 @@ export class TableMaster {
   }
 
   private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId' | 'options'>>) {
-    await this.row.update(changes);
-    this.version += 1;
+    try {
+      await this.row.update(changes);
+    } catch (err) {
+      if (!(err instanceof OptimisticLockError)) throw err;
+      // Saved from an out-of-date copy: another process changed the row. Read it again before the next task.
+      await this.row.reload().catch(() => undefined);
+      this.broken = true;
+      throw new TableError('ROW_CONFLICT', 'The table changed elsewhere just now. Look at it again and retry.');
+    }
   }
 
   // ───────────── bots ─────────────

@@ -20,6 +20,8 @@ export class TableRow extends Model<InferAttributes<TableRow>, InferCreationAttr
   declare status: TableStatus;
   declare seats: StoredSeats;
   declare currentExchangeId: string | null;
+  /** Raised by every save; a save from an out-of-date copy is refused (see migration 0006). */
+  declare revision: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -37,9 +39,10 @@ export function initTable(sequelize: Sequelize) {
       status: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'lobby' },
       seats: { type: DataTypes.JSON, allowNull: false },
       currentExchangeId: { type: DataTypes.STRING(36), allowNull: true },
+      revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'Tables' },
+    { sequelize, tableName: 'Tables', version: 'revision' },
   );
 }

@@ -1,0 +1,253 @@
+/**
+ * Several Rackside processes on one database, fanning out through one Redis: real processes, a real
+ * redis-server, and SQLite or a real PostgreSQL server, all on loopback.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { createConnection, createServer, type Server as NetServer, type Socket as NetSocket } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { io as connect } from 'socket.io-client';
+import request from 'supertest';
+import { afterAll, afterEach, beforeAll, describe, expect, test } from 'vitest';
+import type { Action } from '../../shared/exchange/types';
+import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
+import { SEATS } from '../../shared/seats';
+import { freePort, startPostgres, startRedis, type Running, type RunningPostgres } from './backing-servers';
+import { Client, simpleAction } from './live';
+
+let redis: Running;
+let postgres: RunningPostgres;
+const running: ChildProcess[] = [];
+const folders: string[] = [];
+const openClients: Client[] = [];
+const balancers: NetServer[] = [];
+
+beforeAll(async () => {
+  [redis, postgres] = await Promise.all([startRedis(), startPostgres()]);
+}, 60_000);
+
+afterEach(() => {
+  openClients.splice(0).forEach((c) => c.socket.disconnect());
+  running.splice(0).forEach((p) => p.exitCode === null && p.kill('SIGKILL'));
+  balancers.splice(0).forEach((b) => b.close());
+});
+
+afterAll(async () => {
+  await Promise.allSettled([redis?.stop(), postgres?.stop()]);
+  folders.forEach((f) => rmSync(f, { recursive: true, force: true }));
+});
+
+interface Proc {
+  child: ChildProcess;
+  url: string;
+  port: number;
+}
+
+/** One Rackside process, as it runs in production: its own port, the shared database and Redis. */
+async function rackside(databaseUrl: string): Promise<Proc> {
+  const port = await freePort();
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: { ...process.env, PORT: String(port), DATABASE_URL: databaseUrl, REDIS_URL: redis.url, BCRYPT_ROUNDS: '4', SESSION_SECRET: 'shared-by-every-process', SEED_DEMO: 'false', BOT_DELAY_MS: '0', CLIENT_DIR: 'none', LOG_LEVEL: 'error' },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  running.push(child);
+  await new Promise<void>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error('a Rackside process did not start')), 30_000);
+    child.stdout!.on('data', (d: Buffer) => {
+      if (d.toString().includes('ready on')) {
+        clearTimeout(timer);
+        resolve();
+      }
+    });
+    child.stderr!.on('data', (d: Buffer) => process.stderr.write(d));
+    child.once('exit', (code) => reject(new Error(`a Rackside process exited with ${code}`)));
+  });
+  return { child, port, url: `http://127.0.0.1:${port}` };
+}
+
+/** Two processes on one database. The first runs the migrations before the second starts. */
+async function twoProcesses(databaseUrl: string) {
+  const a = await rackside(databaseUrl);
+  const b = await rackside(databaseUrl);
+  return [a, b] as const;
+}
+
+const databases = {
+  sqlite: () => {
+    const dir = mkdtempSync(join(tmpdir(), 'rackside-two-'));
+    folders.push(dir);
+    return `sqlite:${join(dir, 'shared.sqlite')}`;
+  },
+  postgres: () => postgres.newDatabase(`rackside_${Date.now()}_${Math.floor(Math.random() * 1e6)}`),
+};
+
+async function register(url: string, name: string) {
+  const res = await request(url).post('/api/auth/register').send({ email: `${name}@harborlane.test`, password: 'tiles-and-tea', displayName: name });
+  if (res.status !== 201) throw new Error(`register ${name}: ${res.status} ${JSON.stringify(res.body)}`);
+  return (res.headers['set-cookie'] as unknown as string[])[0].split(';')[0];
+}
+
+function socketTo(url: string, cookie: string, reconnect: boolean) {
+  return connect(url, { transports: ['websocket'], reconnection: reconnect, reconnectionDelay: 100, reconnectionDelayMax: 300, extraHeaders: { Cookie: cookie } });
+}
+
+/** A client that joins (and rejoins after any drop) and plays as fast as it is answered; it keeps what was acked. */
+function autoPlayer(name: string, cookie: string, url: string, tableId: string, reconnect = false) {
+  const socket = socketTo(url, cookie, reconnect);
+  const c = new Client(name, cookie, socket);
+  openClients.push(c);
+  const acked: Action[] = [];
+  const seen = { connects: 0 };
+  let busy = false;
+  async function tick() {
+    const s = c.states[c.states.length - 1];
+    if (busy || !s?.view || s.phase === 'done' || !socket.connected) return;
+    const action = simpleAction(s, { blind: 1, stop: false, ask: 1 });
+    if (!action) return;
+    busy = true;
+    try {
+      const ack = await c.emit('exchange:act', { action, version: s.version });
+      if (ack.ok) acked.push(action);
+    } catch {
+      // No answer (the process died): not acknowledged, so nothing is promised.
+    } finally {
+      busy = false;
+      setTimeout(tick, 5);
+    }
+  }
+  socket.on('connect', () => {
+    seen.connects += 1;
+    void c.emit('table:join', { tableId, as: 'player' }).catch(() => undefined);
+  });
+  socket.on('table:state', () => void tick());
+  return { c, acked, seen };
+}
+
+/** Four people, a table, everyone seated: east and south through the first URL, west and north through the second. */
+async function seatedTable(urls: [string, string]) {
+  const names = ['ines', 'theo', 'mina', 'ruth'].map((n) => `${n}${Math.floor(Math.random() * 1e6)}`);
+  const cookies: string[] = [];
+  for (const n of names) cookies.push(await register(urls[0], n));
+  const table = (await request(urls[1]).post('/api/tables').set('Cookie', cookies[0]).send({ name: 'Harbor Lane, two rooms', options: { seed: 'harbor-lane-week-09' } })).body.table as { id: string };
+  for (const [i, cookie] of cookies.entries()) {
+    const c = new Client(names[i], cookie, socketTo(urls[i < 2 ? 0 : 1], cookie, false));
+    openClients.push(c);
+    await c.ok('table:join', { tableId: table.id, as: 'player' });
+    await c.ok('table:sit', { seat: SEATS[i] });
+  }
+  openClients.splice(0).forEach((c) => c.socket.disconnect());
+  return { names, cookies, table };
+}
+
+async function replayOf(url: string, cookie: string, exchangeId: string) {
+  const res = await request(url).get(`/api/exchanges/${exchangeId}/replay`).set('Cookie', cookie);
+  expect(res.status).toBe(200);
+  return res.body.replay as ExchangeReplayDto;
+}
+
+function expectAckedInLog(replay: ExchangeReplayDto, players: { c: Client; acked: Action[] }[]) {
+  for (const [i, p] of players.entries()) {
+    const logged = replay.log.flatMap((e) => ('seat' in e && e.seat === SEATS[i] ? [JSON.stringify(e.action)] : []));
+    let at = 0;
+    for (const a of p.acked) {
+      at = logged.indexOf(JSON.stringify(a), at);
+      expect(at, `${p.c.name}: ${JSON.stringify(a)} is in the log`).toBeGreaterThanOrEqual(0);
+      at += 1;
+    }
+  }
+}
+
+/** A plain TCP balancer in front of the processes: each new connection goes to the next process that answers. */
+async function balancer(ports: number[]) {
+  let next = 0;
+  const server = createServer((incoming: NetSocket) => {
+    incoming.pause();
+    const tryPort = (left: number) => {
+      if (left === 0) return incoming.destroy();
+      const port = ports[next++ % ports.length];
+      const outgoing = createConnection({ port, host: '127.0.0.1' });
+      let joined = false;
+      outgoing.once('connect', () => {
+        joined = true;
+        incoming.pipe(outgoing).pipe(incoming);
+        incoming.once('error', () => outgoing.destroy());
+        incoming.once('close', () => outgoing.destroy());
+        outgoing.once('close', () => incoming.destroy());
+        incoming.resume();
+      });
+      // A process that refuses the connection is skipped; one that dies later ends the client's connection too.
+      outgoing.once('error', () => (joined ? incoming.destroy() : tryPort(left - 1)));
+    };
+    tryPort(ports.length);
+  });
+  balancers.push(server);
+  const port = await new Promise<number>((resolve) => server.listen(0, '127.0.0.1', () => resolve((server.address() as { port: number }).port)));
+  return `http://127.0.0.1:${port}`;
+}
+
+describe.each(Object.keys(databases) as (keyof typeof databases)[])('two processes on %s with one Redis', (kind) => {
+  test('four players, two on each process, finish an exchange; every one of them sees every step; the log is complete', async () => {
+    const [a, b] = await twoProcesses(databases[kind]());
+    const { names, cookies, table } = await seatedTable([a.url, b.url]);
+    const players = names.map((n, i) => autoPlayer(n, cookies[i], i < 2 ? a.url : b.url, table.id));
+    await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby')));
+    await players[0].c.ok('table:start');
+    await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 30_000)));
+    const steps = players[0].c.state.view!.history.length;
+    for (const p of players) {
+      // Each client held every step: a state at every number of resolved passes from 0 to the end.
+      const seen = new Set(p.c.states.flatMap((s) => (s.view ? [s.view.history.length] : [])));
+      expect([...seen].sort((x, y) => x - y)).toEqual(Array.from({ length: steps + 1 }, (_, i) => i));
+      expect(p.c.state.myRack.length).toBe(p.c.state.mySeat === 'east' ? 14 : 13);
+    }
+    // Either process serves the replay, and it holds every acked action.
+    const replay = await replayOf(b.url, cookies[0], players[0].c.state.exchangeId!);
+    expect(replay.log.filter((e) => 'resolve' in e || !('seat' in e)).length).toBeGreaterThan(0);
+    expectAckedInLog(replay, players);
+    expect(players.every((p) => p.acked.length > 0)).toBe(true);
+  }, 90_000);
+
+  test('SIGKILL one process mid-exchange: its players reconnect through the balancer to the other by themselves, and nothing acked is lost', async () => {
+    const [a, b] = await twoProcesses(databases[kind]());
+    const front = await balancer([a.port, b.port]);
+    const { names, cookies, table } = await seatedTable([a.url, b.url]);
+    const players = names.map((n, i) => autoPlayer(n, cookies[i], front, table.id, true));
+    await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby')));
+    await players[0].c.ok('table:start');
+    await players[0].c.until((s) => (s.view?.history.length ?? 0) >= 2, 20_000);
+    a.child.kill('SIGKILL');
+    await new Promise((resolve) => a.child.once('exit', resolve));
+    await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 45_000)));
+    // The balancer gave the first process half of the players; they came back through it, to the second.
+    expect(players.filter((p) => p.seen.connects > 1).length).toBe(2);
+    const replay = await replayOf(b.url, cookies[0], players[0].c.state.exchangeId!);
+    expectAckedInLog(replay, players);
+    const resolves = replay.log.filter((e) => !('seat' in e)).length;
+    expect(resolves).toBeGreaterThanOrEqual(players[0].c.state.view!.history.length);
+  }, 120_000);
+
+  test('one seat sends two different choices at the same instant, one to each process: exactly one is accepted', async () => {
+    const [a, b] = await twoProcesses(databases[kind]());
+    const { names, cookies, table } = await seatedTable([a.url, b.url]);
+    const east = [new Client(names[0], cookies[0], socketTo(a.url, cookies[0], false)), new Client(names[0], cookies[0], socketTo(b.url, cookies[0], false))];
+    const host = east[0];
+    openClients.push(...east);
+    for (const c of east) await c.ok('table:join', { tableId: table.id, as: 'player' });
+    await host.ok('table:start');
+    const states = await Promise.all(east.map((c) => c.until((s: TableStateDto) => s.phase === 'first-right')));
+    const rack = states[0].myRack.filter((t) => t.kind !== 'joker');
+    const choices = [rack.slice(0, 3), rack.slice(3, 6)].map((tiles) => ({ type: 'pass' as const, tiles: tiles.map((t) => t.id) }));
+    const acks = await Promise.all(east.map((c, i) => c.emit('exchange:act', { action: choices[i] })));
+    expect(acks.filter((x) => x.ok)).toHaveLength(1);
+    const refused = acks.find((x) => !x.ok)!;
+    expect(['ALREADY_COMMITTED', 'LOG_CONFLICT']).toContain(refused.code);
+    // Both processes now show the one accepted choice, and the log holds exactly one pass from east.
+    const winner = acks.findIndex((x) => x.ok);
+    for (const c of east) await c.until((s) => s.view!.seats.east.committed);
+    const res = await request(b.url).get(`/api/tables/${table.id}`).set('Cookie', cookies[0]);
+    expect(res.status).toBe(200);
+    const pending = (await east[1 - winner].until((s) => s.view!.seats.east.committed)).view!;
+    expect([...(pending.pending.east?.tiles ?? [])].sort()).toEqual([...choices[winner].tiles].sort());
+  }, 60_000);
+});
