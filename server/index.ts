@@ -51,6 +51,9 @@ export function serve(config: Config) {
       };
       process.once('SIGTERM', stop);
       process.once('SIGINT', stop);
+      // A failure in a connection to Redis or the database (say, while one of them restarts) is
+      // logged and lived through: the clients retry, and nothing acked depends on it.
+      process.on('unhandledRejection', (reason) => console.error('Unhandled rejection (Rackside keeps running):', reason));
     })
     .catch((err) => {
       console.error('Rackside could not start:', err);

@@ -120,7 +120,8 @@ export class GroupWriter implements EventWriter {
         const { record } = entry;
         const earlier = failedExchange.get(record.exchangeId);
         if (earlier) {
-          entry.error = new EventNotStored(`An earlier event of this exchange was not stored: ${earlier.message}`, false);
+          // Behind an event whose place was taken, this one is behind too: it shares that conflict.
+          entry.error = new EventNotStored(`An earlier event of this exchange was not stored: ${earlier.message}`, earlier instanceof EventNotStored && earlier.conflict);
           continue;
         }
         if (entry.hooks.wanted && !entry.hooks.wanted()) {

@@ -7,7 +7,7 @@ import { createAdapter } from '@socket.io/redis-adapter';
 import { Redis } from 'ioredis';
 import { clientEventSchemas, type Ack, type ClientEventName, type ClientToServerEvents, type ServerToClientEvents } from '../../shared/protocol';
 import type { Application } from '../app';
-import { TableError, type Member, type TableMaster } from './table-master';
+import { TableError, type Member, type TableMaster, type TablePosition } from './table-master';
 import { RateLimiterMemory } from 'rate-limiter-flexible';
 import type { SessionData } from 'express-session';
 import { pastAbsoluteLifetime } from '../auth/session';
@@ -110,15 +110,16 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
   if (redis) io.adapter(createAdapter(redis.pub, redis.sub));
 
   /** Tells the other processes that a table changed in the database, so that they catch up and show it. */
-  function tellPeers(master: TableMaster) {
-    if (redis) io.serverSideEmit('table:moved', master.id);
+  function tellPeers(master: TableMaster, whole = false) {
+    if (redis) io.serverSideEmit('table:moved', { tableId: master.id, ...master.position, whole });
   }
   if (redis) {
-    (io as unknown as { on(event: 'table:moved', fn: (tableId: string) => void): void }).on('table:moved', (tableId) => {
+    (io as unknown as { on(event: 'table:moved', fn: (told: TablePosition & { tableId: string; whole: boolean }) => void): void }).on('table:moved', (told) => {
+      const tableId = told?.tableId;
       if (typeof tableId !== 'string') return;
       registry
         .peek(tableId)
-        .then((master) => master?.catchUp())
+        .then((master) => master?.catchUp(told))
         .catch((err) => application.logger.error({ err, tableId }, 'catching up with another process failed'));
     });
   }
@@ -220,7 +221,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     async function after(master: TableMaster, work: Promise<unknown>, hot = false) {
       await work;
       broadcast(master, !hot);
-      if (!hot) tellPeers(master);
+      if (!hot) tellPeers(master, true);
       return { version: master.shownVersion };
     }
 

@@ -11,7 +11,7 @@ import { act, canResolve, createExchange, isPassPhase, rackOf, resolve, viewFor 
 import type { Action, ExchangeOptions, ExchangeState, Viewer } from '../../shared/exchange/types';
 import type { HuddleNoteDto, SeatOccupant, SeatStateDto, TableDto, TableOptions, TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
-import { OptimisticLockError } from 'sequelize';
+import { Op, OptimisticLockError } from 'sequelize';
 import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredSeats, type StoredTableOptions } from '../db/models';
 import { patternsForTable } from '../teaching/pattern-source';
 import { EventNotStored, type EventWriter } from '../db/event-writer';
@@ -53,6 +53,7 @@ type StoredEvent = { type: EventType; seat: Seat | null; payload: unknown; userI
 /** What the table shows: the exchange as of its last stored event. */
 interface Shown {
   exchangeId: string;
+  seq: number;
   state: ExchangeState;
   huddle: Huddle;
   version: number;
@@ -74,6 +75,12 @@ export interface MasterHooks {
   botDelayMs: number;
   /** Where exchange events are stored, in groups. */
   events: EventWriter;
+}
+
+export interface TablePosition {
+  revision: number;
+  exchangeId: string | null;
+  seq: number;
 }
 
 /** Refusals that mean another process got there first: the table reloads, and the task is tried once more. */
@@ -104,7 +111,11 @@ export class TableMaster {
   private shown: Shown | null = null;
   private epoch = 0;
   private broken = false;
+  /** Whether the last thrown-away guesses lost their place to another process (so the actions behind them may be retried). */
+  private lostToConflict = false;
   private lastWrite: Promise<void> = Promise.resolve();
+  /** Marking a finished exchange done, which the next task waits for. */
+  private finishing: Promise<void> = Promise.resolve();
   /** The version last sent to the sockets, so one stored group gives each viewer one state. */
   sentVersion = -1;
 
@@ -121,6 +132,7 @@ export class TableMaster {
   run<T>(task: () => Promise<T> | T): Promise<T> {
     const next = this.queue
       .then(async () => {
+        await this.finishing;
         if (this.broken) await this.reload();
         return task();
       })
@@ -165,27 +177,61 @@ export class TableMaster {
     this.broken = false;
     this.showLive();
     this.hooks.changed(this, fromPeer);
-    // A process that stored a pass's last choice may have died before storing its resolve: settle what is due.
+    await this.settleDue();
+  }
+
+  /** A process that stored a pass's last choice may have died before storing its resolve: settle what is due. */
+  private async settleDue() {
     const live = this.exchange;
-    if (live && this.row.status === 'playing') {
-      try {
-        const settled = this.settle(live);
-        if (settled) await (await this.finishIfDone(live, settled)).stored;
-      } catch (err) {
-        if (!(err instanceof TableError && CONFLICTS.has(err.code))) console.error(`Table ${this.id} could not settle after reading its log`, err);
-      }
+    if (!live || this.row.status !== 'playing') return;
+    try {
+      const settled = this.settle(live);
+      if (settled) await (await this.finishIfDone(live, settled)).stored;
+    } catch (err) {
+      if (!(err instanceof TableError && CONFLICTS.has(err.code))) console.error(`Table ${this.id} could not settle after reading its log`, err);
     }
   }
 
-  /** Another process stored a change to this table: catch up from the database, then show it here. */
-  catchUp(): Promise<void> {
-    return this.run(() => this.reload(true));
+  /** Where this table's stored state stands, as told to the other processes. */
+  get position(): TablePosition {
+    const shown = this.pending === 0 ? this.exchange : this.shown;
+    return { revision: this.row.revision ?? 0, exchangeId: this.exchange?.id ?? null, seq: shown && 'seq' in shown ? shown.seq : 0 };
+  }
+
+  /**
+   * Another process stored a change to this table: catch up from the database, then show it here.
+   * New events of the same exchange on an unchanged row are read and applied on their own (one
+   * query); anything else (a row change, another exchange, a note) reads the table again whole.
+   */
+  catchUp(told?: TablePosition & { whole?: boolean }): Promise<void> {
+    return this.run(async () => {
+      await this.lastWrite;
+      const live = this.exchange;
+      if (told && !told.whole && live && !this.broken && told.exchangeId === live.id && told.revision === (this.row.revision ?? 0)) {
+        if (told.seq <= live.seq) return;
+        const events = await ExchangeEventRow.findAll({ where: { exchangeId: live.id, seq: { [Op.gte]: live.seq } }, order: [['seq', 'ASC']] });
+        try {
+          if (events.some((e, i) => e.seq !== live.seq + i)) throw new Error('a gap in the log');
+          const next = fold(live.id, live.state, live.huddle, events);
+          live.state = next.state;
+          live.huddle = next.huddle;
+          live.seq += events.length;
+          this.showLive();
+          this.hooks.changed(this, true);
+          await this.settleDue();
+          return;
+        } catch {
+          // Read it all again below.
+        }
+      }
+      await this.reload(true);
+    });
   }
 
   /** Nothing is waiting to be stored: what the table holds is what it shows. */
   private showLive() {
     const live = this.exchange;
-    this.shown = live ? { exchangeId: live.id, state: live.state, huddle: live.huddle, version: this.version } : null;
+    this.shown = live ? { exchangeId: live.id, seq: live.seq, state: live.state, huddle: live.huddle, version: this.version } : null;
   }
 
   /**
@@ -398,8 +444,12 @@ export class TableMaster {
   /** The last resolve ended the exchange: once it is stored, mark the exchange and table done (inside the queue). */
   private async finishIfDone(live: LiveExchange, stored: Promise<void>): Promise<Appended> {
     if (live.state.phase !== 'done') return { stored };
-    await stored;
-    await this.finish(live);
+    // The ack waits only for the store; the next task of this table waits for the finish too.
+    this.finishing = stored
+      .then(() => this.finish(live))
+      .catch((err) => {
+        if (!(err instanceof TableError)) console.error(`Table ${this.id} could not be marked done`, err);
+      });
     return { stored };
   }
 
@@ -513,7 +563,7 @@ export class TableMaster {
     const seq = live.seq;
     live.seq += 1;
     this.noteStep();
-    const snapshot: Shown = { exchangeId: live.id, state, huddle, version: this.version };
+    const snapshot: Shown = { exchangeId: live.id, seq: live.seq, state, huddle, version: this.version };
     const epoch = this.epoch;
     this.pending += 1;
     const stored = this.hooks.events.append(
@@ -529,14 +579,20 @@ export class TableMaster {
       },
     );
     const guarded = stored.catch((err: Error) => {
+      const conflict = err instanceof EventNotStored && err.conflict;
       if (epoch === this.epoch) {
         // Throw away every guess after the last stored event; the next task reads the log again.
         this.epoch += 1;
         this.pending = 0;
         this.broken = true;
-        console.error(`Table ${this.id}: an event was not stored, so the table reloads its log`, err.message);
+        this.lostToConflict = conflict;
+        // Another process storing first is expected when several serve one table; anything else is not.
+        if (!conflict) console.error(`Table ${this.id}: an event was not stored, so the table reloads its log`, err.message);
       }
-      if (err instanceof EventNotStored && err.conflict) throw new TableError('LOG_CONFLICT', 'The table moved on elsewhere before that move was stored. Look at the table again and resend it.');
+      // An event dropped because an earlier guess lost its place is behind for the same reason.
+      if (conflict || (epoch !== this.epoch && this.lostToConflict)) {
+        throw new TableError('LOG_CONFLICT', 'The table moved on elsewhere before that move was stored. Look at the table again and resend it.');
+      }
       throw new TableError('NOT_STORED', 'Rackside could not store that move. Look at the table again and resend it.');
     });
     this.lastWrite = guarded.catch(() => undefined);
@@ -616,6 +672,7 @@ export class TableMaster {
   async idle(): Promise<void> {
     await this.run(() => undefined);
     await this.lastWrite;
+    await this.finishing;
   }
 
   close() {
@@ -713,19 +770,25 @@ function noteDto(row: HuddleNoteRow): HuddleNoteDto {
 
 /** Folds stored events back into a live exchange: the same function serves restarts and checks. */
 export function rebuild(row: ExchangeRow, events: ExchangeEventRow[], notes: HuddleNoteDto[]): LiveExchange {
-  let state = createExchange(row.options);
-  let huddle = closedHuddle();
+  const { state, huddle } = fold(row.id, createExchange(row.options), closedHuddle(), events);
+  return { id: row.id, options: row.options, state, seq: events.length, huddle, notes };
+}
+
+/** Applies stored events, in order, to an exchange and its huddle. */
+function fold(exchangeId: string, from: ExchangeState, fromHuddle: Huddle, events: ExchangeEventRow[]): { state: ExchangeState; huddle: Huddle } {
+  let state = from;
+  let huddle = fromHuddle;
   for (const event of events) {
     switch (event.type) {
       case 'act': {
         const result = act(state, event.seat as Seat, event.payload as Action);
-        if (!result.ok) throw new Error(`Stored event ${event.seq} of exchange ${row.id} no longer applies: ${result.message}`);
+        if (!result.ok) throw new Error(`Stored event ${event.seq} of exchange ${exchangeId} no longer applies: ${result.message}`);
         state = result.state;
         break;
       }
       case 'resolve': {
         const result = resolve(state);
-        if (!result.ok) throw new Error(`Stored resolve ${event.seq} of exchange ${row.id} no longer applies: ${result.message}`);
+        if (!result.ok) throw new Error(`Stored resolve ${event.seq} of exchange ${exchangeId} no longer applies: ${result.message}`);
         state = result.state;
         huddle = { ...huddle, revealed: [] };
         break;
@@ -741,7 +804,7 @@ export function rebuild(row: ExchangeRow, events: ExchangeEventRow[], notes: Hud
         break;
     }
   }
-  return { id: row.id, options: row.options, state, seq: events.length, huddle, notes };
+  return { state, huddle };
 }
 
 /**

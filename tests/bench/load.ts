@@ -13,6 +13,7 @@ import { io as connect, type Socket } from 'socket.io-client';
 import type { Action } from '../../shared/exchange/types';
 import type { TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
+import { startRedis } from '../server/backing-servers';
 
 const args = process.argv.slice(2);
 const arg = (name: string, fallback: number) => {
@@ -20,6 +21,7 @@ const arg = (name: string, fallback: number) => {
   return i >= 0 ? Number(args[i + 1]) : fallback;
 };
 const TABLES = arg('tables', 250);
+const PROCESSES = arg('processes', 1);
 const HUDDLE_EVERY = 10;
 const dir = mkdtempSync(join(tmpdir(), 'rackside-load-'));
 const began = performance.now();
@@ -83,28 +85,40 @@ function plainAction(state: TableStateDto): Action | null {
   return null;
 }
 
-async function benchRackside() {
-  const { child, port } = await start(
-    'server/index.ts',
-    {
-      PORT: '0',
-      DATABASE_URL: `sqlite:${join(dir, 'load.sqlite')}`,
-      BCRYPT_ROUNDS: '4',
-      SEED_DEMO: 'false',
-      CLIENT_DIR: 'none',
-      BOT_DELAY_MS: '0',
-      REGISTER_RATE_MAX: '100000',
-      LOGIN_RATE_MAX: '100000',
-      CHAT_RATE_PER_MINUTE: '100000',
-      SESSION_SECRET: 'load',
-      LOG_LEVEL: 'error',
-      // As in production: stack traces unmapped (the database driver reads one on every query).
-      SOURCE_MAPS: 'false',
-    },
-    /ready on http:\/\/localhost:(\d+)/,
-  );
-  const url = `http://127.0.0.1:${port}`;
-  const baseline = await settledRssKb(child);
+/** Rackside on `processes` processes sharing one SQLite file (and, past one, one Redis). */
+async function benchRackside(processes: number) {
+  const database = `sqlite:${join(dir, `load-${processes}.sqlite`)}`;
+  const redis = processes > 1 ? await startRedis() : null;
+  const servers: { child: ChildProcess; port: number }[] = [];
+  // One after another: the first runs the migrations on the new file.
+  for (let i = 0; i < processes; i++) {
+    servers.push(
+      await start(
+        'server/index.ts',
+        {
+          PORT: '0',
+          DATABASE_URL: database,
+          ...(redis ? { REDIS_URL: redis.url } : {}),
+          BCRYPT_ROUNDS: '4',
+          SEED_DEMO: 'false',
+          CLIENT_DIR: 'none',
+          BOT_DELAY_MS: '0',
+          REGISTER_RATE_MAX: '100000',
+          LOGIN_RATE_MAX: '100000',
+          CHAT_RATE_PER_MINUTE: '100000',
+          SESSION_SECRET: 'load',
+          LOG_LEVEL: 'error',
+          // As in production: stack traces unmapped (the database driver reads one on every query).
+          SOURCE_MAPS: 'false',
+        },
+        /ready on http:\/\/localhost:(\d+)/,
+      ),
+    );
+  }
+  const urls = servers.map((s) => `http://127.0.0.1:${s.port}`);
+  const url = urls[0];
+  const memory = async () => (await Promise.all(servers.map((s) => settledRssKb(s.child)))).reduce((a, b) => a + b, 0);
+  const baseline = await memory();
   let errors = 0;
 
   const people = Array.from({ length: TABLES * 4 }, (_, i) => `p${i}`);
@@ -132,7 +146,8 @@ async function benchRackside() {
   await inBatches(Array.from({ length: TABLES }, (_, t) => t), 10, async (t) => {
     const seats: Seat4[] = [];
     for (let s = 0; s < 4; s++) {
-      const socket = connect(url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: cookies[t * 4 + s] } });
+      // As a round-robin balancer would: connection k goes to process k mod N, so a table's four are split.
+      const socket = connect(urls[(t * 4 + s) % urls.length], { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: cookies[t * 4 + s] } });
       await new Promise<void>((resolve, reject) => {
         socket.once('connect', () => resolve());
         socket.once('connect_error', reject);
@@ -141,12 +156,12 @@ async function benchRackside() {
       socket.on('table:state', (st: TableStateDto) => (seat.latest = st));
       const joined = await socket.emitWithAck('table:join', { tableId: tableIds[t], as: 'player' });
       const sat = await socket.emitWithAck('table:sit', { seat: SEATS[s] });
-      if (!joined.ok || !sat.ok) errors++;
+      if (!joined.ok || !sat.ok) { errors++; if (process.env.SHOW_ERRORS) console.error("seat:", JSON.stringify(joined), JSON.stringify(sat)); }
       seats.push(seat);
     }
     tables.push(seats);
   });
-  const connected = await settledRssKb(child);
+  const connected = await memory();
   stage(`seated ${TABLES * 4} connections`);
 
   const latencies: number[] = [];
@@ -195,7 +210,7 @@ async function benchRackside() {
               seats[0].socket
                 .emitWithAck('huddle:release', {})
                 .then((a) => {
-                  if (!a.ok) errors++;
+                  if (!a.ok) { errors++; if (process.env.SHOW_ERRORS) console.error("release:", JSON.stringify(a)); }
                 })
                 .catch(() => errors++)
                 .finally(() => (releasing = false));
@@ -212,7 +227,7 @@ async function benchRackside() {
               .timeout(30_000)
               .emitWithAck('exchange:act', { action })
               .then((a) => {
-                if (!a.ok && a.code !== 'WRONG_PHASE' && a.code !== 'ALREADY_COMMITTED') errors++;
+                if (!a.ok && a.code !== 'WRONG_PHASE' && a.code !== 'ALREADY_COMMITTED') { errors++; if (process.env.SHOW_ERRORS) console.error('refused:', a.code, a.message); }
               })
               .catch(() => errors++)
               .finally(() => {
@@ -222,16 +237,17 @@ async function benchRackside() {
           }
           seats.forEach((s, i) => s.socket.on('table:state', () => onState(i)));
           seats[0].socket.emitWithAck('table:start', {}).then((a) => {
-            if (!a.ok) errors++;
+            if (!a.ok) { errors++; if (process.env.SHOW_ERRORS) console.error("start:", JSON.stringify(a)); }
           });
         }),
     ),
   );
   const seconds = (performance.now() - t0) / 1000;
   stage(`played every exchange`);
-  const peak = await settledRssKb(child);
+  const peak = await memory();
   tables.flat().forEach((s) => s.socket.disconnect());
-  child.kill('SIGTERM');
+  await Promise.all(servers.map((s) => new Promise((resolve) => (s.child.once('exit', resolve), s.child.kill('SIGTERM')))));
+  await redis?.stop();
   return { latency: summary(latencies), huddle: summary(huddleLatencies), resolved, seconds, errors, baseline, connected, peak };
 }
 
@@ -273,26 +289,34 @@ async function benchFloor() {
 }
 
 const fmt = (ms: number) => `${ms.toFixed(2)} ms`;
+type Run = Awaited<ReturnType<typeof benchRackside>>;
 try {
   console.log(`Rackside load: ${TABLES} tables, ${TABLES * 4} signed-in connections, a huddle on one table in ${HUDDLE_EVERY}\n`);
-  const ours = await benchRackside();
+  const runs: [number, Run][] = [[1, await benchRackside(1)]];
+  if (PROCESSES > 1) {
+    stage(`now the same load on ${PROCESSES} processes`);
+    runs.push([PROCESSES, await benchRackside(PROCESSES)]);
+  }
   const floor = await benchFloor();
-  const rows = [
-    ['pass latency p50 (4th commit → all four hold the next step)', fmt(ours.latency.p50)],
-    ['pass latency p95', fmt(ours.latency.p95)],
-    ['pass latency p99', fmt(ours.latency.p99)],
-    ['bare Socket.IO relay to a room of 4: p50 / p95 / p99', `${fmt(floor.p50)} / ${fmt(floor.p95)} / ${fmt(floor.p99)}`],
-    ['ratio p99 Rackside / bare floor', `${(ours.latency.p99 / floor.p99).toFixed(2)}x`],
-    ['passes resolved (huddled ones counted apart)', `${ours.latency.n} (+${ours.huddle.n} released from a huddle)`],
-    ['passes resolved per second', (ours.resolved / ours.seconds).toFixed(1)],
-    ['wall time of play', `${ours.seconds.toFixed(1)} s`],
-    ['errors', String(ours.errors)],
-    ['server memory after a full collection: started / all connected / at the end', `${(ours.baseline / 1024).toFixed(0)} / ${(ours.connected / 1024).toFixed(0)} / ${(ours.peak / 1024).toFixed(0)} MB`],
-    ['server memory per table (end − start) / tables', `${((ours.peak - ours.baseline) / TABLES).toFixed(0)} KB`],
-    ['bare relay memory per room of four connections', `${floor.perRoomKb.toFixed(0)} KB`],
+  const perSecond = (r: Run) => r.resolved / r.seconds;
+  const rows: string[][] = [
+    ['', ...runs.map(([n]) => `${n} process${n > 1 ? 'es' : ''}`)],
+    ['pass latency p50 (4th commit → all four hold the next step)', ...runs.map(([, r]) => fmt(r.latency.p50))],
+    ['pass latency p95', ...runs.map(([, r]) => fmt(r.latency.p95))],
+    ['pass latency p99', ...runs.map(([, r]) => fmt(r.latency.p99))],
+    ['ratio p99 Rackside / bare floor', ...runs.map(([, r]) => `${(r.latency.p99 / floor.p99).toFixed(2)}x`)],
+    ['passes resolved (huddled ones counted apart)', ...runs.map(([, r]) => `${r.latency.n} (+${r.huddle.n} from a huddle)`)],
+    ['passes resolved per second', ...runs.map(([, r]) => perSecond(r).toFixed(1))],
+    ['wall time of play', ...runs.map(([, r]) => `${r.seconds.toFixed(1)} s`)],
+    ['errors', ...runs.map(([, r]) => String(r.errors))],
+    ['server memory after a full collection: started / connected / end', ...runs.map(([, r]) => `${(r.baseline / 1024).toFixed(0)} / ${(r.connected / 1024).toFixed(0)} / ${(r.peak / 1024).toFixed(0)} MB`)],
+    ['server memory per table (end − start) / tables', ...runs.map(([, r]) => `${((r.peak - r.baseline) / TABLES).toFixed(0)} KB`)],
   ];
-  const width = Math.max(...rows.map((r) => r[0].length));
-  for (const [k, v] of rows) console.log(`${k.padEnd(width)}  ${v}`);
+  if (runs.length > 1) rows.push([`passes per second, ${PROCESSES} processes / 1`, '', `${(perSecond(runs[1][1]) / perSecond(runs[0][1])).toFixed(2)}x`]);
+  rows.push(['bare Socket.IO relay to a room of 4: p50 / p95 / p99', `${fmt(floor.p50)} / ${fmt(floor.p95)} / ${fmt(floor.p99)}`]);
+  rows.push(['bare relay memory per room of four connections', `${floor.perRoomKb.toFixed(0)} KB`]);
+  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => (r[c] ?? '').length)));
+  for (const r of rows) console.log(r.map((cell, c) => (cell ?? '').padEnd(widths[c])).join('  ').trimEnd());
 } finally {
   rmSync(dir, { recursive: true, force: true });
 }
