@@ -7,6 +7,8 @@ export interface Config {
   databaseUrl: string;
   /** When set (`redis://host:port`), Socket.IO fans out between processes through this Redis. */
   redisUrl: string | null;
+  /** WEBSOCKET_ONLY: refuse Socket.IO's long-polling, so a balancer needs no sticky sessions. */
+  websocketOnly: boolean;
   sessionSecret: string;
   /** Express "trust proxy": set when Rackside runs behind a TLS-terminating proxy, so cookies get Secure. */
   trustProxy: boolean;
@@ -76,6 +78,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     port: int(env.PORT, 3000),
     databaseUrl: env.DATABASE_URL || 'sqlite:data/rackside.sqlite',
     redisUrl: env.REDIS_URL || null,
+    websocketOnly: bool(env.WEBSOCKET_ONLY, false),
     // A random secret per start is safe (sessions end at restart); set SESSION_SECRET to keep them.
     sessionSecret: env.SESSION_SECRET || randomBytes(32).toString('hex'),
     trustProxy: bool(env.TRUST_PROXY, false),

@@ -65,6 +65,9 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     maxHttpBufferSize: 64 * 1024,
     serveClient: false,
     parser: textOnlyParser,
+    // Behind a balancer without sticky sessions, long-polling (whose requests must all reach one
+    // process) is refused; a WebSocket stays on the process it opened on.
+    ...(config.websocketOnly ? { transports: ['websocket' as const] } : {}),
     // The handshake of a page from another site is refused, like a state-changing REST request.
     allowRequest: (req, done) => done(isOwnOrigin(req, config) ? null : 'FOREIGN_ORIGIN', isOwnOrigin(req, config)),
   });

@@ -48,7 +48,7 @@ interface Proc {
 async function rackside(databaseUrl: string): Promise<Proc> {
   const port = await freePort();
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, PORT: String(port), DATABASE_URL: databaseUrl, REDIS_URL: redis.url, BCRYPT_ROUNDS: '4', SESSION_SECRET: 'shared-by-every-process', SEED_DEMO: 'false', BOT_DELAY_MS: '0', CLIENT_DIR: 'none', LOG_LEVEL: 'error' },
+    env: { ...process.env, PORT: String(port), DATABASE_URL: databaseUrl, REDIS_URL: redis.url, WEBSOCKET_ONLY: 'true', BCRYPT_ROUNDS: '4', SESSION_SECRET: 'shared-by-every-process', SEED_DEMO: 'false', BOT_DELAY_MS: '0', CLIENT_DIR: 'none', LOG_LEVEL: 'error' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   running.push(child);
@@ -189,6 +189,8 @@ async function balancer(ports: number[]) {
 describe.each(Object.keys(databases) as (keyof typeof databases)[])('two processes on %s with one Redis', (kind) => {
   test('four players, two on each process, finish an exchange; every one of them sees every step; the log is complete', async () => {
     const [a, b] = await twoProcesses(databases[kind]());
+    // WEBSOCKET_ONLY: long-polling, which would need sticky sessions, is refused.
+    expect((await request(a.url).get('/socket.io/?EIO=4&transport=polling')).status).toBe(400);
     const { names, cookies, table } = await seatedTable([a.url, b.url]);
     const players = names.map((n, i) => autoPlayer(n, cookies[i], i < 2 ? a.url : b.url, table.id));
     await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby')));
