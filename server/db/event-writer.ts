@@ -136,6 +136,9 @@ export class GroupWriter implements EventWriter {
           if (savepoint) await this.run('RELEASE SAVEPOINT event');
           written.push(entry);
         } catch (err) {
+          // Anything but a taken place may have ended the whole transaction (SQLite rolls back by
+          // itself on a full disk or an I/O error): give up on the whole group.
+          if (this.transactions && !isConflict(err)) throw err;
           if (savepoint) await this.run('ROLLBACK TO SAVEPOINT event');
           entry.error = isConflict(err)
             ? new EventNotStored(`Event ${record.seq} of exchange ${record.exchangeId} is already taken.`, true)
@@ -227,7 +230,11 @@ const numbered = (sql: string) => {
 function postgresWriter(sequelize: Sequelize): EventWriter {
   const manager = sequelize.connectionManager as unknown as { getConnection(options: object): Promise<PgClient>; releaseConnection(c: PgClient): Promise<void> };
   let held: Promise<PgClient> | null = null;
-  const connection = () => (held ??= manager.getConnection({ type: 'write' }));
+  const connection = () =>
+    (held ??= manager.getConnection({ type: 'write' }).catch((err) => {
+      held = null;
+      throw err;
+    }));
   const run: Run = async (sql, params = []) => {
     const client = await connection();
     try {

@@ -114,6 +114,8 @@ export class TableMaster {
   /** Whether the last thrown-away guesses lost their place to another process (so the actions behind them may be retried). */
   private lostToConflict = false;
   private lastWrite: Promise<void> = Promise.resolve();
+  /** The same, but refused if that write was. */
+  private lastStored: Promise<void> = Promise.resolve();
   /** Marking a finished exchange done, which the next task waits for. */
   private finishing: Promise<void> = Promise.resolve();
   /** The version last sent to the sockets, so one stored group gives each viewer one state. */
@@ -133,7 +135,10 @@ export class TableMaster {
     const next = this.queue
       .then(async () => {
         await this.finishing;
-        if (this.broken) await this.reload();
+        if (this.broken) {
+          await this.reload();
+          await this.finishing;
+        }
         return task();
       })
       .finally(() => this.noteStep());
@@ -185,6 +190,11 @@ export class TableMaster {
     const live = this.exchange;
     if (!live || this.row.status !== 'playing') return;
     try {
+      // The last resolve is stored but the table was never marked done (a process died in between).
+      if (live.state.phase === 'done') {
+        await this.finishIfDone(live, Promise.resolve());
+        return;
+      }
       const settled = this.settle(live);
       if (settled) await (await this.finishIfDone(live, settled)).stored;
     } catch (err) {
@@ -463,12 +473,7 @@ export class TableMaster {
 
   /** Finishes whatever the stored log left due (a resolve that a crash cut off). */
   resume() {
-    return this.run(async () => {
-      const live = this.exchange;
-      if (!live || this.row.status !== 'playing') return;
-      const settled = this.settle(live);
-      if (settled) await (await this.finishIfDone(live, settled)).stored;
-    });
+    return this.run(() => this.settleDue());
   }
 
   /** After a change: hold the pass in a huddle, or resolve it. Hands back the store of what it appended, if anything. */
@@ -488,6 +493,7 @@ export class TableMaster {
     await ExchangeRow.update({ status: 'done', finishedAt: new Date() }, { where: { id: live.id } });
     try {
       await this.saveRow({ status: 'done' });
+      this.hooks.changed(this);
     } catch (err) {
       // Another process that serves this table marked it done first: nothing is lost.
       if (!(err instanceof TableError && err.code === 'ROW_CONFLICT')) throw err;
@@ -519,7 +525,7 @@ export class TableMaster {
       this.requireHost(viewer);
       const live = this.requireExchange();
       if (!live.huddle.open) throw new TableError('NO_HUDDLE', 'Call a huddle first: seats are shown only while a pass is held.');
-      if (live.huddle.revealed.includes(seat)) return { stored: this.lastWrite };
+      if (live.huddle.revealed.includes(seat)) return { stored: this.lastStored };
       return { stored: this.append(live, { type: 'huddle-reveal', seat, payload: null, userId: viewer.userId }, live.state, { ...live.huddle, revealed: [...live.huddle.revealed, seat] }) };
     }).then(({ stored }) => stored);
   }
@@ -589,10 +595,18 @@ export class TableMaster {
     const guarded = stored.catch((err: Error) => {
       const conflict = err instanceof EventNotStored && err.conflict;
       if (epoch === this.epoch) {
-        // Throw away every guess after the last stored event; the next task reads the log again.
+        // Throw away every guess after the last stored event: the table goes back to what it last
+        // showed (so nothing unstored is shown meanwhile), and the next task reads the log again.
         this.epoch += 1;
         this.pending = 0;
         this.broken = true;
+        const shown = this.shown;
+        if (shown && this.exchange && shown.exchangeId === this.exchange.id) {
+          this.exchange.state = shown.state;
+          this.exchange.huddle = shown.huddle;
+          this.exchange.seq = shown.seq;
+          this.noteStep();
+        }
         this.lostToConflict = conflict;
         // Another process storing first is expected when several serve one table; anything else is not.
         if (!conflict) console.error(`Table ${this.id}: an event was not stored, so the table reloads its log`, err.message);
@@ -603,6 +617,7 @@ export class TableMaster {
       }
       throw new TableError('NOT_STORED', 'Rackside could not store that move. Look at the table again and resend it.');
     });
+    this.lastStored = guarded;
     this.lastWrite = guarded.catch(() => undefined);
     return guarded;
   }
@@ -615,18 +630,28 @@ export class TableMaster {
     this.announcing = true;
     queueMicrotask(() => {
       this.announcing = false;
-      this.hooks.changed(this);
+      try {
+        this.hooks.changed(this);
+      } catch (err) {
+        console.error(`Table ${this.id}: telling the viewers of a stored change failed`, err);
+      }
     });
   }
 
+  /**
+   * Saves row changes from a copy, so views show the change only once it is stored; the copy
+   * replaces the row after the save. A save refused because another process changed the row
+   * first (its revision moved on) is a conflict; any other failure leaves the row as it was.
+   */
   private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId' | 'options'>>) {
+    const next = TableRow.build(this.row.get({ plain: true }), { isNewRecord: false, raw: true });
+    next.set(changes);
     try {
-      await this.row.update(changes);
+      await next.save();
+      this.row = next;
     } catch (err) {
-      if (!(err instanceof OptimisticLockError)) throw err;
-      // Saved from an out-of-date copy: another process changed the row. Read it again before the next task.
-      await this.row.reload().catch(() => undefined);
       this.broken = true;
+      if (!(err instanceof OptimisticLockError)) throw err;
       throw new TableError('ROW_CONFLICT', 'The table changed elsewhere just now. Look at it again and retry.');
     }
   }

@@ -77,3 +77,34 @@ test('when another writer took the next place in the log, the table reads its lo
   const again = await south.emit('exchange:act', { action: simpleAction(southState) });
   expect(again).toMatchObject({ ok: false, code: 'ALREADY_COMMITTED' });
 });
+
+test('when the log cannot take a move, it is refused, nobody is shown it, versions never go back, and the table goes on', async () => {
+  server = await fileServer();
+  const { clients: four, host } = await fullTable(server);
+  clients = four;
+  await host.ok('table:start');
+  const states = await Promise.all(four.map((c) => c.until(inPhase('first-right'))));
+  const sequelize = ExchangeEventRow.sequelize!;
+  // The database refuses south's next move (as a failing disk would), and nothing else.
+  await sequelize.query(`CREATE TRIGGER refuse_south BEFORE INSERT ON "ExchangeEvents" WHEN NEW.seat = 'south' BEGIN SELECT RAISE(ABORT, 'the disk is failing'); END;`);
+  const refused = await four[1].emit('exchange:act', { action: simpleAction(states[1]) });
+  expect(refused).toMatchObject({ ok: false, code: 'NOT_STORED' });
+  await sequelize.query('DROP TRIGGER refuse_south;');
+  // Nobody was ever shown south committed; east's move still goes through on the reloaded table.
+  const ack = await four[0].emit('exchange:act', { action: simpleAction(states[0]) });
+  expect(ack).toMatchObject({ ok: true });
+  const after = await four[2].until((s) => s.view!.seats.east.committed);
+  expect(after.view!.seats.south.committed).toBe(false);
+  for (const c of four) {
+    expect(c.states.some((s) => s.view?.seats.south.committed)).toBe(false);
+    const versions = c.states.map((s) => s.version);
+    expect(versions).toEqual([...versions].sort((x, y) => x - y));
+  }
+  // South sends again and the pass resolves.
+  const again = await four[1].emit('exchange:act', { action: simpleAction(states[1]) });
+  expect(again).toMatchObject({ ok: true });
+  await Promise.all([2, 3].map((i) => four[i].emit('exchange:act', { action: simpleAction(states[i]) })));
+  await Promise.all(four.map((c) => c.until(inPhase('first-across'))));
+  const events = await ExchangeEventRow.findAll({ where: { exchangeId: host.state.exchangeId! }, order: [['seq', 'ASC']] });
+  expect(events.map((e) => e.seq)).toEqual(events.map((_, i) => i));
+});
