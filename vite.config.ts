@@ -24,6 +24,8 @@ export default defineConfig({
           name: 'unit',
           environment: 'node',
           include: ['tests/unit/**/*.test.ts', 'shared/**/*.test.ts'],
+          // A guard against hangs, not a speed check: property tests share two cores with the rest of the suite.
+          testTimeout: 30_000,
         },
       },
       {

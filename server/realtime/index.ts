@@ -117,6 +117,13 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     if (redis) io.serverSideEmit('table:moved', { tableId: master.id, ...master.position, whole });
   }
   if (redis) {
+    (io as unknown as { on(event: 'table:presence', fn: (tableId: string) => void): void }).on('table:presence', (tableId) => {
+      if (typeof tableId !== 'string') return;
+      registry
+        .peek(tableId)
+        .then((master) => master && recountPresence(master))
+        .catch(() => undefined);
+    });
     (io as unknown as { on(event: 'table:moved', fn: (told: TablePosition & { tableId: string; whole: boolean }) => void): void }).on('table:moved', (told) => {
       const tableId = told?.tableId;
       if (typeof tableId !== 'string') return;
@@ -160,6 +167,32 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       if (n > 0) master.connected.set(socket.data.userId, n);
       else master.connected.delete(socket.data.userId);
     }
+    if (redis) {
+      // Who is here counts the sockets of every process: count again here, and have the others do so.
+      io.serverSideEmit('table:presence', master.id);
+      recountPresence(master);
+    }
+  }
+
+  /** Counts the table's sockets on every process (through the adapter) and shows the result here. */
+  function recountPresence(master: TableMaster) {
+    io.in(room(master.id))
+      .fetchSockets()
+      .then((sockets) => {
+        const connected = new Map<number, number>();
+        let spectators = 0;
+        for (const s of sockets) {
+          const data = s.data as Partial<SocketData>;
+          if (data.tableId !== master.id || typeof data.userId !== 'number') continue;
+          if (data.as === 'spectator') spectators += 1;
+          else connected.set(data.userId, (connected.get(data.userId) ?? 0) + 1);
+        }
+        master.connected.clear();
+        connected.forEach((n, userId) => master.connected.set(userId, n));
+        master.spectators = spectators;
+        broadcast(master);
+      })
+      .catch((err) => application.logger.warn({ tableId: master.id, error: (err as Error).message }, 'counting the sockets of every process failed'));
   }
 
   async function leaveTable(socket: RacksideSocket) {

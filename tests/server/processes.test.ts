@@ -193,7 +193,9 @@ describe.each(Object.keys(databases) as (keyof typeof databases)[])('two process
     expect((await request(a.url).get('/socket.io/?EIO=4&transport=polling')).status).toBe(400);
     const { names, cookies, table } = await seatedTable([a.url, b.url]);
     const players = names.map((n, i) => autoPlayer(n, cookies[i], i < 2 ? a.url : b.url, table.id));
-    await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby')));
+    // Each process counts who is here over both: every client sees all four seats connected.
+    const allHere = (s: TableStateDto) => SEATS.every((seat) => (s.seats[seat].occupant as { connected?: boolean } | null)?.connected === true);
+    await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby' && allHere(s))));
     await players[0].c.ok('table:start');
     await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 30_000)));
     const steps = players[0].c.state.view!.history.length;
