@@ -5,10 +5,9 @@ import { join } from 'node:path';
 import { io as connect } from 'socket.io-client';
 import request from 'supertest';
 import { afterAll, expect, test } from 'vitest';
-import type { Action } from '../../shared/exchange/types';
 import type { ExchangeReplayDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
-import { Client, simpleAction } from './live';
+import { autoPlayer, Client, simpleAction } from './live';
 
 const dir = mkdtempSync(join(tmpdir(), 'rackside-crash-'));
 const port = 4100 + Math.floor(Math.random() * 800);
@@ -44,33 +43,6 @@ async function register(name: string) {
   return (res.headers['set-cookie'] as unknown as string[])[0].split(';')[0];
 }
 
-/** A client that reconnects by itself, rejoins its table, and plays as fast as the server answers. */
-function autoPlayer(name: string, cookie: string, tableId: string) {
-  const socket = connect(url, { transports: ['websocket'], reconnectionDelay: 100, reconnectionDelayMax: 300, extraHeaders: { Cookie: cookie } });
-  const c = new Client(name, cookie, socket);
-  const acked: Action[] = [];
-  let busy = false;
-  async function tick() {
-    const s = c.states[c.states.length - 1];
-    if (busy || !s?.view || s.phase === 'done' || !socket.connected) return;
-    const action = simpleAction(s, { blind: 1, stop: false, ask: 1 });
-    if (!action) return;
-    busy = true;
-    try {
-      const ack = await c.emit('exchange:act', { action });
-      if (ack.ok) acked.push(action);
-    } catch {
-      // No answer (the server died): not acknowledged, so nothing is promised.
-    } finally {
-      busy = false;
-      setTimeout(tick, 5);
-    }
-  }
-  socket.on('connect', () => void c.emit('table:join', { tableId, as: 'player' }).catch(() => undefined));
-  socket.on('table:state', () => void tick());
-  return { c, acked };
-}
-
 test('SIGKILL mid-exchange: after a restart on the same file every acknowledged action is still there and the table finishes', async () => {
   proc = await startProcess();
   const names = ['ines', 'theo', 'mina', 'ruth'];
@@ -86,7 +58,7 @@ test('SIGKILL mid-exchange: after a restart on the same file every acknowledged 
     seaters.push(c);
   }
   seaters.forEach((c) => c.socket.disconnect());
-  const players = names.map((n, i) => autoPlayer(n, cookies[i], table.id));
+  const players = names.map((n, i) => autoPlayer(url, n, cookies[i], table.id));
   await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'lobby' || s.status === 'lobby')));
   await players[0].c.ok('table:start');
 

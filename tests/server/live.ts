@@ -131,3 +131,37 @@ export function simpleAction(state: TableStateDto, opts: { blind?: number; stop?
 export function seatIndex(seat: Seat) {
   return SEATS.indexOf(seat);
 }
+
+/**
+ * A client that joins its table (and, with `reconnect`, rejoins after any drop by itself) and
+ * plays as fast as it is answered. It keeps the actions that were acked, and counts its connects.
+ */
+export function autoPlayer(url: string, name: string, cookie: string, tableId: string, { reconnect = true, sendVersion = false } = {}) {
+  const socket = connect(url, { transports: ['websocket'], reconnection: reconnect, reconnectionDelay: 100, reconnectionDelayMax: 300, extraHeaders: { Cookie: cookie } });
+  const c = new Client(name, cookie, socket);
+  const acked: Action[] = [];
+  const seen = { connects: 0 };
+  let busy = false;
+  async function tick() {
+    const s = c.states[c.states.length - 1];
+    if (busy || !s?.view || s.phase === 'done' || !socket.connected) return;
+    const action = simpleAction(s, { blind: 1, stop: false, ask: 1 });
+    if (!action) return;
+    busy = true;
+    try {
+      const ack = await c.emit('exchange:act', sendVersion ? { action, version: s.version } : { action });
+      if (ack.ok) acked.push(action);
+    } catch {
+      // No answer (the server died): not acknowledged, so nothing is promised.
+    } finally {
+      busy = false;
+      setTimeout(tick, 5);
+    }
+  }
+  socket.on('connect', () => {
+    seen.connects += 1;
+    void c.emit('table:join', { tableId, as: 'player' }).catch(() => undefined);
+  });
+  socket.on('table:state', () => void tick());
+  return { c, acked, seen };
+}

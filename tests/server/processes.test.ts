@@ -14,7 +14,7 @@ import type { Action } from '../../shared/exchange/types';
 import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
 import { freePort, startPostgres, startRedis, type Running, type RunningPostgres } from './backing-servers';
-import { Client, simpleAction } from './live';
+import { autoPlayer, Client } from './live';
 
 let redis: Running;
 let postgres: RunningPostgres;
@@ -92,36 +92,11 @@ function socketTo(url: string, cookie: string, reconnect: boolean) {
   return connect(url, { transports: ['websocket'], reconnection: reconnect, reconnectionDelay: 100, reconnectionDelayMax: 300, extraHeaders: { Cookie: cookie } });
 }
 
-/** A client that joins (and rejoins after any drop) and plays as fast as it is answered; it keeps what was acked. */
-function autoPlayer(name: string, cookie: string, url: string, tableId: string, reconnect = false) {
-  const socket = socketTo(url, cookie, reconnect);
-  const c = new Client(name, cookie, socket);
-  openClients.push(c);
-  const acked: Action[] = [];
-  const seen = { connects: 0 };
-  let busy = false;
-  async function tick() {
-    const s = c.states[c.states.length - 1];
-    if (busy || !s?.view || s.phase === 'done' || !socket.connected) return;
-    const action = simpleAction(s, { blind: 1, stop: false, ask: 1 });
-    if (!action) return;
-    busy = true;
-    try {
-      const ack = await c.emit('exchange:act', { action, version: s.version });
-      if (ack.ok) acked.push(action);
-    } catch {
-      // No answer (the process died): not acknowledged, so nothing is promised.
-    } finally {
-      busy = false;
-      setTimeout(tick, 5);
-    }
-  }
-  socket.on('connect', () => {
-    seen.connects += 1;
-    void c.emit('table:join', { tableId, as: 'player' }).catch(() => undefined);
-  });
-  socket.on('table:state', () => void tick());
-  return { c, acked, seen };
+/** A client of live.ts's, kept to be closed after the test. */
+function player(name: string, cookie: string, url: string, tableId: string, reconnect = false) {
+  const p = autoPlayer(url, name, cookie, tableId, { reconnect, sendVersion: true });
+  openClients.push(p.c);
+  return p;
 }
 
 /** Four people, a table, everyone seated: east and south through the first URL, west and north through the second. */
@@ -192,7 +167,7 @@ describe.each(Object.keys(databases) as (keyof typeof databases)[])('two process
     // WEBSOCKET_ONLY: long-polling, which would need sticky sessions, is refused.
     expect((await request(a.url).get('/socket.io/?EIO=4&transport=polling')).status).toBe(400);
     const { names, cookies, table } = await seatedTable([a.url, b.url]);
-    const players = names.map((n, i) => autoPlayer(n, cookies[i], i < 2 ? a.url : b.url, table.id));
+    const players = names.map((n, i) => player(n, cookies[i], i < 2 ? a.url : b.url, table.id));
     // Each process counts who is here over both: every client sees all four seats connected.
     const allHere = (s: TableStateDto) => SEATS.every((seat) => (s.seats[seat].occupant as { connected?: boolean } | null)?.connected === true);
     await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby' && allHere(s))));
@@ -216,7 +191,7 @@ describe.each(Object.keys(databases) as (keyof typeof databases)[])('two process
     const [a, b] = await twoProcesses(databases[kind]());
     const front = await balancer([a.port, b.port]);
     const { names, cookies, table } = await seatedTable([a.url, b.url]);
-    const players = names.map((n, i) => autoPlayer(n, cookies[i], front, table.id, true));
+    const players = names.map((n, i) => player(n, cookies[i], front, table.id, true));
     await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby')));
     await players[0].c.ok('table:start');
     await players[0].c.until((s) => (s.view?.history.length ?? 0) >= 2, 20_000);
