@@ -70,6 +70,9 @@ type Run = (sql: string, params?: unknown[]) => Promise<void>;
 /** SQLite's and PostgreSQL's words for a unique key refusing a row. */
 const isConflict = (err: unknown) => (err as { code?: string })?.code === '23505' || /UNIQUE constraint failed|duplicate key value/i.test(String((err as Error)?.message));
 
+/** PostgreSQL's deadlock and serialization failures, and SQLite's locked file. */
+const isContention = (err: unknown) => ['40P01', '40001', 'SQLITE_BUSY'].includes(String((err as { code?: string })?.code)) || /deadlock detected|database is locked/i.test(String((err as Error)?.message));
+
 export interface GroupOptions {
   /** How a group's transaction starts. */
   begin: string;
@@ -111,7 +114,10 @@ export class GroupWriter implements EventWriter {
     this.writing = null;
   }
 
-  private async write(group: Entry[]) {
+  private async write(arrived: Entry[]) {
+    // Every process writes a group in the same order (by exchange, then place), so two groups that
+    // touch the same exchanges wait for each other in one order and never deadlock on PostgreSQL.
+    const group = [...arrived].sort((a, b) => (a.record.exchangeId < b.record.exchangeId ? -1 : a.record.exchangeId > b.record.exchangeId ? 1 : a.record.seq - b.record.seq));
     const failedExchange = new Map<string, Error>();
     const written: Entry[] = [];
     try {
@@ -150,7 +156,9 @@ export class GroupWriter implements EventWriter {
     } catch (err) {
       // The commit (or the begin) failed: nothing of this group is stored.
       if (this.transactions) await this.run('ROLLBACK').catch(() => undefined);
-      const error = new EventNotStored(`The event log could not commit: ${(err as Error).message}`, false);
+      // A group the database gave up on for another writer (a deadlock, a serialization failure,
+      // a lock it waited too long for) can be tried again: its actions count as conflicts.
+      const error = new EventNotStored(`The event log could not commit: ${(err as Error).message}`, isContention(err));
       for (const entry of group) entry.reject(entry.error ?? error);
       return;
     }

@@ -114,7 +114,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
 
   /** Tells the other processes that a table changed in the database, so that they catch up and show it. */
   function tellPeers(master: TableMaster, whole = false) {
-    if (redis) io.serverSideEmit('table:moved', { tableId: master.id, ...master.position, whole });
+    if (redis && !closing) io.serverSideEmit('table:moved', { tableId: master.id, ...master.position, whole });
   }
   if (redis) {
     (io as unknown as { on(event: 'table:presence', fn: (tableId: string) => void): void }).on('table:presence', (tableId) => {
@@ -167,7 +167,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       if (n > 0) master.connected.set(socket.data.userId, n);
       else master.connected.delete(socket.data.userId);
     }
-    if (redis) {
+    if (redis && !closing) {
       // Who is here counts the sockets of every process: count again here, and have the others do so.
       io.serverSideEmit('table:presence', master.id);
       recountPresence(master);

@@ -13,7 +13,7 @@ import { io as connect, type Socket } from 'socket.io-client';
 import type { Action } from '../../shared/exchange/types';
 import type { TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
-import { startRedis } from '../server/backing-servers';
+import { startPostgres, startRedis } from '../server/backing-servers';
 
 const args = process.argv.slice(2);
 const arg = (name: string, fallback: number) => {
@@ -22,6 +22,8 @@ const arg = (name: string, fallback: number) => {
 };
 const TABLES = arg('tables', 250);
 const PROCESSES = arg('processes', 1);
+/** `--database postgres` runs the servers on a throwaway PostgreSQL instead of a SQLite file. */
+const DATABASE = args.includes('--database') ? args[args.indexOf('--database') + 1] : 'sqlite';
 const HUDDLE_EVERY = 10;
 const dir = mkdtempSync(join(tmpdir(), 'rackside-load-'));
 const began = performance.now();
@@ -87,7 +89,8 @@ function plainAction(state: TableStateDto): Action | null {
 
 /** Rackside on `processes` processes sharing one SQLite file (and, past one, one Redis). */
 async function benchRackside(processes: number) {
-  const database = `sqlite:${join(dir, `load-${processes}.sqlite`)}`;
+  const pg = DATABASE === 'postgres' ? await startPostgres() : null;
+  const database = pg ? pg.url : `sqlite:${join(dir, `load-${processes}.sqlite`)}`;
   const redis = processes > 1 ? await startRedis() : null;
   const servers: { child: ChildProcess; port: number }[] = [];
   // One after another: the first runs the migrations on the new file.
@@ -248,6 +251,7 @@ async function benchRackside(processes: number) {
   tables.flat().forEach((s) => s.socket.disconnect());
   await Promise.all(servers.map((s) => new Promise((resolve) => (s.child.once('exit', resolve), s.child.kill('SIGTERM')))));
   await redis?.stop();
+  await pg?.stop();
   return { latency: summary(latencies), huddle: summary(huddleLatencies), resolved, seconds, errors, baseline, connected, peak };
 }
 
@@ -291,7 +295,7 @@ async function benchFloor() {
 const fmt = (ms: number) => `${ms.toFixed(2)} ms`;
 type Run = Awaited<ReturnType<typeof benchRackside>>;
 try {
-  console.log(`Rackside load: ${TABLES} tables, ${TABLES * 4} signed-in connections, a huddle on one table in ${HUDDLE_EVERY}\n`);
+  console.log(`Rackside load: ${TABLES} tables, ${TABLES * 4} signed-in connections, a huddle on one table in ${HUDDLE_EVERY}, on ${DATABASE === 'postgres' ? 'PostgreSQL' : 'a SQLite file'}\n`);
   const runs: [number, Run][] = [[1, await benchRackside(1)]];
   if (PROCESSES > 1) {
     stage(`now the same load on ${PROCESSES} processes`);
