@@ -204,8 +204,8 @@ export class TableMaster {
 
   /** Where this table's stored state stands, as told to the other processes. */
   get position(): TablePosition {
-    const shown = this.pending === 0 ? this.exchange : this.shown;
-    return { revision: this.row.revision ?? 0, exchangeId: this.exchange?.id ?? null, seq: shown && 'seq' in shown ? shown.seq : 0 };
+    const seq = (this.pending === 0 ? this.exchange?.seq : this.shown?.seq) ?? 0;
+    return { revision: this.row.revision ?? 0, exchangeId: this.exchange?.id ?? null, seq };
   }
 
   /**

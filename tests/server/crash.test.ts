@@ -7,7 +7,7 @@ import request from 'supertest';
 import { afterAll, expect, test } from 'vitest';
 import type { ExchangeReplayDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
-import { autoPlayer, Client, simpleAction } from './live';
+import { autoPlayer, Client, expectAckedInLog, simpleAction } from './live';
 
 const dir = mkdtempSync(join(tmpdir(), 'rackside-crash-'));
 const port = 4100 + Math.floor(Math.random() * 800);
@@ -73,16 +73,7 @@ test('SIGKILL mid-exchange: after a restart on the same file every acknowledged 
   await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 30_000)));
 
   const replay = (await request(url).get(`/api/exchanges/${players[0].c.state.exchangeId}/replay`).set('Cookie', cookies[0])).body.replay as ExchangeReplayDto;
-  for (const [i, p] of players.entries()) {
-    const logged = replay.log.flatMap((e) => ('seat' in e && e.seat === SEATS[i] ? [JSON.stringify(e.action)] : []));
-    // Every acknowledged action appears in the stored log, in the order it was acknowledged.
-    let at = 0;
-    for (const a of p.acked) {
-      at = logged.indexOf(JSON.stringify(a), at);
-      expect(at, `${p.c.name}: ${JSON.stringify(a)} is in the log`).toBeGreaterThanOrEqual(0);
-      at += 1;
-    }
-  }
+  expectAckedInLog(replay, players);
   players.forEach((p) => p.c.socket.disconnect());
 }, 90_000);
 

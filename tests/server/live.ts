@@ -2,8 +2,9 @@
 import type { AddressInfo } from 'node:net';
 import { io as connect, type Socket } from 'socket.io-client';
 import request from 'supertest';
+import { expect } from 'vitest';
 import type { Action } from '../../shared/exchange/types';
-import type { Ack, ClientEventName, TableStateDto, ChatMessageDto } from '../../shared/protocol';
+import type { Ack, ClientEventName, TableStateDto, ChatMessageDto, ExchangeReplayDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
 import { loadConfig, type Config } from '../../server/config';
 import { startServer } from '../../server/index';
@@ -164,4 +165,17 @@ export function autoPlayer(url: string, name: string, cookie: string, tableId: s
   });
   socket.on('table:state', () => void tick());
   return { c, acked, seen };
+}
+
+/** Every action acked to each seat's player appears in the stored log, in the order it was acked. */
+export function expectAckedInLog(replay: ExchangeReplayDto, players: { c: Client; acked: Action[] }[]) {
+  for (const [i, p] of players.entries()) {
+    const logged = replay.log.flatMap((e) => ('seat' in e && e.seat === SEATS[i] ? [JSON.stringify(e.action)] : []));
+    let at = 0;
+    for (const a of p.acked) {
+      at = logged.indexOf(JSON.stringify(a), at);
+      expect(at, `${p.c.name}: ${JSON.stringify(a)} is in the log`).toBeGreaterThanOrEqual(0);
+      at += 1;
+    }
+  }
 }

@@ -10,11 +10,10 @@ import { join } from 'node:path';
 import { io as connect } from 'socket.io-client';
 import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, test } from 'vitest';
-import type { Action } from '../../shared/exchange/types';
 import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
 import { freePort, startPostgres, startRedis, type Running, type RunningPostgres } from './backing-servers';
-import { autoPlayer, Client } from './live';
+import { autoPlayer, Client, expectAckedInLog } from './live';
 
 let redis: Running;
 let postgres: RunningPostgres;
@@ -119,18 +118,6 @@ async function replayOf(url: string, cookie: string, exchangeId: string) {
   const res = await request(url).get(`/api/exchanges/${exchangeId}/replay`).set('Cookie', cookie);
   expect(res.status).toBe(200);
   return res.body.replay as ExchangeReplayDto;
-}
-
-function expectAckedInLog(replay: ExchangeReplayDto, players: { c: Client; acked: Action[] }[]) {
-  for (const [i, p] of players.entries()) {
-    const logged = replay.log.flatMap((e) => ('seat' in e && e.seat === SEATS[i] ? [JSON.stringify(e.action)] : []));
-    let at = 0;
-    for (const a of p.acked) {
-      at = logged.indexOf(JSON.stringify(a), at);
-      expect(at, `${p.c.name}: ${JSON.stringify(a)} is in the log`).toBeGreaterThanOrEqual(0);
-      at += 1;
-    }
-  }
 }
 
 /** A plain TCP balancer in front of the processes: each new connection goes to the next process that answers. */
