@@ -63,10 +63,10 @@ test('every advice is a legal pass, best first, each option once, each with reas
       advice.forEach((a, i) => {
         expect(a.tiles).not.toContain('joker');
         expect(a.tiles.length + a.blind).toBe(count);
-        if (!allowed) expect(a.blind).toBe(0);
+        expect(a.blind).toBeLessThanOrEqual(allowed ? count : 0);
         expect(isSubMultiset(a.tiles, hand)).toBe(true);
         expect(a.reasons.length).toBeGreaterThan(0);
-        if (i > 0) expect(a.score).toBeLessThanOrEqual(advice[i - 1].score);
+        expect(a.score).toBeLessThanOrEqual(i === 0 ? Infinity : advice[i - 1].score);
         keys.add(`${a.blind}:${[...a.tiles].sort().join(',')}`);
       });
       expect(keys.size).toBe(advice.length);
@@ -75,15 +75,27 @@ test('every advice is a legal pass, best first, each option once, each with reas
   );
 });
 
+/** The fewest tiles the rack is from any starter pattern. */
+const closestAway = (hand: readonly TileKind[]) => Math.min(...starterPatterns.map((p) => tilesAway(hand, p)));
+function keptAfter(hand: readonly TileKind[], passed: readonly TileKind[]): TileKind[] {
+  const kept = [...hand];
+  for (const k of passed) kept.splice(kept.indexOf(k), 1);
+  return kept;
+}
+
 test('the best advice never costs more of the closest pattern than it must', () => {
   fc.assert(
     fc.property(anyRack, (hand) => {
-      const [best] = advisePass(hand, starterPatterns, { phase: 'second-across', blindAllowed: false });
-      const kept = [...hand];
-      for (const k of best.tiles) kept.splice(kept.indexOf(k), 1);
-      const closest = Math.min(...starterPatterns.map((p) => tilesAway(hand, p)));
-      // Passing three tiles loses at most three tiles of any pattern.
-      expect(Math.min(...starterPatterns.map((p) => tilesAway(kept, p)))).toBeLessThanOrEqual(closest + 3);
+      const advice = advisePass(hand, starterPatterns, { phase: 'second-across', blindAllowed: false });
+      const closest = closestAway(hand);
+      // A naive baseline: every legal pass, judged only by how many tiles it costs the closest pattern.
+      const costs = advice.map((a) => closestAway(keptAfter(hand, a.tiles)) - closest);
+      expect(costs.length).toBeGreaterThan(0);
+      const cheapest = Math.min(...costs);
+      // The advice also weighs the other near patterns and what a neighbour is fed, so its best
+      // may give up one tile more than the cheapest pass, never two. Ranked worst first, most racks
+      // here have a pass that gives up two or three.
+      expect(costs[0]).toBeLessThanOrEqual(cheapest + 1);
     }),
     { seed: 4243, numRuns: 30 },
   );
