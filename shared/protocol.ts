@@ -3,6 +3,7 @@ import { z } from 'zod';
 import type { CommittedPass, ExchangeOptions, ExchangeView, LogEntry, Phase } from './exchange/types';
 import type { Seat } from './seats';
 import type { Tile } from './tiles';
+import type { Pattern } from './analysis/pattern';
 import { BOT_STRATEGIES } from './analysis/bots';
 
 export const ROLE_NAMES = ['player', 'teacher', 'admin'] as const;
@@ -209,8 +210,11 @@ export interface ExchangeReplayDto {
   id: string;
   tableId: string;
   tableName: string;
-  options: ExchangeOptions;
+  /** The engine's options (its seed reproduces this deal only) and the seed name the host gave, if any. */
+  options: ExchangeOptions & { seedName?: string | null };
   log: LogEntry[];
+  /** The pattern list the table judged racks by, which the replay judges by too. */
+  patternList: { id: string; name: string; patterns: Pattern[] };
   seats: Record<Seat, { displayName: string; kind: 'user' | 'bot'; strategy?: string }>;
   notes: HuddleNoteDto[];
   startedAt: string;

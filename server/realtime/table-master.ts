@@ -3,7 +3,8 @@
  * takes one action at a time, stores every accepted step before anyone hears of it, and hands
  * each viewer only what that viewer may see.
  */
-import { randomBytes, randomUUID } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
+import { nextDealSeed } from '../services/deal-seed';
 import { chooseBotAction, isBotStrategyId, BOT_STRATEGIES } from '../../shared/analysis/bots';
 import { starterPatterns, type Pattern } from '../../shared/analysis';
 import { STARTER_LIST_ID } from '../../shared/pattern-lists';
@@ -12,7 +13,7 @@ import type { Action, ExchangeOptions, ExchangeState, Viewer } from '../../share
 import type { HuddleNoteDto, SeatOccupant, SeatStateDto, TableDto, TableOptions, TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
 import { Op, OptimisticLockError } from 'sequelize';
-import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredSeats, type StoredTableOptions } from '../db/models';
+import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredExchangeOptions, type StoredSeats, type StoredTableOptions } from '../db/models';
 import { patternsForTable } from '../teaching/pattern-source';
 import { EventNotStored, type EventWriter } from '../db/event-writer';
 
@@ -355,8 +356,12 @@ export class TableMaster {
       if (this.row.status === 'playing') throw new TableError('EXCHANGE_UNDER_WAY', 'An exchange is already under way.');
       const empty = SEATS.filter((seat) => !this.row.seats[seat]);
       if (empty.length) throw new TableError('SEATS_EMPTY', `Fill every seat first (empty: ${empty.join(', ')}). Seat a bot in any seat nobody takes.`);
-      const options: ExchangeOptions = {
-        seed: this.row.options.seed ?? randomBytes(12).toString('base64url'),
+      // The engine's seed comes from the seed name, where it holds, and how many deals this table dealt before.
+      const round = await ExchangeRow.count({ where: { tableId: this.row.id } });
+      const { seed, seedName } = nextDealSeed(this.row, round);
+      const options: StoredExchangeOptions = {
+        seed,
+        ...(seedName ? { seedName } : {}),
         jokers: this.row.options.jokers,
         secondCharleston: this.row.options.secondCharleston,
         courtesy: this.row.options.courtesy,
@@ -845,7 +850,7 @@ function fold(exchangeId: string, from: ExchangeState, fromHuddle: Huddle, event
  * the host sees the seed (with the seed and the public engine anyone could work out every rack).
  */
 export function publicTableOptions(options: StoredTableOptions, isHost: boolean): TableOptions {
-  const { racks: _racks, ...rest } = options;
+  const { racks: _racks, dealScope: _scope, ...rest } = options;
   if (isHost || rest.seed === null) return rest;
   return { ...rest, seed: null, seedHidden: true };
 }

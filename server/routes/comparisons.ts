@@ -64,12 +64,12 @@ export function comparisonsRouter() {
       throw new HttpError(400, 'BAD_INPUT', 'Some fields need another look.', { seed: `Name a seed of 1 to ${SEED_MAX} characters, such as harbor-lane-week-01.` });
     }
     const user = req.user!;
-    const all = await ExchangeRow.findAll({ where: { options: { seed } }, order: [['startedAt', 'ASC']], limit: MAX_ROWS });
-    if (!all.length) throw new HttpError(404, 'NOT_FOUND', 'No table has played that seed yet.');
-    // The viewer's own tables on this seed, and those of any host at whose table they played it.
+    const all = await ExchangeRow.findAll({ where: { options: { seedName: seed } }, order: [['startedAt', 'ASC']], limit: MAX_ROWS });
+    // The viewer's own tables on this seed name, and those of any host at whose table they played it.
     const hosts = new Set([user.id, ...all.filter((r) => isParticipant(r, user.id)).map((r) => r.hostId)]);
     const rows = user.role === 'admin' ? all : all.filter((r) => hosts.has(r.hostId));
-    if (!rows.length) throw new HttpError(403, 'FORBIDDEN', 'Only the hosts and players of tables on this seed can compare them.');
+    // One answer whether nobody dealt the seed or only others did: a guessed seed is never confirmed.
+    if (!rows.length) throw new HttpError(404, 'NOT_FOUND', 'None of your tables, nor any table you played at, has dealt that seed.');
     res.json({ comparison: await compareExchanges(rows, user, `Tables on seed ${seed}`) });
   });
 

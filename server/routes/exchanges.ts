@@ -6,7 +6,8 @@ import { requireUser } from '../auth/guards';
 import { ExchangeRow, HuddleNoteRow, isParticipant } from '../db/models';
 import { HttpError } from '../errors';
 import { storedLog } from '../services/exchange-log';
-import { figuresFor, seatOfUser as seatOf } from '../services/exchange-stats';
+import { figuresFor, listsFor, seatOfUser as seatOf } from '../services/exchange-stats';
+import { dealKey, dealsStillToPlay } from '../services/comparisons';
 
 export function exchangesRouter() {
   const router = Router();
@@ -48,6 +49,11 @@ export function exchangesRouter() {
       throw new HttpError(403, 'FORBIDDEN', 'Only the players, the host and admins can replay this exchange.');
     }
     if (row.status !== 'done') throw new HttpError(409, 'NOT_FINISHED', 'This exchange is still under way; its replay opens when it ends.');
+    const list = (await listsFor([row])).get(row.id)!;
+    // The same deal waiting at another of the viewer's seats stays closed: its racks are in here.
+    if ((await dealsStillToPlay(user.id, [row.hostId])).has(dealKey(row.options, list.id))) {
+      throw new HttpError(409, 'DEAL_STILL_TO_PLAY', 'You are still to play this deal at another table. Its replay opens once that table is done.');
+    }
     const log = await storedLog(row.id);
     const notes = await HuddleNoteRow.findAll({ where: { exchangeId: row.id }, order: [['id', 'ASC']] });
     const replay: ExchangeReplayDto = {
@@ -56,6 +62,7 @@ export function exchangesRouter() {
       tableName: row.tableName,
       options: row.options,
       log,
+      patternList: list,
       seats: Object.fromEntries(
         SEATS.map((s) => {
           const o = row.seats[s];

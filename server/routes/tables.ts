@@ -48,6 +48,13 @@ export function tablesRouter(registry: TableRegistry) {
     const parsed = createTableSchema.safeParse(req.body ?? {});
     if (!parsed.success) throw badInput(parsed.error);
     const { name, options, drillId } = parsed.data;
+    const role = req.user!.role;
+    if (options?.teaching && role !== 'teacher' && role !== 'admin') {
+      // Teaching mode shows the host every rack: a teacher's tool, never a player's.
+      throw new HttpError(403, 'FORBIDDEN', 'Only teachers open tables in teaching mode, where the host sees every rack.', {
+        'options.teaching': 'Teaching mode is for teachers: the host sees every rack. Turn it off to open this table.',
+      });
+    }
     const stored: StoredTableOptions = defaultTableOptions(options);
     if (drillId) {
       // A drill deals the table: its seed, preset racks, parts and pattern list override the request's.

@@ -6,7 +6,8 @@ import { Op } from 'sequelize';
 import type { ComparedSeatDto, ComparedTableDto, ComparisonDto, DealComparisonDto, StandingDto } from '../../shared/comparisons';
 import type { ExchangeOptions } from '../../shared/exchange/types';
 import { SEATS } from '../../shared/seats';
-import { isParticipant, TableRow, type ExchangeRow } from '../db/models';
+import { ExchangeRow, isParticipant, TableRow } from '../db/models';
+import { dealScope, dealSeed } from './deal-seed';
 import { figuresFor, listsFor } from './exchange-stats';
 
 export interface Viewer {
@@ -38,18 +39,22 @@ function placed<T>(items: T[], value: (item: T) => number[]): (T & { place: numb
 const round = (n: number) => Math.round(n * 100) / 100;
 
 /**
- * Tables where the viewer still has passes to make on a deal: an exchange under way, or a table
- * not yet started, of the same hosts and seed. Seeing other tables' passes first would show
- * them the deal.
+ * Deals the viewer still has passes to make on: the deal under way, or the next one, at every
+ * table of these hosts where the viewer sits. Seeing another table's passes, or a replay, of such
+ * a deal first would show the viewer its racks.
  */
-async function openSeatsOnDeal(viewer: Viewer, rows: readonly ExchangeRow[]): Promise<Set<string>> {
-  const hostIds = [...new Set(rows.map((r) => r.hostId))];
-  const tables = await TableRow.findAll({ where: { hostId: { [Op.in]: hostIds }, status: { [Op.ne]: 'done' } }, attributes: ['id', 'seats', 'options', 'status'], limit: 500 });
+export async function dealsStillToPlay(viewerId: number, hostIds: readonly number[]): Promise<Set<string>> {
   const open = new Set<string>();
-  for (const t of tables) {
-    const sits = SEATS.some((s) => t.seats[s]?.kind === 'user' && (t.seats[s] as { userId: number }).userId === viewer.id);
-    if (!sits || !t.options.seed) continue;
-    open.add(dealKey({ seed: t.options.seed, jokers: t.options.jokers, racks: t.options.racks }, t.options.patternListId ?? 'starter'));
+  if (!hostIds.length) return open;
+  const tables = await TableRow.findAll({ where: { hostId: { [Op.in]: [...new Set(hostIds)] } }, attributes: ['id', 'seats', 'options', 'status'], limit: 500 });
+  const mine = tables.filter((t) => t.options.seed && SEATS.some((s) => t.seats[s]?.kind === 'user' && (t.seats[s] as { userId: number }).userId === viewerId));
+  if (!mine.length) return open;
+  const counts = (await ExchangeRow.count({ where: { tableId: { [Op.in]: mine.map((t) => t.id) } }, group: ['tableId'] })) as unknown as { tableId: string; count: number }[];
+  const dealt = new Map(counts.map((c) => [c.tableId, Number(c.count)]));
+  for (const t of mine) {
+    const rounds = dealt.get(t.id) ?? 0;
+    const round = t.status === 'playing' ? Math.max(0, rounds - 1) : rounds;
+    open.add(dealKey({ seed: dealSeed(dealScope(t), t.options.seed!, round), jokers: t.options.jokers, racks: t.options.racks }, t.options.patternListId ?? 'starter'));
   }
   return open;
 }
@@ -64,7 +69,7 @@ export async function compareExchanges(rows: readonly ExchangeRow[], viewer: Vie
     const key = dealKey(row.options, lists.get(row.id)!.id);
     groups.set(key, [...(groups.get(key) ?? []), row]);
   }
-  const open = viewer.role === 'admin' ? new Set<string>() : await openSeatsOnDeal(viewer, rows);
+  const open = viewer.role === 'admin' ? new Set<string>() : await dealsStillToPlay(viewer.id, rows.map((r) => r.hostId));
 
   const deals: DealComparisonDto[] = [];
   const withheld: ComparisonDto['withheld'] = [];
@@ -74,7 +79,7 @@ export async function compareExchanges(rows: readonly ExchangeRow[], viewer: Vie
     const done = group.filter((r) => r.status === 'done');
     const drillName = group.map((r) => drillNameOf.get(r.tableId)).find(Boolean) ?? null;
     const host = viewer.role === 'admin' || group.every((r) => r.hostId === viewer.id);
-    const dealTitle = drillName ? `Drill: ${drillName}` : host ? `Seed ${group[0].options.seed}` : `Deal ${index}`;
+    const dealTitle = drillName ? `Drill: ${drillName}` : host && group[0].options.seedName ? `Seed ${group[0].options.seedName}` : `Deal ${index}`;
     if (!host) {
       if (!done.some((r) => isParticipant(r, viewer.id))) {
         withheld.push({ title: dealTitle, reason: 'You have not finished a table on this deal yet. It opens once you have.' });
@@ -121,7 +126,7 @@ export async function compareExchanges(rows: readonly ExchangeRow[], viewer: Vie
       key: `deal-${index}`,
       title: dealTitle,
       drillName,
-      seed: host ? group[0].options.seed : null,
+      seed: host ? (group[0].options.seedName ?? null) : null,
       patternListName: lists.get(group[0].id)!.name,
       tables: ranked,
       standings,

@@ -26,9 +26,11 @@ export function splitIntoTables<T>(students: T[], tables: number): T[][] {
 }
 
 async function dealFor(lesson: Lesson, drillId: string | undefined, holdEveryPass: boolean): Promise<StoredTableOptions> {
-  const options: StoredTableOptions = defaultTableOptions({ seed: lesson.seed ?? undefined, huddleEveryPass: holdEveryPass });
+  // Every table of the lesson deals the same deal from the lesson's seed (see services/deal-seed.ts).
+  const options: StoredTableOptions = { ...defaultTableOptions({ seed: lesson.seed ?? undefined, huddleEveryPass: holdEveryPass }), dealScope: `lesson:${lesson.id}` };
   const id = drillId ?? lesson.drillIds[0];
   if (!id) return options;
+  delete options.dealScope;
   if (!lesson.drillIds.includes(id)) throw new HttpError(400, 'BAD_INPUT', 'Some fields need another look.', { drillId: 'Pick one of the drills this lesson plays.' });
   const drill = await DrillRow.findByPk(id);
   if (!drill) throw new HttpError(409, 'DRILL_GONE', 'A drill of this lesson no longer exists. Edit the lesson or name a seed.');

@@ -1,6 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { TableOptionsInput } from '../../shared/protocol';
+import { useMe } from '../api/auth';
 import { ApiError } from '../api/client';
 import { createTableErrors, useCreateTable } from '../api/tables';
 import { Button } from './Button';
@@ -22,6 +23,10 @@ const SWITCHES: { key: Switch; label: string; hint: string; initial: boolean }[]
 /** Opens a new table with every option the host can choose, and shows each field's error beside it. */
 export function CreateTableForm() {
   const navigate = useNavigate();
+  const me = useMe();
+  // Teaching mode shows the host every rack: only teachers (and admins) may open such a table.
+  const mayTeach = me.data?.role === 'teacher' || me.data?.role === 'admin';
+  const switches_ = SWITCHES.filter((s) => s.key !== 'teaching' || mayTeach);
   const create = useCreateTable();
   const [name, setName] = useState('');
   const [seed, setSeed] = useState('');
@@ -32,7 +37,8 @@ export function CreateTableForm() {
 
   const onSubmit = async (e: FormEvent) => {
     e.preventDefault();
-    const input = { name, private: isPrivate, options: { ...switches, ...(seed.trim() ? { seed } : {}) } };
+    const { teaching, ...rest } = switches;
+    const input = { name, private: isPrivate, options: { ...rest, ...(mayTeach ? { teaching } : {}), ...(seed.trim() ? { seed } : {}) } };
     const found = await createTableErrors(input);
     setErrors(found);
     setProblem('');
@@ -57,7 +63,7 @@ export function CreateTableForm() {
       <TextField label="Table name" value={name} onChange={(e) => setName(e.target.value)} error={errors.name} required />
       <TextField
         label="Deal seed (optional)"
-        hint="The same seed deals the same racks, so two tables can play the same deal. Leave empty for a fresh deal."
+        hint="A seed names this table's deals, so you can find them again to compare. Other tables on the same seed deal other racks: to put several tables on one deal, use a drill or a lesson. Leave empty for a fresh deal."
         value={seed}
         onChange={(e) => setSeed(e.target.value)}
         error={errors['options.seed'] ?? errors.seed}
@@ -65,7 +71,7 @@ export function CreateTableForm() {
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 font-semibold">How the table plays</legend>
         <CheckField label="Private table" hint="Only people with the invite link can find and join it." checked={isPrivate} onChange={setPrivate} error={errors.private} />
-        {SWITCHES.map((s) => (
+        {switches_.map((s) => (
           <CheckField
             key={s.key}
             label={s.label}

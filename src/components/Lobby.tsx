@@ -23,6 +23,7 @@ function TableRow({ table }: { table: TableDto }) {
           Host {table.hostName} · {STATUS_WORDS[table.status]} · {filled} of 4 seats filled
           {table.private ? ' · private' : ''}
           {table.options.hideAdvice ? ' · no advice' : ''}
+          {table.options.teaching ? ' · teaching table: the host sees every rack' : ''}
         </p>
       </div>
     </li>

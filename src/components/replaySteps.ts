@@ -1,4 +1,4 @@
-import { bestAway, rankPatterns, starterPatterns } from '../../shared/analysis';
+import { bestAway, rankPatterns, type Pattern } from '../../shared/analysis';
 import { act, createExchange, resolve, viewFor, PASS_DIRECTION, type ExchangeState, type PassRecord, type Phase } from '../../shared/exchange';
 import type { ExchangeReplayDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
@@ -25,8 +25,8 @@ const PASS_TITLES: Partial<Record<Phase, string>> = {
   'courtesy-pass': 'courtesy pass',
 };
 
-function awayOf(state: ExchangeState): Record<Seat, number> {
-  return Object.fromEntries(SEATS.map((s) => [s, bestAway(state.racks[s].map((t) => t.kind), starterPatterns)])) as Record<Seat, number>;
+function awayOf(state: ExchangeState, patterns: readonly Pattern[]): Record<Seat, number> {
+  return Object.fromEntries(SEATS.map((s) => [s, bestAway(state.racks[s].map((t) => t.kind), patterns)])) as Record<Seat, number>;
 }
 
 /** Every state of the exchange, entry by entry, as replay(options, log.slice(0, k)) would give. */
@@ -62,12 +62,13 @@ export function replaySteps(dto: ExchangeReplayDto): ReplayStep[] {
       title = 'Courtesy asks settled';
       short = 'Asks';
     }
-    return { at, state, pass, title, short, away: awayOf(state) };
+    return { at, state, pass, title, short, away: awayOf(state, dto.patternList.patterns) };
   });
 }
 
-export function nearestOf(state: ExchangeState, seat: Seat) {
-  return rankPatterns(state.racks[seat].map((t) => t.kind), starterPatterns, 1)[0] ?? null;
+/** The nearest pattern of the table's own list. */
+export function nearestOf(state: ExchangeState, seat: Seat, patterns: readonly Pattern[]) {
+  return rankPatterns(state.racks[seat].map((t) => t.kind), patterns, 1)[0] ?? null;
 }
 
 export function fullView(state: ExchangeState) {

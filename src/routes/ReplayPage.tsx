@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useState } from 'react';
 import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
-import { rankPatterns, starterPatterns } from '../../shared/analysis';
+import { rankPatterns, type Pattern } from '../../shared/analysis';
 import type { ExchangeReplayDto } from '../../shared/protocol';
 import { SEATS, seatTo, type Seat } from '../../shared/seats';
 import { tileName, type Tile as TileData } from '../../shared/tiles';
@@ -17,14 +17,14 @@ import { Tile } from '../components/Tile';
 import { capitalise } from '../realtime/seating';
 
 /** The three nearest patterns, worked out only when opened. */
-function RackDetail({ rack }: { rack: readonly TileData[] }) {
+function RackDetail({ rack, patterns }: { rack: readonly TileData[]; patterns: readonly Pattern[] }) {
   const [open, setOpen] = useState(false);
   return (
     <details onToggle={(e) => setOpen(e.currentTarget.open)}>
       <summary className="cursor-pointer text-base font-medium">What this rack keeps and needs</summary>
       {open && (
         <ul>
-          {rankPatterns(rack.map((t) => t.kind), starterPatterns, 3).map((ranked) => (
+          {rankPatterns(rack.map((t) => t.kind), patterns, 3).map((ranked) => (
             <PatternRow key={ranked.pattern.id} ranked={ranked} />
           ))}
         </ul>
@@ -33,13 +33,13 @@ function RackDetail({ rack }: { rack: readonly TileData[] }) {
   );
 }
 
-function SeatPanel({ step, seat, name }: { step: ReplayStep; seat: Seat; name: string }) {
+function SeatPanel({ step, seat, name, patterns }: { step: ReplayStep; seat: Seat; name: string; patterns: readonly Pattern[] }) {
   const rack = step.state.racks[seat];
   const pass = step.pass;
   const kinds = new Map(SEATS.flatMap((s) => step.state.racks[s].map((t) => [t.id, t.kind] as const)));
   const sent = pass ? pass.sent[seat] : [];
   const direction = pass ? PASS_DIRECTION[pass.phase] : undefined;
-  const nearest = nearestOf(step.state, seat);
+  const nearest = nearestOf(step.state, seat, patterns);
   return (
     <section aria-label={`${capitalise(seat)}: ${name}`} className="flex min-w-0 flex-col gap-2 rounded-card border border-line/60 bg-card p-3">
       <h3 className="font-semibold">
@@ -60,7 +60,7 @@ function SeatPanel({ step, seat, name }: { step: ReplayStep; seat: Seat; name: s
           Nearest: <span className="font-semibold">{nearest.pattern.name}</span>, {nearest.away} away
         </p>
       )}
-      <RackDetail rack={rack} />
+      <RackDetail rack={rack} patterns={patterns} />
     </section>
   );
 }
@@ -138,7 +138,7 @@ function Replay({ dto }: { dto: ExchangeReplayDto }) {
       <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="grid min-w-0 grid-cols-1 gap-3 md:grid-cols-2">
           {SEATS.map((s) => (
-            <SeatPanel key={s} step={step} seat={s} name={names[s]} />
+            <SeatPanel key={s} step={step} seat={s} name={names[s]} patterns={dto.patternList.patterns} />
           ))}
         </div>
         <aside className="flex min-w-0 flex-col gap-4" aria-label="This step">

@@ -200,6 +200,11 @@ export function TablePage() {
         </p>
       </header>
       {error && <FormMessage error>{error}</FormMessage>}
+      {table.options.teaching && (
+        <p role="note" className="rounded-card border-2 border-ink/30 bg-card px-4 py-2 font-medium">
+          {table.isHost ? 'Teaching table: you see every rack, and every seat is told so.' : 'Teaching table: the host sees every rack at this table, yours included.'}
+        </p>
+      )}
       <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0">
           {table.status === 'lobby' || !view ? (

@@ -1,6 +1,7 @@
 import { createExchange, act, resolve, viewFor, type Action, type ExchangeState } from '../../shared/exchange';
 import type { TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
+import { starterPatterns } from '../../shared/analysis';
 
 const occupants = {
   east: { kind: 'user', userId: 1, displayName: 'Ruth Adeyemi', connected: true },
@@ -67,6 +68,7 @@ export function finishedReplay() {
     tableName: 'Harbor Lane Tuesday',
     options: { seed: OPTIONS.seed },
     log: s.log,
+    patternList: { id: 'starter', name: 'Starter list', patterns: starterPatterns },
     seats: {
       east: { displayName: 'Ruth Adeyemi', kind: 'user' as const },
       south: { displayName: 'Coach (bot)', kind: 'bot' as const, strategy: 'advised' },

@@ -87,3 +87,17 @@ test('an invite link pasted in opens that table; anything else is refused with a
   await waitFor(() => expect(router.state.location.pathname).toBe('/tables/t7'));
   expect(router.state.location.search).toBe('?invite=CODE1');
 });
+
+test('only a teacher is offered a teaching table, and a teaching table says in the lobby that the host sees every rack', async () => {
+  const teachingLists = { 'GET /api/tables': { status: 200, body: { mine: [], open: [table('t3', 'Ines teaches', { options: { ...OPTIONS, teaching: true } })] } } };
+  fakeApi({ ...signedInAs('player'), ...teachingLists });
+  const { unmount } = renderAt('/');
+  await screen.findByRole('button', { name: 'Open the table' });
+  expect(screen.queryByLabelText(/Teaching table/)).toBeNull();
+  expect(await screen.findByText(/teaching table: the host sees every rack/)).toBeTruthy();
+  unmount();
+
+  fakeApi({ ...signedInAs('teacher'), ...teachingLists });
+  renderAt('/');
+  expect(await screen.findByLabelText(/Teaching table/)).toBeTruthy();
+});

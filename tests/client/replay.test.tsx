@@ -75,3 +75,14 @@ test('a replay the viewer may not open says why', async () => {
   renderAt('/replays/x2');
   expect((await screen.findByRole('alert')).textContent).toContain('Only the players');
 });
+
+test('the replay judges every rack by the table’s own pattern list, not the starter list', async () => {
+  // A one-pattern list of the table's own: every "Nearest" names it.
+  const own = { id: 'l1', name: 'Ruth’s list', patterns: [{ ...dto.patternList.patterns[0], id: 'own-1', name: 'Ruth’s only hand' }] };
+  fakeApi({ ...answers, 'GET /api/exchanges/x1/replay': { status: 200, body: { replay: { ...dto, final: undefined, patternList: own } } } });
+  renderAt('/replays/x1');
+  await screen.findByRole('heading', { name: 'Replay: Harbor Lane Tuesday' });
+  const nearest = screen.getAllByText(/^Nearest:/);
+  expect(nearest).toHaveLength(4);
+  for (const line of nearest) expect(line.textContent).toContain('Ruth’s only hand');
+});

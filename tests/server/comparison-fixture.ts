@@ -2,6 +2,7 @@
  * A hand-made deal for the comparison and progress tests: preset racks for all four seats, a
  * one-pattern list, and passes chosen so every seat's tiles away are worked out by hand.
  */
+import { dealScope, dealSeed } from '../../server/services/deal-seed';
 import { randomUUID } from 'node:crypto';
 import { act, createExchange, resolve } from '../../shared/exchange';
 import type { Action, ExchangeOptions, ExchangeState, LogEntry } from '../../shared/exchange/types';
@@ -74,8 +75,8 @@ function idsOf(state: ExchangeState, seat: Seat, kinds: TileKind[]): string[] {
 }
 
 /** Plays a plan through the engine and returns its log. */
-export function playPlan(plan: Plan): { log: LogEntry[]; state: ExchangeState } {
-  let state = createExchange(dealOptions);
+export function playPlan(plan: Plan, options: ExchangeOptions = dealOptions): { log: LogEntry[]; state: ExchangeState } {
+  let state = createExchange(options);
   const log: LogEntry[] = [];
   for (const phase of ['first-right', 'first-across', 'first-left'] as const) {
     if (state.phase !== phase) throw new Error(`expected ${phase}, at ${state.phase}`);
@@ -125,7 +126,9 @@ export async function makeTable(teacher: User, drill: DrillRow, name: string, oc
   const options = { ...defaultTableOptions({ seed: drill.seed, jokers: false, secondCharleston: false, courtesy: false, patternListId: drill.patternListId }), drillId: drill.id, drillName: drill.name, racks };
   const table = await TableRow.create({ id: randomUUID(), name, hostId: teacher.id, hostName: teacher.displayName, private: true, inviteCode: 'code', options, status: plan ? status : 'lobby', seats, currentExchangeId: null });
   if (!plan) return { table, exchange: null };
-  const { log } = playPlan(plan);
+  // As a table of the drill deals it: the engine's seed derived from the drill's seed name, first deal.
+  const dealt = { ...dealOptions, seed: dealSeed(dealScope(table), drill.seed, 0), seedName: drill.seed };
+  const { log } = playPlan(plan, dealt);
   const played = status === 'done' ? log : log.slice(0, 4);
   const ids = Object.values(occupants).flatMap((o) => (o === 'bot' ? [] : [o.id]));
   const exchange = await ExchangeRow.create({
@@ -133,7 +136,7 @@ export async function makeTable(teacher: User, drill: DrillRow, name: string, oc
     tableId: table.id,
     tableName: name,
     hostId: teacher.id,
-    options: dealOptions,
+    options: dealt,
     seats,
     participants: participantsKey(ids),
     status,

@@ -79,7 +79,10 @@ test('the lesson room: students split over tables, bots in the gaps, one seed ev
   const rows = await TableRow.findAll({ where: { id: tables.map((t) => t.id) } });
   expect(rows.map((r) => r.status)).toEqual(['playing', 'playing']);
   const exchanges = await ExchangeRow.findAll({ where: { tableId: tables.map((t) => t.id) } });
-  expect(exchanges.map((e) => e.options.seed)).toEqual(['harbor-lane-week-01', 'harbor-lane-week-01']);
+  // One deal at every table of the lesson: the same engine seed, derived from the lesson's seed name.
+  expect(exchanges.map((e) => e.options.seedName)).toEqual(['harbor-lane-week-01', 'harbor-lane-week-01']);
+  expect(new Set(exchanges.map((e) => e.options.seed)).size).toBe(1);
+  expect(exchanges[0].options.seed).not.toBe('harbor-lane-week-01');
 
   // Theo plays at his table; Ines steps into its huddle, and Theo sees the pass held.
   const theo = await client(s, 'Theo', cookies.Theo);

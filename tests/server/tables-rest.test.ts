@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { afterEach, beforeEach, expect, test } from 'vitest';
+import { User } from '../../server/db/models';
 import { Client, client, createTable, fullTable, liveServer, register, type Server } from './live';
 
 let server: Server;
@@ -14,6 +15,7 @@ afterEach(async () => {
 
 test('creating a table checks every field and stores the options', async () => {
   const cookie = await register(server, 'Ines');
+  await User.update({ role: 'teacher' }, { where: { email: 'ines@harborlane.test' } });
   const bad = await request(server.url).post('/api/tables').set('Cookie', cookie).send({ name: '', options: { seed: 'x'.repeat(200), jokers: 'yes', colour: 'red' } });
   expect(bad.status).toBe(400);
   expect(bad.body.error.code).toBe('BAD_INPUT');

@@ -55,7 +55,7 @@ test('a whole exchange: both Charlestons with blind passes, a courtesy pass, the
   const res = await request(server.url).get(`/api/exchanges/${host.state.exchangeId}/replay`).set('Cookie', host.cookie);
   expect(res.status).toBe(200);
   const dto = res.body.replay as ExchangeReplayDto;
-  expect(dto.options.seed).toBe('harbor-lane-week-01');
+  expect(dto.options.seedName).toBe('harbor-lane-week-01');
   const rebuilt = replay(dto.options, dto.log);
   expect(rebuilt.phase).toBe('done');
   expect(rebuilt.history.map((h) => h.phase)).toEqual(['first-right', 'first-across', 'first-left', 'second-left', 'second-across', 'second-right', 'courtesy-pass']);

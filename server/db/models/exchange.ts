@@ -2,13 +2,16 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import type { ExchangeOptions } from '../../../shared/exchange/types';
 import type { StoredSeats } from './table';
 
+/** The engine's options, and the seed name the host gave (the engine's seed is derived from it). */
+export type StoredExchangeOptions = ExchangeOptions & { seedName?: string | null };
+
 export class ExchangeRow extends Model<InferAttributes<ExchangeRow>, InferCreationAttributes<ExchangeRow>> {
   declare id: string;
   declare tableId: string;
   declare tableName: string;
   declare hostId: number;
   /** The engine's options, seed included: with the event log, the whole exchange. */
-  declare options: ExchangeOptions;
+  declare options: StoredExchangeOptions;
   /** Who sat where when it started. */
   declare seats: StoredSeats;
   /** User ids of the seated people as ",3,7,", so "my exchanges" is one indexed LIKE. */

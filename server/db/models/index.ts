@@ -17,7 +17,7 @@ export { DrillRow } from './drill';
 export { Lesson, Enrollment, Invitation, LessonTable } from './lesson';
 export { Payment, PaymentEvent } from './payment';
 export { Mail, PasswordReset } from './mail';
-export { ExchangeRow, ExchangeEventRow, HuddleNoteRow, participantsKey, isParticipant, type EventType } from './exchange';
+export { ExchangeRow, ExchangeEventRow, HuddleNoteRow, participantsKey, isParticipant, type EventType, type StoredExchangeOptions } from './exchange';
 
 export function initModels(sequelize: Sequelize) {
   initUser(sequelize);

@@ -7,7 +7,11 @@ import type { TileKind } from '../../../shared/tiles';
 export type StoredOccupant = { kind: 'user'; userId: number; displayName: string } | { kind: 'bot'; strategy: string; displayName: string };
 export type StoredSeats = Record<Seat, StoredOccupant | null>;
 /** Options as stored: a drill's preset racks are kept here and never leave the server. */
-export type StoredTableOptions = TableOptions & { racks?: Partial<Record<Seat, TileKind[]>> };
+export type StoredTableOptions = TableOptions & {
+  racks?: Partial<Record<Seat, TileKind[]>>;
+  /** Where the table's seed name holds (`lesson:<id>`, `drill:<id>`; absent: the table alone). Never shown. */
+  dealScope?: string;
+};
 
 export class TableRow extends Model<InferAttributes<TableRow>, InferCreationAttributes<TableRow>> {
   declare id: string;
