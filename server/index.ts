@@ -41,19 +41,47 @@ export async function startServer(givenConfig: Config) {
   return { httpServer, io, registry, sequelize, port, close, fakes, config };
 }
 
-/** Starts Rackside and closes it cleanly on SIGTERM or SIGINT. */
+/** A stop after an unhandled rejection gets this long to close cleanly before the process exits anyway. */
+const FAILED_CLOSE_DEADLINE_MS = 10_000;
+
+/**
+ * Starts Rackside and closes it cleanly on SIGTERM or SIGINT. An unhandled rejection leaves the
+ * process in a state nobody knows: it is logged, and Rackside closes and exits with 1 so that its
+ * supervisor starts it afresh (every acked action is already stored).
+ */
 export function serve(config: Config) {
-  startServer(config)
-    .then(({ port, close }) => {
-      console.log(`Rackside is ready on http://localhost:${port}`);
-      const stop = () => {
-        close().finally(() => process.exit(0));
-      };
-      process.once('SIGTERM', stop);
-      process.once('SIGINT', stop);
-      // A failure in a connection to Redis or the database (say, while one of them restarts) is
-      // logged and lived through: the clients retry, and nothing acked depends on it.
-      process.on('unhandledRejection', (reason) => console.error('Unhandled rejection (Rackside keeps running):', reason));
+  let running: Awaited<ReturnType<typeof startServer>> | null = null;
+  let closing: Promise<void> | null = null;
+  let exitCode: number | null = null;
+
+  function stop(code: number) {
+    exitCode = Math.max(exitCode ?? 0, code);
+    if (code !== 0) setTimeout(() => process.exit(exitCode ?? code), FAILED_CLOSE_DEADLINE_MS).unref();
+    // A stop asked for during startup waits for the server to be up, then closes it.
+    if (!running) return;
+    closing ??= running
+      .close()
+      .catch((err) => {
+        console.error('Rackside did not close cleanly:', err);
+        exitCode = Math.max(exitCode ?? 0, 1);
+      })
+      .finally(() => process.exit(exitCode ?? 0));
+  }
+  // Kept, not `once`: from a terminal both the shell and npm pass Ctrl-C on, and the second signal
+  // must not cut the first one's close short.
+  process.on('SIGTERM', () => stop(0));
+  process.on('SIGINT', () => stop(0));
+  process.on('unhandledRejection', (reason) => {
+    console.error('Unhandled rejection: Rackside stops so that its supervisor can start it afresh.', reason);
+    stop(1);
+  });
+
+  return startServer(config)
+    .then((server) => {
+      running = server;
+      console.log(`Rackside is ready on http://localhost:${server.port}`);
+      if (exitCode !== null) stop(exitCode);
+      return server;
     })
     .catch((err) => {
       console.error('Rackside could not start:', err);
@@ -62,4 +90,4 @@ export function serve(config: Config) {
 }
 
 const isMain = process.argv[1] && import.meta.url === new URL(`file://${process.argv[1]}`).href;
-if (isMain) serve(loadConfig());
+if (isMain) void serve(loadConfig());

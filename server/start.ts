@@ -1,4 +1,8 @@
-/** `npm start`: builds the client when it is missing or older than its sources, then serves everything. */
+/**
+ * `npm start` (`node --import tsx server/start.ts`, with no shell or wrapper between npm and this
+ * process, so the SIGTERM a process manager sends to npm reaches the server): builds the client when
+ * it is missing or older than its sources, then serves everything in this same process.
+ */
 import { execSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
@@ -20,4 +24,4 @@ if (!existsSync(builtIndex) || statSync(builtIndex).mtimeMs < Math.max(...source
   execSync('npx vite build', { stdio: 'inherit' });
 }
 
-serve(config);
+void serve(config);
