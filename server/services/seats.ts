@@ -1,10 +1,11 @@
 /**
  * Seat accounting for lessons. Every change that may take a seat runs through `seatTransaction`:
  * one at a time per lesson in this process, inside an IMMEDIATE SQLite transaction (the write
- * lock is taken before the count is read, so a second process cannot count the same free seat).
+ * lock is taken before the count is read, so a second process cannot count the same free seat);
+ * on PostgreSQL the lesson's row is locked (SELECT … FOR UPDATE) to the same end.
  */
 import { Op, Transaction, type Sequelize } from 'sequelize';
-import { Enrollment, Payment, type Lesson } from '../db/models';
+import { Enrollment, Lesson, Payment } from '../db/models';
 
 const queues = new Map<number, Promise<unknown>>();
 
@@ -26,7 +27,10 @@ export function seatTransaction<T>(sequelize: Sequelize, lessonId: number, work:
     // A connection opened for a transaction may not wait on a lock held elsewhere: retry briefly.
     for (let attempt = 0; ; attempt++) {
       try {
-        return await sequelize.transaction({ type: Transaction.TYPES.IMMEDIATE }, work);
+        return await sequelize.transaction({ type: Transaction.TYPES.IMMEDIATE }, async (t) => {
+          if (sequelize.getDialect() === 'postgres') await Lesson.findByPk(lessonId, { transaction: t, lock: t.LOCK.UPDATE });
+          return work(t);
+        });
       } catch (err) {
         if (!isBusy(err) || attempt >= 20) throw err;
         await new Promise((r) => setTimeout(r, 25 * (attempt + 1)));
@@ -37,23 +41,28 @@ export function seatTransaction<T>(sequelize: Sequelize, lessonId: number, work:
 
 /**
  * Seats held now: in a free lesson every accepted student; in a priced one every paid student
- * plus every checkout still inside its hold (other than `exceptPaymentId`).
+ * plus every other student with a checkout still inside its hold. A student counts once, however
+ * many checkouts they started and whatever order their payments were heard of in.
+ * `exceptUserId`: leave this student out (the one whose payment is being placed).
  */
-export async function seatsTaken(lesson: Lesson, t?: Transaction, exceptPaymentId?: number): Promise<number> {
+export async function seatsTaken(lesson: Lesson, t?: Transaction, exceptUserId?: number): Promise<number> {
   if (lesson.priceCents === 0) {
     return Enrollment.count({ where: { lessonId: lesson.id, status: { [Op.in]: ['enrolled', 'paid'] } }, transaction: t });
   }
-  const paid = await Enrollment.count({ where: { lessonId: lesson.id, status: 'paid' }, transaction: t });
-  const holds = await Payment.count({
+  const paid = (await Enrollment.findAll({ attributes: ['userId'], where: { lessonId: lesson.id, status: 'paid' }, transaction: t })).map((e) => e.userId);
+  const leftOut = exceptUserId === undefined ? paid : [...paid, exceptUserId];
+  const holding = await Payment.count({
+    distinct: true,
+    col: 'userId',
     where: {
       lessonId: lesson.id,
       status: 'pending',
       holdUntil: { [Op.gt]: new Date() },
-      ...(exceptPaymentId ? { id: { [Op.ne]: exceptPaymentId } } : {}),
+      ...(leftOut.length ? { userId: { [Op.notIn]: leftOut } } : {}),
     },
     transaction: t,
   });
-  return paid + holds;
+  return paid.filter((id) => id !== exceptUserId).length + holding;
 }
 
 /** Students who hold a seat (and so go to the lesson room). */

@@ -1,9 +1,13 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Currency, PaymentStatus } from '../../../shared/lessons';
 
+/** `lesson-full`: the last seat went to someone else first; `already-paid`: the student's seat was already paid. */
+export type RefundReason = 'lesson-full' | 'already-paid';
+
 /**
  * One attempt to pay for a seat. While `pending` and before `holdUntil` it holds a seat, so a
- * lesson never sells more checkouts than it has seats; only a verified webhook makes it `paid`.
+ * lesson never sells more checkouts than it has seats; only a verified webhook makes it `paid`,
+ * and at most one payment per student and lesson is ever `paid` (a unique index where status is paid).
  */
 export class Payment extends Model<InferAttributes<Payment>, InferCreationAttributes<Payment>> {
   declare id: CreationOptional<number>;
@@ -19,6 +23,8 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare paidAt: CreationOptional<Date | null>;
   declare refundedAt: CreationOptional<Date | null>;
   declare refundId: CreationOptional<string | null>;
+  /** Why it was (or is to be) refunded. */
+  declare refundReason: CreationOptional<RefundReason | null>;
   declare note: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -49,6 +55,7 @@ export function initPayments(sequelize: Sequelize) {
       paidAt: { type: DataTypes.DATE, allowNull: true },
       refundedAt: { type: DataTypes.DATE, allowNull: true },
       refundId: { type: DataTypes.STRING(255), allowNull: true },
+      refundReason: { type: DataTypes.STRING(16), allowNull: true },
       note: { type: DataTypes.STRING(300), allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

@@ -53,3 +53,13 @@ export function refundMail(lesson: Lesson, payerName: string, amount: string) {
   ];
   return { subject: `Refund for "${lesson.title}"`, text: `${lines.join('\n\n')}\n`, html: html(lines) };
 }
+
+/** A second payment for a seat that was already paid (two checkouts, both paid): the later one goes back. */
+export function alreadyPaidRefundMail(lesson: Lesson, payerName: string, amount: string) {
+  const lines = [
+    `Hello ${payerName}: your seat in "${lesson.title}" was already paid, and a second payment of ${amount} for it reached us.`,
+    `We have refunded that second payment in full. Your seat stays yours; there is nothing you need to do.`,
+    `The lesson starts ${lessonTime(lesson)}.`,
+  ];
+  return { subject: `Refund for "${lesson.title}": your seat was already paid`, text: `${lines.join('\n\n')}\n`, html: html(lines) };
+}

@@ -4,6 +4,9 @@
  * checkout page (so no card data ever reaches Rackside; this page asks for none either), and on
  * "pay" sends a webhook signed the way the service signs them: header
  * `Stripe-Signature: t=<unix time>,v1=<hex HMAC-SHA256 of "<t>.<body>" keyed by the webhook secret>`.
+ * Expiring a session sends `checkout.session.expired` a moment later, as the service does; a
+ * refund repeated with the same `Idempotency-Key` header answers the first refund again, and a
+ * second refund of a payment already refunded in full is refused (`charge_already_refunded`).
  */
 import { createHmac, randomBytes } from 'node:crypto';
 import type { AddressInfo } from 'node:net';
@@ -58,12 +61,32 @@ export interface FakePayments {
   webhookUrl: string | null;
   sessions: Map<string, FakeSession>;
   events: Map<string, FakeEvent>;
-  refunds: { id: string; payment_intent: string; amount: number; status: 'succeeded' }[];
+  refunds: FakeRefund[];
   deliveries: Delivery[];
-  /** Completes a session as if its page's "Pay" were pressed; returns the event and what the webhook got back. */
-  pay(sessionId: string): Promise<{ event: FakeEvent; delivery: Delivery | null }>;
+  /** Tests: when true, no event is sent by itself; `held` lists them, and `deliver` sends one when asked. */
+  holdDeliveries: boolean;
+  held: string[];
+  /** Tests: API calls that answer 500 as if the service were down ("expire", "refunds"). */
+  outage: Set<'expire' | 'refunds'>;
+  /**
+   * Completes a session as if its page's "Pay" were pressed; returns the event and what the
+   * webhook got back (null when `deliver: false` or deliveries are held: the event waits in `held`).
+   */
+  pay(sessionId: string, options?: { deliver?: boolean }): Promise<{ event: FakeEvent; delivery: Delivery | null }>;
   deliver(eventId: string): Promise<Delivery | null>;
+  /** Resolves once every event sent in the background (after an expire) has had its answer. */
+  idle(): Promise<void>;
   close(): Promise<void>;
+}
+
+export interface FakeRefund {
+  id: string;
+  object: 'refund';
+  payment_intent: string;
+  amount: number;
+  currency: string;
+  status: 'succeeded';
+  metadata: Record<string, string>;
 }
 
 const now = () => Math.floor(Date.now() / 1000);
@@ -83,6 +106,12 @@ export function signWebhook(payload: string, secret: string, timestamp = now()):
 export async function startFakePayments(options: { apiKey: string; webhookSecret: string; webhookUrl?: string }): Promise<FakePayments> {
   const app = express();
   const server: Server = createServer(app);
+  /** Deliveries under way in the background, and refunds already made by idempotency key. */
+  const background = new Set<Promise<unknown>>();
+  const refundsByKey = new Map<string, FakeRefund>();
+  const idle = async () => {
+    while (background.size) await Promise.all([...background]);
+  };
   const fake: FakePayments = {
     port: 0,
     url: '',
@@ -91,9 +120,16 @@ export async function startFakePayments(options: { apiKey: string; webhookSecret
     events: new Map(),
     refunds: [],
     deliveries: [],
+    holdDeliveries: false,
+    held: [],
+    outage: new Set(),
     pay,
     deliver,
-    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+    idle,
+    close: async () => {
+      await idle();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+    },
   };
 
   function emit(type: string, object: unknown): FakeEvent {
@@ -132,7 +168,7 @@ export async function startFakePayments(options: { apiKey: string; webhookSecret
     }
   }
 
-  async function pay(sessionId: string) {
+  async function pay(sessionId: string, options: { deliver?: boolean } = {}) {
     const session = fake.sessions.get(sessionId);
     if (!session) throw new Error(`No checkout session ${sessionId}`);
     if (session.status !== 'open') throw new Error(`Checkout session ${sessionId} is ${session.status}`);
@@ -140,7 +176,19 @@ export async function startFakePayments(options: { apiKey: string; webhookSecret
     session.payment_status = 'paid';
     session.payment_intent = newId('pi');
     const event = emit('checkout.session.completed', { ...session });
+    if (fake.holdDeliveries || options.deliver === false) {
+      fake.held.push(event.id);
+      return { event, delivery: null };
+    }
     return { event, delivery: await deliver(event.id) };
+  }
+
+  /** Sends an event without holding up the API answer that caused it, unless deliveries are held. */
+  function sendLater(event: FakeEvent) {
+    if (fake.holdDeliveries) return void fake.held.push(event.id);
+    const sending: Promise<unknown> = new Promise((resolve) => setImmediate(resolve)).then(() => deliver(event.id));
+    background.add(sending);
+    void sending.finally(() => background.delete(sending));
   }
 
   // ───────────── the API the SDK calls ─────────────
@@ -193,19 +241,38 @@ export async function startFakePayments(options: { apiKey: string; webhookSecret
   });
 
   v1.post('/checkout/sessions/:id/expire', (req, res) => {
+    if (fake.outage.has('expire')) return fail(res, 500, 'api_error', 'The fake is down for expire (a test asked for it).');
     const session = fake.sessions.get(String(req.params.id));
     if (!session) return fail(res, 404, 'invalid_request_error', `No such checkout.session: '${req.params.id}'`);
-    if (session.status !== 'open') return fail(res, 400, 'invalid_request_error', 'Only open sessions can be expired.');
+    if (session.status !== 'open') return fail(res, 400, 'invalid_request_error', 'Only Checkout Sessions with a status of open can be expired.');
     session.status = 'expired';
+    sendLater(emit('checkout.session.expired', { ...session }));
     res.json(session);
   });
 
   v1.post('/refunds', (req, res) => {
-    const intent = (req.body as Record<string, unknown>).payment_intent;
+    if (fake.outage.has('refunds')) return fail(res, 500, 'api_error', 'The fake is down for refunds (a test asked for it).');
+    const key = req.headers['idempotency-key'];
+    const earlier = typeof key === 'string' ? refundsByKey.get(key) : undefined;
+    if (earlier) return res.json(earlier);
+    const body = req.body as Record<string, unknown>;
+    const intent = body.payment_intent;
     const session = [...fake.sessions.values()].find((s) => s.payment_intent === intent);
     if (!session) return fail(res, 404, 'invalid_request_error', `No such payment_intent: '${String(intent)}'`);
-    const refund = { id: newId('re'), object: 'refund', payment_intent: String(intent), amount: session.amount_total, currency: session.currency, status: 'succeeded' as const };
+    if (fake.refunds.some((r) => r.payment_intent === intent)) {
+      return res.status(400).json({ error: { type: 'invalid_request_error', code: 'charge_already_refunded', message: `Charge for ${String(intent)} has already been refunded.` } });
+    }
+    const refund: FakeRefund = {
+      id: newId('re'),
+      object: 'refund',
+      payment_intent: String(intent),
+      amount: session.amount_total,
+      currency: session.currency,
+      status: 'succeeded',
+      metadata: (body.metadata as Record<string, string>) ?? {},
+    };
     fake.refunds.push(refund);
+    if (typeof key === 'string') refundsByKey.set(key, refund);
     res.json(refund);
   });
   app.use('/v1', v1);
