@@ -25,7 +25,13 @@ export interface Config {
   /** Origins besides our own host that may send state-changing requests and open sockets (ALLOWED_ORIGINS, comma-separated). */
   allowedOrigins: string[];
   /** Requests allowed per window, per address (and e-mail where one is given). */
-  rateLimits: Record<'register' | 'passwordReset' | 'invitations', { max: number; windowMs: number }> & { chatPerMinute: number };
+  rateLimits: Record<'register' | 'passwordReset' | 'invitations', { max: number; windowMs: number }> & {
+    chatPerMinute: number;
+    /** Moves one seat may send a second (passes, take-backs, votes, asks). */
+    actionsPerSecond: number;
+    /** Moves one seat may make in one exchange; a whole exchange takes a few dozen. */
+    actionsPerExchange: number;
+  };
   production: boolean;
   /** How long a bot waits before it acts, in ms. */
   botDelayMs: number;
@@ -94,6 +100,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
       passwordReset: { max: int(env.RESET_RATE_MAX, 5), windowMs: int(env.RESET_RATE_WINDOW_MS, 60 * 60 * 1000) },
       invitations: { max: int(env.INVITE_RATE_MAX, 100), windowMs: int(env.INVITE_RATE_WINDOW_MS, 60 * 60 * 1000) },
       chatPerMinute: int(env.CHAT_RATE_PER_MINUTE, 30),
+      actionsPerSecond: int(env.ACTION_RATE_PER_SECOND, 8),
+      actionsPerExchange: int(env.ACTIONS_PER_EXCHANGE, 400),
     },
     production,
     botDelayMs: int(env.BOT_DELAY_MS, 600),

@@ -8,7 +8,7 @@ import { Redis } from 'ioredis';
 import { clientEventSchemas, type Ack, type ClientEventName, type ClientToServerEvents, type ServerToClientEvents } from '../../shared/protocol';
 import type { Application } from '../app';
 import { TableError, type Member, type TableMaster, type TablePosition } from './table-master';
-import { RateLimiterMemory } from 'rate-limiter-flexible';
+import { RateLimiterMemory, RateLimiterRedis } from 'rate-limiter-flexible';
 import type { SessionData } from 'express-session';
 import { pastAbsoluteLifetime } from '../auth/session';
 import { isOwnOrigin } from '../security/origin';
@@ -71,7 +71,6 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     // The handshake of a page from another site is refused, like a state-changing REST request.
     allowRequest: (req, done) => done(isOwnOrigin(req, config) ? null : 'FOREIGN_ORIGIN', isOwnOrigin(req, config)),
   });
-  const chatLimiter = new RateLimiterMemory({ points: config.rateLimits.chatPerMinute, duration: 60 });
 
   // Run the session and passport on the handshake only (as Socket.IO's passport how-to shows).
   // On a WebSocket upgrade there is no HTTP response to write: the engine hands middleware a stand-in
@@ -111,6 +110,11 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
   // Several processes: Socket.IO's Redis adapter carries room emits and server-side notices between them.
   const redis = config.redisUrl ? connectRedis(config.redisUrl, application) : null;
   if (redis) io.adapter(createAdapter(redis.pub, redis.sub));
+  // Limits count across every process when they share a Redis.
+  const limiter = (keyPrefix: string, points: number, duration: number) =>
+    redis ? new RateLimiterRedis({ storeClient: redis.pub, keyPrefix, points, duration }) : new RateLimiterMemory({ keyPrefix, points, duration });
+  const chatLimiter = limiter('chat', config.rateLimits.chatPerMinute, 60);
+  const actionLimiter = limiter('act', config.rateLimits.actionsPerSecond, 1);
 
   /** Tells the other processes that a table changed in the database, so that they catch up and show it. */
   function tellPeers(master: TableMaster, whole = false) {
@@ -210,6 +214,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
   io.on('connection', (raw) => {
     const socket = raw as RacksideSocket;
     if (socket.data.sessionId) socket.join(`session:${socket.data.sessionId}`);
+    socket.join(`user:${socket.data.userId}`); // see ./sessions.ts
 
     /** Parses, runs, broadcasts, then acks: a bad payload or a refused action changes nothing. */
     function on<E extends ClientEventName>(event: E, run: (payload: ReturnType<(typeof clientEventSchemas)[E]['parse']>) => Promise<object | void>) {
@@ -299,7 +304,13 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     });
     on('exchange:act', async ({ action, version }) => {
       const master = await joined();
-      return after(master, master.act(member(socket), action, version), true);
+      try {
+        await actionLimiter.consume(`${master.id}:${socket.data.userId}`);
+      } catch (err) {
+        if (err instanceof Error) throw err;
+        throw new TableError('RATE_LIMITED', 'You are moving faster than anyone plays. Wait a moment; nothing of that move was kept.');
+      }
+      return after(master, master.act(member(socket), action, version, config.rateLimits.actionsPerExchange), true);
     });
     on('huddle:call', async () => {
       const master = await joined();
@@ -329,7 +340,8 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       const master = await joined();
       try {
         await chatLimiter.consume(String(socket.data.userId));
-      } catch {
+      } catch (err) {
+        if (err instanceof Error) throw err;
         application.logger.warn({ event: 'chat-limited', userId: socket.data.userId, tableId: master.id }, 'chat over the limit');
         throw new TableError('RATE_LIMITED', 'You are sending messages very fast. Wait a moment, then try again.');
       }
@@ -347,7 +359,8 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     });
 
     socket.onAny((event: string, ...args: unknown[]) => {
-      if (event in clientEventSchemas) return;
+      // Own keys only: "toString" or "__proto__" are in every object, and are no Rackside message.
+      if (typeof event === 'string' && Object.hasOwn(clientEventSchemas, event)) return;
       const ack = args[args.length - 1];
       if (typeof ack === 'function') ack({ ok: false, code: 'UNKNOWN_EVENT', message: `Rackside has no "${String(event).slice(0, 40)}" message.` });
     });

@@ -412,8 +412,8 @@ export class TableMaster {
    * event of this exchange first), the table has read its log again by the time the retry runs, and
    * the action is checked once more against that state: accepted if it still applies, refused if not.
    */
-  act(viewer: Member, action: Action, version?: number): Promise<void> {
-    return this.retried(() => this.actOnce(viewer, action, version));
+  act(viewer: Member, action: Action, version?: number, maxPerExchange = Infinity): Promise<void> {
+    return this.retried(() => this.actOnce(viewer, action, version, maxPerExchange));
   }
 
   /**
@@ -436,11 +436,15 @@ export class TableMaster {
     });
   }
 
-  private actOnce(viewer: Member, action: Action, version?: number): Promise<void> {
+  private actOnce(viewer: Member, action: Action, version: number | undefined, maxPerExchange: number): Promise<void> {
     return this.run(async (): Promise<Appended> => {
       const seat = this.seatOf(viewer.userId);
       if (!seat || viewer.as !== 'player') throw new TableError('NOT_SEATED', 'Take a seat at this table to play.');
       const live = this.requireExchange();
+      // A log grows only as far as real play takes it: a whole exchange is a few dozen moves a seat.
+      if (live.state.log.reduce((n, e) => n + ('seat' in e && e.seat === seat ? 1 : 0), 0) >= maxPerExchange) {
+        throw new TableError('TOO_MANY_MOVES', `Your seat has made ${maxPerExchange} moves in this exchange, far more than a Charleston needs. Commit your pass and let the table go on.`);
+      }
       // Only a move to another step makes a choice stale: other seats committing meanwhile does not.
       if (version !== undefined && version < this.stepVersion()) {
         throw new TableError('STALE', 'The table moved on while you were choosing. Look again and resend.');
