@@ -217,8 +217,9 @@ test('the database keeps one paid payment per seat; seats already paid twice are
     ]);
     // A second paid payment for one seat is refused by the database itself.
     await expect(Payment.update({ status: 'paid' }, { where: { id: 1 } })).rejects.toThrow(UniqueConstraintError);
-    await expect(Payment.create({ ...paid(4, 3, 30), id: undefined })).rejects.toThrow(UniqueConstraintError);
-    await Payment.create({ ...paid(5, 3, 30), id: undefined, status: 'refunded' });
+    const another = { lessonId: 1, userId: 3, amountCents: 1500, currency: 'usd' as const, holdUntil: at(30) };
+    await expect(Payment.create({ ...another, status: 'paid' })).rejects.toThrow(UniqueConstraintError);
+    await Payment.create({ ...another, status: 'refunded' });
   } finally {
     await db.close();
   }
