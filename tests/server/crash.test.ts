@@ -102,6 +102,7 @@ test('SIGTERM: an action sent just before is finished and stored, the process ex
   proc.kill('SIGTERM');
   // Every message the server received gets its answer: done and stored, or refused because it is stopping.
   const answers = await Promise.all(acks);
+  expect(answers).toHaveLength(4);
   for (const a of answers) expect(a.ok || a.code === 'SHUTTING_DOWN', JSON.stringify(a)).toBe(true);
   expect(await exited).toBe(0);
   // A clean close checkpoints the write-ahead log and removes it.

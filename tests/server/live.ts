@@ -169,7 +169,10 @@ export function autoPlayer(url: string, name: string, cookie: string, tableId: s
 
 /** Every action acked to each seat's player appears in the stored log, in the order it was acked. */
 export function expectAckedInLog(replay: ExchangeReplayDto, players: { c: Client; acked: Action[] }[]) {
+  expect(players.length).toBeGreaterThan(0);
   for (const [i, p] of players.entries()) {
+    // Every player acts in every pass, so each had something acked.
+    expect(p.acked.length, `${p.c.name} had an action acked`).toBeGreaterThan(0);
     const logged = replay.log.flatMap((e) => ('seat' in e && e.seat === SEATS[i] ? [JSON.stringify(e.action)] : []));
     let at = 0;
     for (const a of p.acked) {

@@ -46,7 +46,7 @@ test('there are 36 kinds', () => {
 });
 
 test('the set without jokers has 144 tiles and no joker', () => {
-  expect(SET_SIZE_WITHOUT_JOKERS).toBe(144);
+  expect(SET_SIZE_WITHOUT_JOKERS).toBe(144); // common practice, no published source
   expect(fullSet(false)).toHaveLength(144);
   expect(count(fullSet(false), 'joker')).toBe(0);
 });

@@ -35,13 +35,17 @@ test('each starter id starts with its family', () => {
 });
 
 test('the crowd family really needs jokers: each has a group of five or more of one number or dragon', () => {
-  for (const p of starterPatterns.filter((p) => p.family === 'crowd')) {
+  const crowd = starterPatterns.filter((p) => p.family === 'crowd');
+  expect(crowd.length).toBeGreaterThan(0);
+  for (const p of crowd) {
     expect(p.groups.some((g) => g.size >= 5 && !('tile' in g && g.tile === 'flower'))).toBe(true);
   }
 });
 
 test('the quiet family is concealed and made only of singles and pairs', () => {
-  for (const p of starterPatterns.filter((p) => p.family === 'quiet')) {
+  const quiet = starterPatterns.filter((p) => p.family === 'quiet');
+  expect(quiet.length).toBeGreaterThan(0);
+  for (const p of quiet) {
     expect(p.concealed).toBe(true);
     expect(p.groups.every((g) => g.size < JOKER_MIN_GROUP)).toBe(true);
   }

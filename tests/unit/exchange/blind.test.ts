@@ -31,6 +31,7 @@ test('the forwarded tile travels on with the forwarder’s own tiles', () => {
 test('a tile forwarded blind never enters the forwarder’s rack', () => {
   const { after, record } = blindPass({ north: 2, south: 1 });
   for (const seat of ['north', 'south'] as const) {
+    expect(record.forwarded[seat].length).toBeGreaterThan(0);
     for (const id of record.forwarded[seat]) expect(ids(after, seat)).not.toContain(id);
   }
 });
@@ -38,6 +39,7 @@ test('a tile forwarded blind never enters the forwarder’s rack', () => {
 test('a tile forwarded blind is never shown to the forwarder', () => {
   const { after, record } = blindPass({ north: 2 });
   const seen = JSON.stringify(viewFor(after, 'north'));
+  expect(record.forwarded.north).toHaveLength(2);
   for (const id of record.forwarded.north) expect(seen).not.toContain(`"${id}"`);
 });
 
@@ -70,6 +72,7 @@ test('when everyone passes some blind, each keeps as many as it gave and the bli
 });
 
 test('every mix of blind counts keeps the set whole and each seat keeps as many as it gave', () => {
+  let forwardedChecked = 0;
   for (let code = 0; code < 256; code++) {
     const blind = { east: code & 3, south: (code >> 2) & 3, west: (code >> 4) & 3, north: (code >> 6) & 3 };
     const { before, after, record } = blindPass(blind);
@@ -78,12 +81,15 @@ test('every mix of blind counts keeps the set whole and each seat keeps as many 
       expect(after.racks[seat]).toHaveLength(before.racks[seat].length);
       expect(record.received[seat]).toHaveLength(3 - blind[seat]);
       expect(record.forwarded[seat].filter((id) => record.sent[seat].includes(id))).toEqual([]);
+      forwardedChecked += record.forwarded[seat].length;
       for (const id of record.forwarded[seat]) expect(ids(after, seat)).not.toContain(id);
-    }
-    if (SEATS.some((seat) => blind[seat] === 0)) {
-      for (const seat of SEATS) expect(record.forwarded[seat], JSON.stringify(blind)).toHaveLength(blind[seat]);
+      // The packet is as big as the largest own count, so each seat forwards what it passes blind
+      // beyond the fewest blind at the table: its whole blind count whenever someone passes none.
+      const fewest = Math.min(...SEATS.map((s) => blind[s]));
+      expect(record.forwarded[seat], JSON.stringify(blind)).toHaveLength(blind[seat] - fewest);
     }
   }
+  expect(forwardedChecked).toBeGreaterThan(0);
 });
 
 test('a blind forwarder takes its forwarded tiles from those arriving to it', () => {

@@ -87,8 +87,7 @@ test('WRONG_PHASE: anything once the exchange is done', () => {
 
 test('WRONG_PHASE: resolve during the vote', () => {
   const result = resolve(advanceTo(start(), 'vote'));
-  expect(result.ok).toBe(false);
-  if (!result.ok) expect(result.code).toBe('WRONG_PHASE');
+  expect(result).toMatchObject({ ok: false, code: 'WRONG_PHASE' });
 });
 
 test('WRONG_COUNT: a fourth tile', () => {
