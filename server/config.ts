@@ -66,6 +66,43 @@ export interface Config {
 export const LOCAL_STRIPE_KEY = 'sk_test_rackside_local_fake';
 export const LOCAL_WEBHOOK_SECRET = 'whsec_rackside_local_fake';
 
+/** A setting that would make the server unsafe to run: thrown by `loadConfig`, so the start stops. */
+export class ConfigError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'ConfigError';
+  }
+}
+
+/**
+ * Secrets that have a stand-in for local use: the webhook secret a public constant, the session
+ * and link secrets a random value per start. Locally that is safe; in production, and whenever a
+ * real payment key is set, a stand-in would take forged webhooks (anyone can sign with the public
+ * constant) or end every session and link at each restart, so a missing secret stops the start.
+ * The webhook secret is needed only where payments can be taken at all.
+ */
+function missingSecrets(env: NodeJS.ProcessEnv, production: boolean, localFakes: boolean): string[] {
+  const realKey = Boolean(env.STRIPE_SECRET_KEY) && env.STRIPE_SECRET_KEY !== LOCAL_STRIPE_KEY;
+  if (!production && !realKey) return [];
+  const why = realKey ? 'a real payment key (STRIPE_SECRET_KEY) is set' : 'NODE_ENV is production';
+  const problems: string[] = [];
+  const paymentsOn = realKey || Boolean(env.STRIPE_API_BASE) || localFakes;
+  if (paymentsOn) {
+    if (!env.STRIPE_WEBHOOK_SECRET) {
+      problems.push(`STRIPE_WEBHOOK_SECRET is not set, and ${why}: without it anyone could sign a webhook. Copy the signing secret (whsec_…) of this server's webhook endpoint from the payment service's dashboard.`);
+    } else if (env.STRIPE_WEBHOOK_SECRET === LOCAL_WEBHOOK_SECRET) {
+      problems.push(`STRIPE_WEBHOOK_SECRET is the public local stand-in, and ${why}. Set the signing secret (whsec_…) of this server's webhook endpoint.`);
+    }
+  }
+  if (!env.SESSION_SECRET) {
+    problems.push(`SESSION_SECRET is not set, and ${why}. Set it to a long random value (for example the output of "openssl rand -hex 32"), the same on every process.`);
+  }
+  if (!env.LINK_SECRET && !env.INVITE_SECRET) {
+    problems.push(`LINK_SECRET is not set, and ${why}: invitation and password-reset links would stop working at every restart. Set it to a long random value, the same on every process.`);
+  }
+  return problems;
+}
+
 function int(value: string | undefined, fallback: number): number {
   if (value === undefined || value === '') return fallback;
   const n = Number(value);
@@ -78,14 +115,18 @@ function bool(value: string | undefined, fallback: boolean): boolean {
   return ['1', 'true', 'yes', 'on'].includes(value.toLowerCase());
 }
 
+/** Reads the settings from `env`; throws a ConfigError naming every missing secret where one is required. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Partial<Config> = {}): Config {
   const production = env.NODE_ENV === 'production';
+  const localFakes = bool(env.LOCAL_FAKES, !production);
+  const missing = missingSecrets(env, production, localFakes);
+  if (missing.length) throw new ConfigError(`Rackside cannot start:\n${missing.map((m) => `  - ${m}`).join('\n')}`);
   const config: Config = {
     port: int(env.PORT, 3000),
     databaseUrl: env.DATABASE_URL || 'sqlite:data/rackside.sqlite',
     redisUrl: env.REDIS_URL || null,
     websocketOnly: bool(env.WEBSOCKET_ONLY, false),
-    // A random secret per start is safe (sessions end at restart); set SESSION_SECRET to keep them.
+    // Locally a random secret per start is safe (sessions end at restart); production requires SESSION_SECRET.
     sessionSecret: env.SESSION_SECRET || randomBytes(32).toString('hex'),
     trustProxy: bool(env.TRUST_PROXY, false),
     bcryptRounds: int(env.BCRYPT_ROUNDS, 10),
@@ -111,10 +152,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     smtpUrl: env.SMTP_URL || null,
     mailFrom: env.MAIL_FROM || 'Rackside <lessons@rackside.test>',
     stripeSecretKey: env.STRIPE_SECRET_KEY || LOCAL_STRIPE_KEY,
+    // The public stand-in only where `missingSecrets` allows it: no real key, outside production.
     stripeWebhookSecret: env.STRIPE_WEBHOOK_SECRET || LOCAL_WEBHOOK_SECRET,
     stripeApiBase: env.STRIPE_API_BASE || null,
-    localFakes: bool(env.LOCAL_FAKES, !production),
-    // A random secret per start is safe but ends every unused link at restart; set LINK_SECRET to keep them.
+    localFakes,
+    // Locally a random secret per start ends every unused link at restart; production requires LINK_SECRET.
     linkSecret: env.LINK_SECRET || env.INVITE_SECRET || randomBytes(32).toString('hex'),
     invitationTtlMs: int(env.INVITATION_TTL_HOURS, 7 * 24) * 60 * 60 * 1000,
     passwordResetTtlMs: int(env.PASSWORD_RESET_TTL_MINUTES, 60) * 60 * 1000,
