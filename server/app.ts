@@ -6,6 +6,7 @@ import type { Sequelize } from 'sequelize';
 import { createPassport } from './auth/passport';
 import type { Logger } from 'pino';
 import { absoluteLifetime, createSession } from './auth/session';
+import { createUserSessions } from './auth/user-sessions';
 import { log } from './log';
 import { requireOwnOrigin } from './security/origin';
 import type { Config } from './config';
@@ -45,6 +46,9 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   );
 
   const session = createSession(sequelize, config);
+  // Routes that end a user's other sessions or change their role reach it through req.app.locals.
+  const userSessions = createUserSessions(session.store);
+  app.locals.userSessions = userSessions;
   let draining = false;
   const passport = createPassport();
   const onLogout = new Set<(sessionId: string) => void>();
@@ -92,6 +96,8 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
     passport,
     /** Lets the realtime layer hear of sign-outs, to close that session's sockets. */
     onLogout: (fn: (sessionId: string) => void) => onLogout.add(fn),
+    /** Lets the realtime layer hear of a user's sessions ended (a password reset) or account changed (a new role). */
+    userSessions,
     registry,
     /** Lets the realtime layer hear of every stored table change. */
     onTableChange: (fn: (master: TableMaster, fromPeer?: boolean) => void) => onTableChange.add(fn),

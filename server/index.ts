@@ -5,6 +5,7 @@ import { openDatabase } from './db';
 import { migrate } from './db/migrate';
 import { seedDemo } from './db/seed';
 import { attachRealtime } from './realtime';
+import { bindUserSockets } from './realtime/sessions';
 import { startLocalFakes } from './services/fakes';
 
 /** Opens the database, migrates, seeds the demo on an empty database, and listens. */
@@ -18,6 +19,7 @@ export async function startServer(givenConfig: Config) {
   const application = createApplication({ config, sequelize });
   const httpServer = createServer(application.app);
   const io = attachRealtime(httpServer, application);
+  bindUserSockets(io, application);
   const registry = application.registry;
   const restored = await registry.restoreOpenTables();
   if (restored) console.log(`Restored ${restored} table(s) with an exchange under way.`);

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { roleChangeSchema } from '../../shared/protocol';
 import { requireAdmin } from '../auth/guards';
+import { userSessionsOf } from '../auth/user-sessions';
 import type { Logger } from 'pino';
 import { AuditEntry, User } from '../db/models';
 import { badInput, HttpError } from '../errors';
@@ -35,6 +36,8 @@ export function adminRouter(log?: Logger) {
         await AuditEntry.create({ actorId: req.user!.id, action: 'role-change', targetUserId: user.id, details: { from, to: parsed.data.role } }, { transaction });
       });
       log?.info({ event: 'role-change', actorId: req.user!.id, targetUserId: user.id, from, to: parsed.data.role }, 'role changed');
+      // Open sockets hold the user they connected as: they reconnect and read the new role.
+      userSessionsOf(req).changed(user.id);
     }
     res.json({ user: user.toPublic() });
   });

@@ -12,6 +12,7 @@ import { passwordResetConfirmSchema, passwordResetRequestSchema } from '../../sh
 import type { Config } from '../config';
 import { PasswordReset, User } from '../db/models';
 import { badInput, HttpError } from '../errors';
+import { userSessionsOf } from '../auth/user-sessions';
 import { log } from '../log';
 import { publicBase } from '../services/links';
 import type { Mailer } from '../services/mail/mailer';
@@ -78,6 +79,8 @@ export function passwordResetRouter({ config, mailer }: { config: Config; mailer
     if (!claimed) throw new HttpError(410, 'RESET_USED', 'This reset link was already used. If you still need a new password, ask for another link.');
     await user.update({ passwordHash });
     await PasswordReset.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null, id: { [Op.ne]: reset.id } } });
+    // Whoever knew the old password is signed out everywhere: every other session ends, its sockets close.
+    await userSessionsOf(req).endOthers(user.id, req.sessionID);
     res.json({ ok: true, message: 'Your password is changed. Sign in with the new one.' });
   });
 
