@@ -215,7 +215,6 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     const socket = raw as RacksideSocket;
     if (socket.data.sessionId) socket.join(`session:${socket.data.sessionId}`);
     socket.join(`user:${socket.data.userId}`); // see ./sessions.ts
-    socket.join(`user:${socket.data.userId}`); // see ./sessions.ts
 
     /** Parses, runs, broadcasts, then acks: a bad payload or a refused action changes nothing. */
     function on<E extends ClientEventName>(event: E, run: (payload: ReturnType<(typeof clientEventSchemas)[E]['parse']>) => Promise<object | void>) {
