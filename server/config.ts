@@ -27,8 +27,8 @@ export interface Config {
   /** Requests allowed per window, per address (and e-mail where one is given). */
   rateLimits: Record<'register' | 'passwordReset' | 'invitations', { max: number; windowMs: number }> & {
     chatPerMinute: number;
-    /** Moves one seat may send a second (passes, take-backs, votes, asks). */
-    actionsPerSecond: number;
+    /** Moves one seat may send in a window (passes, take-backs, votes, asks); a whole exchange is about a dozen. */
+    actions: { max: number; windowMs: number };
     /** Moves one seat may make in one exchange; a whole exchange takes a few dozen. */
     actionsPerExchange: number;
   };
@@ -141,7 +141,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
       passwordReset: { max: int(env.RESET_RATE_MAX, 5), windowMs: int(env.RESET_RATE_WINDOW_MS, 60 * 60 * 1000) },
       invitations: { max: int(env.INVITE_RATE_MAX, 100), windowMs: int(env.INVITE_RATE_WINDOW_MS, 60 * 60 * 1000) },
       chatPerMinute: int(env.CHAT_RATE_PER_MINUTE, 30),
-      actionsPerSecond: int(env.ACTION_RATE_PER_SECOND, 8),
+      actions: { max: int(env.ACTION_RATE_MAX, 40), windowMs: int(env.ACTION_RATE_WINDOW_MS, 10_000) },
       actionsPerExchange: int(env.ACTIONS_PER_EXCHANGE, 400),
     },
     production,

@@ -114,7 +114,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
   const limiter = (keyPrefix: string, points: number, duration: number) =>
     redis ? new RateLimiterRedis({ storeClient: redis.pub, keyPrefix, points, duration }) : new RateLimiterMemory({ keyPrefix, points, duration });
   const chatLimiter = limiter('chat', config.rateLimits.chatPerMinute, 60);
-  const actionLimiter = limiter('act', config.rateLimits.actionsPerSecond, 1);
+  const actionLimiter = limiter('act', config.rateLimits.actions.max, Math.max(1, Math.round(config.rateLimits.actions.windowMs / 1000)));
 
   /** Tells the other processes that a table changed in the database, so that they catch up and show it. */
   function tellPeers(master: TableMaster, whole = false) {
@@ -153,8 +153,9 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
    * viewer one state, however many of the group's actions are then acked.
    */
   function broadcast(master: TableMaster, force = true) {
-    if (!force && master.sentVersion === master.shownVersion) return;
+    if (!force && master.sentVersion === master.shownVersion && master.sentNotes === master.noteCount) return;
     master.sentVersion = master.shownVersion;
+    master.sentNotes = master.noteCount;
     const ids = io.of('/').adapter.rooms.get(room(master.id));
     for (const id of ids ?? []) {
       const socket = io.of('/').sockets.get(id) as RacksideSocket | undefined;

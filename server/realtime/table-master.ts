@@ -121,6 +121,12 @@ export class TableMaster {
   private finishing: Promise<void> = Promise.resolve();
   /** The version last sent to the sockets, so one stored group gives each viewer one state. */
   sentVersion = -1;
+  /** How many huddle notes the last states sent held: a note changes no version, yet must be sent. */
+  sentNotes = -1;
+
+  get noteCount(): number {
+    return this.exchange?.notes.length ?? 0;
+  }
 
   constructor(
     public row: TableRow,
@@ -786,16 +792,21 @@ export class TableMaster {
       options: publicTableOptions(this.row.options, this.isHost(viewer.userId)),
       exchangeId: live?.id ?? null,
       view,
-      huddle: { open: live?.huddle.open ?? false, revealed, notes: live ? notesFor(live, this.viewerKind(viewer)) : [] },
+      huddle: { open: live?.huddle.open ?? false, revealed, notes: live ? notesFor(live.notes, this.isHost(viewer.userId) ? 'host' : this.viewerKind(viewer)) : [] },
       spectators: this.spectators,
       ...(this.isHost(viewer.userId) && this.row.inviteCode ? { inviteCode: this.row.inviteCode } : {}),
     };
   }
 }
 
-/** Notes are for everyone at the table as they are written; a note on a seat is shown once that seat may be seen. */
-function notesFor(live: { notes: HuddleNoteDto[] }, _viewer: Viewer): HuddleNoteDto[] {
-  return live.notes;
+/**
+ * A note for the whole table is everyone's as it is written. A note on one seat is coaching for
+ * that seat: its player and the host see it at once, everyone else in the replay once the
+ * exchange is done (it may speak of that seat's tiles).
+ */
+export function notesFor(notes: readonly HuddleNoteDto[], viewer: Viewer): HuddleNoteDto[] {
+  if (viewer === 'host' || viewer === 'replay') return [...notes];
+  return notes.filter((n) => n.seat === null || n.seat === viewer);
 }
 
 function noteDto(row: HuddleNoteRow): HuddleNoteDto {

@@ -193,6 +193,25 @@ describe.each(Object.keys(databases) as (keyof typeof databases)[])('two process
     expect(resolves).toBeGreaterThanOrEqual(players[0].c.state.view!.history.length);
   }, 120_000);
 
+  test('huddle notes written on one process reach the players on the other: a table note everyone, a note on west only west', async () => {
+    const [a, b] = await twoProcesses(databases[kind]());
+    const { names, cookies, table } = await seatedTable([a.url, b.url]);
+    const people = names.map((n, i) => new Client(n, cookies[i], socketTo(i < 2 ? a.url : b.url, cookies[i], false)));
+    openClients.push(...people);
+    for (const c of people) await c.ok('table:join', { tableId: table.id, as: 'player' });
+    const [host, , west, north] = people;
+    await host.ok('table:start');
+    await Promise.all(people.map((c) => c.until((s) => s.phase === 'first-right', 20_000)));
+    await host.ok('huddle:call');
+    await host.ok('huddle:note', { text: 'Everyone: keep your pairs.' });
+    await host.ok('huddle:note', { text: 'West: your dots are building.', seat: 'west' });
+    const westSees = await west.until((s) => s.huddle.notes.length === 2, 20_000);
+    expect(westSees.huddle.notes.map((n) => n.text).sort()).toEqual(['Everyone: keep your pairs.', 'West: your dots are building.']);
+    const northSees = await north.until((s) => s.huddle.notes.length >= 1, 20_000);
+    expect(northSees.huddle.notes.map((n) => n.text)).toEqual(['Everyone: keep your pairs.']);
+    expect(north.states.some((s) => s.huddle.notes.some((n) => n.seat === 'west'))).toBe(false);
+  }, 60_000);
+
   test('one seat sends two different choices at the same instant, one to each process: exactly one is accepted', async () => {
     const [a, b] = await twoProcesses(databases[kind]());
     const { names, cookies, table } = await seatedTable([a.url, b.url]);

@@ -31,23 +31,21 @@ function toggles(c: Client, count: number) {
   return Promise.all(Array.from({ length: count }, (_, i) => c.emit('exchange:act', { action: i % 2 === 0 ? { type: 'pass', tiles } : { type: 'withdraw' } })));
 }
 
-test('a seat sending moves faster than anyone plays is refused with a clear error, and nothing refused is stored', async () => {
-  const { host } = await dealt({ rateLimits: { ...testConfig().rateLimits, actionsPerSecond: 5 } });
-  const began = Date.now();
+test('a seat sending more moves than anyone plays is refused with a clear error, and nothing refused is stored', async () => {
+  // Five moves a minute: however slowly a busy machine answers, the forty arrive within the window.
+  const { host } = await dealt({ rateLimits: { ...testConfig().rateLimits, actions: { max: 5, windowMs: 60_000 } } });
   const acks = await toggles(host, 40);
-  const seconds = Math.ceil((Date.now() - began) / 1000) + 1;
   const refused = acks.filter((a) => !a.ok);
   expect(refused.length).toBeGreaterThan(0);
   expect(refused.every((a) => a.code === 'RATE_LIMITED')).toBe(true);
   expect(refused[0].message).toMatch(/nothing of that move was kept/);
   const stored = await ExchangeEventRow.count({ where: { exchangeId: host.state.exchangeId!, type: 'act' } });
   expect(stored).toBe(acks.filter((a) => a.ok).length);
-  // Five a second, over however many seconds a busy machine took to answer all forty.
-  expect(stored).toBeLessThanOrEqual(5 * seconds);
+  expect(stored).toBe(5);
 });
 
 test('a seat has a budget of moves per exchange; past it, moves are refused and the log stops growing', async () => {
-  const { host, clients: cs } = await dealt({ rateLimits: { ...testConfig().rateLimits, actionsPerSecond: 1000, actionsPerExchange: 12 } });
+  const { host, clients: cs } = await dealt({ rateLimits: { ...testConfig().rateLimits, actions: { max: 1000, windowMs: 60_000 }, actionsPerExchange: 12 } });
   const acks = await toggles(host, 30);
   expect(acks.filter((a) => a.ok)).toHaveLength(12);
   const over = acks.filter((a) => !a.ok);
