@@ -12,7 +12,7 @@ import { act, canResolve, createExchange, isPassPhase, rackOf, resolve, viewFor 
 import type { Action, ExchangeOptions, ExchangeState, Viewer } from '../../shared/exchange/types';
 import type { HuddleNoteDto, SeatOccupant, SeatStateDto, TableDto, TableOptions, TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
-import { Op, OptimisticLockError } from 'sequelize';
+import { Op, OptimisticLockError, type Transaction } from 'sequelize';
 import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredExchangeOptions, type StoredSeats, type StoredTableOptions } from '../db/models';
 import { patternsForTable } from '../teaching/pattern-source';
 import { EventNotStored, type EventWriter } from '../db/event-writer';
@@ -380,19 +380,26 @@ export class TableMaster {
         const o = this.row.seats[seat];
         return o?.kind === 'user' ? [o.userId] : [];
       });
-      await ExchangeRow.create({
-        id,
-        tableId: this.row.id,
-        tableName: this.row.name,
-        hostId: this.row.hostId,
-        options,
-        seats: this.row.seats,
-        participants: participantsKey(participantIds),
-        status: 'playing',
-        startedAt: new Date(),
-        finishedAt: null,
+      // The exchange and the table's move to it are stored together: a save that loses to another
+      // process leaves no exchange behind, so the retry deals exactly one.
+      await TableRow.sequelize!.transaction(async (transaction) => {
+        await ExchangeRow.create(
+          {
+            id,
+            tableId: this.row.id,
+            tableName: this.row.name,
+            hostId: this.row.hostId,
+            options,
+            seats: this.row.seats,
+            participants: participantsKey(participantIds),
+            status: 'playing',
+            startedAt: new Date(),
+            finishedAt: null,
+          },
+          { transaction },
+        );
+        await this.saveRow({ status: 'playing', currentExchangeId: id }, transaction);
       });
-      await this.saveRow({ status: 'playing', currentExchangeId: id });
       this.exchange = { id, options, state, seq: 0, huddle: closedHuddle(), notes: [] };
       this.showLive();
     });
@@ -658,11 +665,11 @@ export class TableMaster {
    * replaces the row after the save. A save refused because another process changed the row
    * first (its revision moved on) is a conflict; any other failure leaves the row as it was.
    */
-  private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId' | 'options'>>) {
+  private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId' | 'options'>>, transaction?: Transaction) {
     const next = TableRow.build(this.row.get({ plain: true }), { isNewRecord: false, raw: true });
     next.set(changes);
     try {
-      await next.save();
+      await next.save({ transaction });
       this.row = next;
     } catch (err) {
       this.broken = true;
