@@ -270,6 +270,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     on('table:join', async ({ tableId, as, invite }) => {
       const master = await registry.get(tableId);
       if (!master) throw new TableError('NOT_FOUND', 'There is no table with that id.');
+      if (socket.disconnected) throw new TableError('GONE', 'The connection closed before the table was joined.');
       const { userId, isAdmin } = socket.data;
       const insider = master.isHost(userId) || master.seatOf(userId) !== null || isAdmin;
       if (master.row.private && !insider && invite !== master.row.inviteCode) {
@@ -279,6 +280,8 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       // With other processes about, this one's copy of the table may be behind (its player may come
       // from a process that just died): read the table again before showing it.
       if (redis) await master.catchUp();
+      // The socket may have gone while this join waited: a closed socket never joins or counts.
+      if (socket.disconnected) throw new TableError('GONE', 'The connection closed before the table was joined.');
       socket.data.tableId = tableId;
       socket.data.as = as;
       await socket.join(room(tableId));
