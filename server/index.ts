@@ -21,7 +21,9 @@ export async function startServer(givenConfig: Config) {
   const io = attachRealtime(httpServer, application);
   bindUserSockets(io, application);
   const registry = application.registry;
-  const restored = await registry.restoreOpenTables();
+  const restored = await registry.restoreOpenTables((tableId, err) =>
+    application.logger.error({ tableId, error: (err as Error).message }, 'a table could not be restored from its log; it stays closed until it is mended'),
+  );
   if (restored) console.log(`Restored ${restored} table(s) with an exchange under way.`);
   await new Promise<void>((resolve) => httpServer.listen(config.port, resolve));
   const address = httpServer.address();
