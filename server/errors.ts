@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { UniqueConstraintError } from 'sequelize';
 import type { ZodError } from 'zod';
 
 /** An error meant for the person on the other end: a stable code, a plain message, a status. */
@@ -35,6 +36,11 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, next) => {
   void next;
   if (err instanceof HttpError) {
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    return;
+  }
+  if (err instanceof UniqueConstraintError) {
+    // Two requests stored the same thing at once (most often a double click): the first one counts.
+    res.status(409).json({ error: { code: 'ALREADY_EXISTS', message: 'That was already saved, most likely by an earlier click or another tab. Reload the page to see it.' } });
     return;
   }
   const e = err as { type?: string; status?: number };

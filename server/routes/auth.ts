@@ -2,6 +2,7 @@ import bcrypt from 'bcryptjs';
 import { Router, type Request } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { Logger } from 'pino';
+import { UniqueConstraintError } from 'sequelize';
 import type { createPassport } from '../auth/passport';
 import { loginSchema, registerSchema } from '../../shared/protocol';
 import type { Config } from '../config';
@@ -60,10 +61,14 @@ export function authRouter(
     const parsed = registerSchema.safeParse(req.body ?? {});
     if (!parsed.success) throw badInput(parsed.error);
     const { email, password, displayName } = parsed.data;
-    if (await User.findOne({ where: { email } })) {
-      throw new HttpError(409, 'EMAIL_TAKEN', 'An account with this e-mail already exists. Sign in instead.', { email: 'This e-mail already has an account.' });
-    }
-    const user = await User.create({ email, displayName, passwordHash: await bcrypt.hash(password, config.bcryptRounds) });
+    const taken = () =>
+      new HttpError(409, 'EMAIL_TAKEN', 'An account with this e-mail already exists. Sign in instead.', { email: 'This e-mail already has an account.' });
+    if (await User.findOne({ where: { email } })) throw taken();
+    const passwordHash = await bcrypt.hash(password, config.bcryptRounds);
+    // A second registration of the same address at the same moment (a double click) meets the unique key.
+    const user = await User.create({ email, displayName, passwordHash }).catch((err: unknown) => {
+      throw err instanceof UniqueConstraintError ? taken() : err;
+    });
     await logIn(req, user);
     res.status(201).json({ user: user.toPublic() });
   });

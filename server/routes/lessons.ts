@@ -4,7 +4,7 @@ import { Op, type Sequelize } from 'sequelize';
 import { invitationsInputSchema, lessonInputSchema, roomInputSchema } from '../../shared/lessons';
 import { requireTeacher, requireUser } from '../auth/guards';
 import type { Config } from '../config';
-import { DrillRow, Enrollment, Invitation, Lesson, User } from '../db/models';
+import { DrillRow, Enrollment, Lesson, User } from '../db/models';
 import { badInput, HttpError } from '../errors';
 import type { TableRegistry } from '../realtime/registry';
 import type { TableMaster } from '../realtime/table-master';
@@ -14,8 +14,7 @@ import { publicBase } from '../services/links';
 import type { Mailer } from '../services/mail/mailer';
 import { invitationMail } from '../services/mail/messages';
 import { isTimeZone, zonedToUtc } from '../services/time';
-import { hashToken, signToken } from '../services/tokens';
-import { randomBytes } from 'node:crypto';
+import { enrollInvited, inviteOnce } from '../services/invitations';
 
 export interface LessonDeps {
   config: Config;
@@ -110,19 +109,23 @@ export function lessonsRouter({ config, sequelize, mailer, registry, tableChange
         continue;
       }
       const expiresAt = new Date(Math.min(Date.now() + config.invitationTtlMs, ends.getTime()));
-      // A new invitation replaces any unused one to the same address.
-      await Invitation.update({ expiresAt: new Date() }, { where: { lessonId: lesson.id, email, usedAt: null, expiresAt: { [Op.gt]: new Date() } } });
-      const invitation = await Invitation.create({ lessonId: lesson.id, email, tokenHash: randomBytes(32).toString('hex'), expiresAt });
-      const token = signToken(config.linkSecret, 'invitation', invitation.id, expiresAt);
-      await invitation.update({ tokenHash: hashToken(token) });
-      try {
-        await mailer.send({ to: email, ...invitationMail(lesson, teacher.displayName, `${base}/invitations/${token}`, expiresAt), kind: 'invitation', senderId: req.user!.id });
-      } catch (err) {
-        await invitation.destroy();
-        results.push({ email, status: 'failed', message: err instanceof HttpError ? err.message : 'The invitation could not be sent.' });
+      const outcome = await inviteOnce({
+        lessonId: lesson.id,
+        email,
+        expiresAt,
+        secret: config.linkSecret,
+        mail: (token) =>
+          mailer.send({ to: email, ...invitationMail(lesson, teacher.displayName, `${base}/invitations/${token}`, expiresAt), kind: 'invitation', senderId: req.user!.id }),
+      });
+      if (outcome.status === 'already-sending') {
+        results.push({ email, status: 'sent', message: `An invitation to ${email} is already on its way; it was not sent twice.` });
         continue;
       }
-      if (existing && !enrollment) await Enrollment.create({ lessonId: lesson.id, userId: existing.id, status: 'invited' });
+      if (outcome.status === 'failed') {
+        results.push({ email, status: 'failed', message: outcome.error instanceof HttpError ? outcome.error.message : 'The invitation could not be sent.' });
+        continue;
+      }
+      if (existing && !enrollment) await enrollInvited(lesson.id, existing.id);
       results.push({ email, status: 'sent', message: `Invitation sent to ${email}.` });
     }
     const status = results.every((r) => r.status === 'failed') ? 502 : 201;
