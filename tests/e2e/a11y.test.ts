@@ -2,7 +2,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, inject, test } from 'vitest';
 import { seriousViolations } from './axe';
 import { launch } from './browser';
-import { pickable, playStep, rack, seatBots, signInContext } from './play';
+import { PLAY_DEADLINE_MS, pickable, playToEnd, rack, seatBots, signInContext } from './play';
 
 // Every page scanned with axe-core (WCAG 2.0–2.2 A and AA tags plus best practice):
 // none may have a violation that axe rates serious or critical.
@@ -65,7 +65,7 @@ test('no serious or critical axe violations on any page', async () => {
   await pickable(mina).first().click();
   await pickable(mina).first().click();
   await scan(mina, 'table mid-pass');
-  for (let round = 0; round < 40 && (await playStep(mina, true)); round++) await mina.waitForTimeout(200);
+  await playToEnd(mina, { stop: true });
   await mina.getByText('The Charleston is over.').waitFor();
   await scan(mina, 'table done');
   await mina.getByRole('link', { name: 'Replay this exchange pass by pass' }).click();
@@ -114,4 +114,4 @@ test('no serious or critical axe violations on any page', async () => {
   await scan(pat, 'mail outbox');
 
   expect(found, `axe found ${found.length} serious or critical violations:\n${found.join('\n')}`).toEqual([]);
-}, 120_000);
+}, 2 * PLAY_DEADLINE_MS);

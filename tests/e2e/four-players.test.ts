@@ -2,7 +2,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, inject, test } from 'vitest';
 import { seriousViolations } from './axe';
 import { launch, snap } from './browser';
-import { pickAndSend, pickable, playStep, rack, sendButton, signInContext } from './play';
+import { PLAY_DEADLINE_MS, pickAndSend, pickable, playToEnd, rack, sendButton, signInContext } from './play';
 
 let browser: Browser;
 const baseUrl = inject('baseUrl');
@@ -100,12 +100,7 @@ test('four people in four browsers sit at one table, play a whole exchange throu
   for (const p of players) await p.getByText(/^You received 3 tiles from/).waitFor();
 
   // Everyone plays on to the end; all four vote to stop after the first Charleston.
-  for (let round = 0; round < 40; round++) {
-    let going = false;
-    for (const p of players) going = (await playStep(p, true)) || going;
-    if (!going) break;
-    await ines.waitForTimeout(200);
-  }
+  await Promise.all(players.map((p) => playToEnd(p, { stop: true })));
   for (const p of players) await p.getByText('The Charleston is over.').waitFor();
   await snap(theo, 'four-done');
 
@@ -120,4 +115,4 @@ test('four people in four browsers sit at one table, play a whole exchange throu
   await mina.getByRole('link', { name: /^Replay Harbor Lane four at one table/ }).first().click();
   await mina.getByRole('heading', { name: 'Replay: Harbor Lane four at one table' }).waitFor();
   for (const seat of ['Ines Okafor', 'Theo Brandt', 'Mina Castellanos', 'Sol Varga']) await mina.getByText(seat).first().waitFor();
-}, 120_000);
+}, 2 * PLAY_DEADLINE_MS);

@@ -1,6 +1,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, inject, onTestFailed, test } from 'vitest';
 import { launch, snap } from './browser';
+import { PLAY_DEADLINE_MS, playToEnd, rack } from './play';
 
 /**
  * A whole lesson day from the browser alone: the teacher schedules a priced lesson on her demo
@@ -40,38 +41,6 @@ async function signIn(page: Page, email: string, name: string) {
   await page.getByLabel('Password').fill(PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByRole('heading', { name: `Welcome, ${name}` }).waitFor();
-}
-
-const rack = (page: Page) => page.getByRole('group', { name: 'Your rack' });
-const sendButton = (page: Page) => page.getByRole('button', { name: /^Send \d tiles?$/ });
-
-/**
- * Does whatever this seat is asked to do now; returns false once the exchange is over. Each
- * student has a habit (passing from the left or the right end of the rack), so the two tables
- * part ways on the same deal and the comparison has something to show.
- */
-async function playStep(page: Page, from: 'left' | 'right', secondCharleston: boolean): Promise<boolean> {
-  if (await page.getByText('The Charleston is over.').isVisible()) return false;
-  // The table moves on while a person reaches for a button (a bot's vote can end the round first):
-  // an action whose button has gone gives up quickly, and the next step looks again.
-  const quick = { timeout: 3000 };
-  const send = sendButton(page);
-  try {
-    if (await send.isVisible()) {
-      // Picks stay put when a send crosses a bot's pass and is refused as stale, so this also resends.
-      const tiles = rack(page).locator('button[aria-pressed="false"]:not([aria-disabled="true"])');
-      for (let i = 0; i < 4 && !(await send.isEnabled()); i++) await (from === 'left' ? tiles.first() : tiles.last()).click(quick);
-      await send.click(quick);
-    } else if (await page.getByRole('button', { name: 'Stop after this round' }).isVisible()) {
-      await page.getByRole('button', { name: secondCharleston ? 'Play a second Charleston' : 'Stop after this round' }).click(quick);
-    } else if (await page.getByRole('radio', { name: '1 tile' }).isVisible()) {
-      await page.getByRole('radio', { name: '1 tile' }).check(quick);
-      await page.getByRole('button', { name: 'Ask for 1 tile' }).click(quick);
-    }
-  } catch (err) {
-    if (!(err instanceof Error && err.name === 'TimeoutError')) throw err;
-  }
-  return true;
 }
 
 /** The student follows the mailed link in their own browser, signs in there, accepts, pays and reads the receipt. */
@@ -185,12 +154,9 @@ test('a lesson day: a priced drill lesson, two invited students pay, play two ta
     await expect.poll(() => rack(page).getByRole('button', { name: /^joker/ }).count()).toBeGreaterThanOrEqual(1);
     await snap(page, `lesson-day-table-${name.toLowerCase()}-dealt`);
   }
-  const done = { mina: false, sol: false };
-  for (let round = 0; round < 60 && !(done.mina && done.sol); round++) {
-    if (!done.mina) done.mina = !(await playStep(mina, 'left', true));
-    if (!done.sol) done.sol = !(await playStep(sol, 'right', false));
-    await mina.waitForTimeout(150);
-  }
+  // Each student has a habit (passing from the left or the right end of the rack), so the two
+  // tables part ways on the same deal and the comparison has something to show.
+  await Promise.all([playToEnd(mina, { stop: false, from: 'left', ask: 1 }), playToEnd(sol, { stop: true, from: 'right', ask: 1 })]);
   await mina.getByText('The Charleston is over.').waitFor();
   await sol.getByText('The Charleston is over.').waitFor();
   await snap(mina, 'lesson-day-table-mina-done');
@@ -232,4 +198,4 @@ test('a lesson day: a priced drill lesson, two invited students pay, play two ta
   await sol.getByRole('row', { name: new RegExp(`${TITLE} · table 2`) }).waitFor();
   await sol.mouse.move(0, 0);
   await snap(sol, 'lesson-day-own-progress');
-}, 90_000);
+}, 2 * PLAY_DEADLINE_MS);

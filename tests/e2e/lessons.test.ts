@@ -88,7 +88,7 @@ test('a teacher schedules a priced lesson, invites two students who accept and p
   await snap(page, 'lesson-room');
   await page.getByRole('link', { name: /Open Harbor Lane week 1: passing right · table 1/ }).click();
   await page.waitForURL(/\/tables\//);
-  await page.waitForTimeout(1500);
+  await page.getByRole('group', { name: 'The table, seen from above' }).waitFor();
   await snap(page, 'lesson-table-1');
   await page.close();
 });

@@ -34,17 +34,96 @@ export async function pickAndSend(page: Page) {
   await send.click();
 }
 
-/** Does whatever this seat is asked to do now; returns false once the exchange is over. */
-export async function playStep(page: Page, stop: boolean): Promise<boolean> {
-  if (await page.getByText('The Charleston is over.').isVisible()) return false;
-  if (await sendButton(page).isVisible()) await pickAndSend(page);
-  else if (await page.getByRole('button', { name: 'Stop after this round' }).isVisible())
-    await page.getByRole('button', { name: stop ? 'Stop after this round' : 'Play a second Charleston' }).click();
-  else if (await page.getByRole('radio', { name: '2 tiles' }).isVisible()) {
-    await page.getByRole('radio', { name: '2 tiles' }).check();
-    await page.getByRole('button', { name: 'Ask for 2 tiles' }).click();
+/** How a seat plays: its vote, which end of the rack it passes from, and how many courtesy tiles it asks for. */
+export interface PlayStyle {
+  /** Vote to stop after the first Charleston (else for a second one). */
+  stop: boolean;
+  from?: 'left' | 'right';
+  ask?: 1 | 2 | 3;
+}
+
+type Move = 'over' | 'send' | 'vote' | 'ask';
+
+/** Long enough for a whole exchange with bots on a busy two-core machine. */
+export const PLAY_DEADLINE_MS = 150_000;
+
+/**
+ * Waits, on the page itself, until this seat has something to do or the exchange is over. A send
+ * is due when the send button shows and either nothing is picked yet or the picks are complete
+ * (a send refused as stale keeps its picks); a disabled button with picks means one is on its way.
+ */
+async function nextMove(page: Page, timeout: number): Promise<Move> {
+  const due = await page.waitForFunction(
+    () => {
+      if (document.body.innerText.includes('The Charleston is over.')) return 'over';
+      const buttons = [...document.querySelectorAll('button')];
+      const named = (pattern: RegExp) => buttons.find((b) => pattern.test(b.textContent?.trim() ?? ''));
+      const vote = named(/^Stop after this round$/);
+      if (vote && !vote.disabled) return 'vote';
+      const ask = named(/^Ask for /);
+      if (ask && !ask.disabled) return 'ask';
+      const send = named(/^Send \d tiles?$/);
+      const picked = document.querySelector('[role="group"][aria-label="Your rack"] button[aria-pressed="true"]');
+      if (send && (!send.disabled || !picked)) return 'send';
+      return null;
+    },
+    undefined,
+    { timeout, polling: 50 },
+  );
+  return (await due.jsonValue()) as Move;
+}
+
+const tiles = (n: number) => `${n} ${n === 1 ? 'tile' : 'tiles'}`;
+
+/** Makes one move and returns the button pressed last, so the caller can wait for it to take. */
+async function makeMove(page: Page, move: Exclude<Move, 'over'>, style: PlayStyle, timeout: number) {
+  const quick = { timeout };
+  if (move === 'vote') {
+    const button = page.getByRole('button', { name: style.stop ? 'Stop after this round' : 'Play a second Charleston' });
+    const handle = await button.elementHandle(quick);
+    await button.click(quick);
+    return handle;
   }
-  return true;
+  if (move === 'ask') {
+    const n = style.ask ?? 2;
+    await page.getByRole('radio', { name: tiles(n), exact: true }).check(quick);
+    const button = page.getByRole('button', { name: `Ask for ${tiles(n)}` });
+    const handle = await button.elementHandle(quick);
+    await button.click(quick);
+    return handle;
+  }
+  const send = sendButton(page);
+  const handle = await send.elementHandle(quick);
+  // At most three picks wake the button; the fourth try covers a pick the page turned down.
+  for (let i = 0; i < 4 && !(await send.isEnabled()); i++) await (style.from === 'right' ? pickable(page).last() : pickable(page).first()).click(quick);
+  await send.click(quick);
+  return handle;
+}
+
+/**
+ * Plays this seat to the end of the exchange: waits for each thing it is asked to do, does it, and
+ * waits until the page has taken it (the button pressed is disabled while the action is on its way,
+ * or gone). The table may move on while a button is reached for (a bot's vote can end a round
+ * first): a move whose button went away gives up after a few seconds, and the seat looks again.
+ * Fails only when the exchange is not over within `deadlineMs`.
+ */
+export async function playToEnd(page: Page, style: PlayStyle, deadlineMs = PLAY_DEADLINE_MS) {
+  const deadline = Date.now() + deadlineMs;
+  const left = () => {
+    const ms = deadline - Date.now();
+    if (ms <= 0) throw new Error(`The exchange was not over within ${deadlineMs / 1000} s; the page says: ${page.url()}`);
+    return ms;
+  };
+  for (;;) {
+    const move = await nextMove(page, left());
+    if (move === 'over') return;
+    try {
+      const pressed = await makeMove(page, move, style, Math.min(5_000, left()));
+      await page.waitForFunction((button) => !button?.isConnected || (button as HTMLButtonElement).disabled, pressed, { timeout: left(), polling: 50 });
+    } catch (err) {
+      if (!(err instanceof Error && err.name === 'TimeoutError')) throw err;
+    }
+  }
 }
 
 /** The host, already seated, fills every empty seat with a bot. */

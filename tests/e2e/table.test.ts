@@ -1,6 +1,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, inject, test } from 'vitest';
 import { launch, snap } from './browser';
+import { PLAY_DEADLINE_MS, pickAndSend, playToEnd, rack } from './play';
 
 let browser: Browser;
 const baseUrl = inject('baseUrl');
@@ -25,30 +26,6 @@ async function signIn(email: string, name: string, width = 1280): Promise<Page> 
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByRole('heading', { name: `Welcome, ${name}` }).waitFor();
   return page;
-}
-
-const rack = (page: Page) => page.getByRole('group', { name: 'Your rack' });
-
-/** Picks tiles left to right (never a joker) until the send button wakes up, then sends. */
-async function pickAndSend(page: Page) {
-  const send = page.getByRole('button', { name: /^Send \d tiles?$/ });
-  const tiles = rack(page).locator('button[aria-pressed="false"]:not([aria-disabled="true"])');
-  for (let i = 0; i < 4 && !(await send.isEnabled()); i++) await tiles.first().click();
-  await send.click();
-}
-
-/** Does whatever this seat is asked to do now; returns false once the exchange is over. */
-async function playStep(page: Page, stop: boolean): Promise<boolean> {
-  if (await page.getByText('The Charleston is over.').isVisible()) return false;
-  const send = page.getByRole('button', { name: /^Send \d tiles?$/ });
-  if (await send.isVisible()) await pickAndSend(page);
-  else if (await page.getByRole('button', { name: 'Stop after this round' }).isVisible())
-    await page.getByRole('button', { name: stop ? 'Stop after this round' : 'Play a second Charleston' }).click();
-  else if (await page.getByRole('radio', { name: '2 tiles' }).isVisible()) {
-    await page.getByRole('radio', { name: '2 tiles' }).check();
-    await page.getByRole('button', { name: 'Ask for 2 tiles' }).click();
-  }
-  return true;
 }
 
 test('two players and two bots finish an exchange with a huddle, then replay it', async () => {
@@ -114,12 +91,7 @@ test('two players and two bots finish an exchange with a huddle, then replay it'
   await theo.getByText(/^You received 3 tiles from/).waitFor();
 
   // Everyone plays on; the player across asks to stop after the first Charleston.
-  for (let round = 0; round < 40; round++) {
-    const a = await playStep(ines, false);
-    const b = await playStep(theo, true);
-    if (!a && !b) break;
-    await ines.waitForTimeout(250);
-  }
+  await Promise.all([playToEnd(ines, { stop: false }), playToEnd(theo, { stop: true })]);
   await ines.getByText('The Charleston is over.').waitFor();
   await snap(ines, 'table-done');
   const overflow = await theo.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
@@ -139,7 +111,7 @@ test('two players and two bots finish an exchange with a huddle, then replay it'
   await ines.getByRole('link', { name: /^Replay Harbor Lane evening/ }).first().waitFor();
   await snap(ines, 'history');
   expect(tableUrl).toContain('/tables/');
-}, 180_000);
+}, 2 * PLAY_DEADLINE_MS);
 
 test('on a 375 px phone the rack reads at 44 px, plays by keyboard, and reduced motion stops the slide', async () => {
   const mina = await signIn('mina@harborlane.test', 'Mina Castellanos', 375);
@@ -211,7 +183,7 @@ test('a new user registers, finishes an exchange against three bots, and replays
   }
   await page.getByRole('button', { name: 'Deal and start the Charleston' }).click();
   await rack(page).waitFor();
-  for (let round = 0; round < 40 && (await playStep(page, false)); round++) await page.waitForTimeout(200);
+  await playToEnd(page, { stop: false });
   await page.getByText('The Charleston is over.').waitFor();
   await page.getByRole('link', { name: 'Replay this exchange pass by pass' }).click();
   await page.getByRole('heading', { name: 'Replay: Dana practises' }).waitFor();
@@ -220,4 +192,4 @@ test('a new user registers, finishes an exchange against three bots, and replays
   await snap(page, 'replay-1440');
   await page.getByRole('link', { name: 'My exchanges' }).click();
   await page.getByRole('link', { name: /^Replay Dana practises/ }).waitFor();
-}, 120_000);
+}, 2 * PLAY_DEADLINE_MS);

@@ -48,8 +48,8 @@ export class Client {
     return s;
   }
 
-  /** Resolves with the first state (the latest one included) that satisfies pred. */
-  until(pred: (s: TableStateDto) => boolean, timeoutMs = 5000): Promise<TableStateDto> {
+  /** Resolves with the first state (the latest one included) that satisfies pred; the deadline allows for a busy machine. */
+  until(pred: (s: TableStateDto) => boolean, timeoutMs = 15_000): Promise<TableStateDto> {
     const latest = this.states[this.states.length - 1];
     if (latest && pred(latest)) return Promise.resolve(latest);
     return new Promise((resolve, reject) => {
@@ -143,11 +143,14 @@ export function autoPlayer(url: string, name: string, cookie: string, tableId: s
   const acked: Action[] = [];
   const seen = { connects: 0 };
   let busy = false;
+  // The state last acted on: the next move waits for a newer one, so nothing is sent twice on one state.
+  let actedOn: TableStateDto | undefined;
   async function tick() {
     const s = c.states[c.states.length - 1];
-    if (busy || !s?.view || s.phase === 'done' || !socket.connected) return;
+    if (busy || !s?.view || s.phase === 'done' || !socket.connected || s === actedOn) return;
     const action = simpleAction(s, { blind: 1, stop: false, ask: 1 });
     if (!action) return;
+    actedOn = s;
     busy = true;
     try {
       const ack = await c.emit('exchange:act', sendVersion ? { action, version: s.version } : { action });
@@ -156,7 +159,8 @@ export function autoPlayer(url: string, name: string, cookie: string, tableId: s
       // No answer (the server died): not acknowledged, so nothing is promised.
     } finally {
       busy = false;
-      setTimeout(tick, 5);
+      // A state that came in while the action was on its way may already call for the next one.
+      void tick();
     }
   }
   socket.on('connect', () => {

@@ -80,7 +80,7 @@ test('a session ends at its absolute lifetime however active it is, on REST and 
   wait(absolute - MINUTE - elapsed);
   expect((await me()).status).toBe(200);
   const early = connect(server.url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: cookie } });
-  await new Promise((resolve, reject) => (early.once('connect', resolve), early.once('connect_error', reject)));
+  await new Promise<void>((resolve, reject) => (early.once('connect', () => resolve()), early.once('connect_error', reject)));
   early.disconnect();
 
   wait(2 * MINUTE);
