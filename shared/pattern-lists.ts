@@ -1,7 +1,7 @@
 /** Pattern lists a teacher owns: the wire schema, its checks and the DTOs. The starter list is served, never stored. */
 import { z } from 'zod';
-import { patternSchema, validatePattern } from './analysis/schema';
-import type { Pattern } from './analysis/pattern';
+import { patternSchema, soundPatterns, validatePattern } from './analysis/schema';
+import { listWorkIssue, type Pattern } from './analysis/pattern';
 
 /** The id under which the read-only starter list is served. */
 export const STARTER_LIST_ID = 'starter';
@@ -32,9 +32,13 @@ export type PatternListInput = z.input<typeof patternListInputSchema>;
 
 /**
  * Field errors for a list's patterns, keyed `patterns.3.groups.1.size` and the like, each
- * message naming the pattern id and the group ("Pattern "even-01", group 2 of 4: …").
+ * message naming the pattern id and the group ("Pattern "even-01", group 2 of 4: …"); or one
+ * error on `patterns` when the patterns together ask too much work (PATTERN_WORK_LIMITS).
  */
 export function patternFieldErrors(patterns: readonly unknown[]): Record<string, string> {
+  // A list that asks too much in all is refused as a whole, before any pattern is tried.
+  const tooMuch = listWorkIssue(soundPatterns(patterns));
+  if (tooMuch) return { patterns: tooMuch };
   const fields: Record<string, string> = {};
   const seen = new Map<string, number>();
   patterns.forEach((candidate, index) => {

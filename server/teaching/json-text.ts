@@ -1,6 +1,7 @@
 /**
  * Reading uploaded JSON so a person can fix it: a syntax error names its line and column
  * (JSON.parse does not always say where), and field paths are written as a reader sees them.
+ * JSON.parse reads the file; only when it refuses does the scanner below look for the place.
  */
 
 export interface FileProblem {
@@ -32,14 +33,31 @@ function lineAndColumn(text: string, position: number) {
   return { line, column };
 }
 
-/** Where the first syntax error in `text` sits, or null if it is valid JSON. A small scanner: it only finds the place. */
+/** A syntax error at a place in the text. */
+class JsonSyntax extends Error {
+  constructor(
+    message: string,
+    readonly position: number,
+  ) {
+    super(message);
+  }
+}
+
+const NUMBER = /-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?/y;
+const ESCAPES = '"\\/bfnrt';
+
+/**
+ * Where the first syntax error in `text` sits, or null if it is valid JSON. A small scanner that
+ * only finds the place. It keeps open objects and lists on a stack of its own rather than the
+ * call stack, so no depth of nesting makes it fail.
+ */
 export function locateJsonError(text: string): { line: number; column: number; message: string } | null {
   let i = 0;
   const fail = (message: string): never => {
-    throw Object.assign(new Error(message), { position: i });
+    throw new JsonSyntax(message, i);
   };
   const ws = () => {
-    while (i < text.length && ' \t\n\r'.includes(text[i])) i++;
+    while (i < text.length && (text[i] === ' ' || text[i] === '\t' || text[i] === '\n' || text[i] === '\r')) i++;
   };
   const literal = (word: string) => {
     if (text.startsWith(word, i)) i += word.length;
@@ -48,81 +66,103 @@ export function locateJsonError(text: string): { line: number; column: number; m
   const string = () => {
     i++;
     while (i < text.length && text[i] !== '"') {
-      if (text[i] === '\\') i++;
-      else if (text[i] === '\n') fail('A string is not closed before the end of the line: add the closing double quote.');
+      const c = text[i];
+      if (c === '\n') fail('A string is not closed before the end of the line: add the closing double quote.');
+      if (c < ' ') fail('A string holds a control character such as a tab: write it as an escape, like \\t.');
+      if (c === '\\') {
+        const next = text[i + 1];
+        if (next === 'u' && /^[0-9a-fA-F]{4}$/.test(text.slice(i + 2, i + 6))) i += 6;
+        else if (next !== undefined && next !== 'u' && ESCAPES.includes(next)) i += 2;
+        else fail('A backslash in a string starts an escape: \\" \\\\ \\/ \\b \\f \\n \\r \\t, or \\u and four hex digits.');
+        continue;
+      }
       i++;
     }
     if (i >= text.length) fail('A string is not closed: add the closing double quote.');
     i++;
   };
   const number = () => {
-    const match = /^-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?/.exec(text.slice(i));
+    NUMBER.lastIndex = i;
+    const match = NUMBER.exec(text);
     if (!match) fail('This is not a number.');
     i += match![0].length;
   };
-  const value = (): void => {
+  /** Objects and lists still open, innermost last. */
+  const open: ('{' | '[')[] = [];
+  /** Reads a value, or only the opening of an object or list (then true: it is now on the stack). */
+  const value = (): boolean => {
     ws();
     const c = text[i];
     if (c === undefined) fail('The file ends where a value was expected.');
-    if (c === '{') return object();
-    if (c === '[') return list();
-    if (c === '"') return string();
-    if (c === 't') return literal('true');
-    if (c === 'f') return literal('false');
-    if (c === 'n') return literal('null');
-    if (c === '-' || (c >= '0' && c <= '9')) return number();
-    if (c === "'") fail('Strings take double quotes ("), not single quotes.');
-    fail(`Unexpected "${c}" where a value was expected.`);
-  };
-  const object = () => {
-    i++;
-    ws();
-    if (text[i] === '}') return void i++;
-    for (;;) {
-      ws();
-      if (text[i] === '}') fail('A comma is followed by "}": remove the comma after the last entry.');
-      if (text[i] === ',') fail('Two commas in a row: remove one.');
-      if (text[i] !== '"') fail('An entry name needs double quotes, like "name".');
-      string();
-      ws();
-      if (text[i] !== ':') fail('Put a colon (:) after the entry name.');
+    if (c === '{' || c === '[') {
+      open.push(c);
       i++;
-      value();
-      ws();
-      if (text[i] === ',') {
-        i++;
-        continue;
-      }
-      if (text[i] === '}') return void i++;
-      fail(text[i] === undefined ? 'The file ends inside an object: a closing "}" is missing.' : 'Put a comma between entries, or close the object with "}".');
+      return true;
     }
+    if (c === '"') string();
+    else if (c === 't') literal('true');
+    else if (c === 'f') literal('false');
+    else if (c === 'n') literal('null');
+    else if (c === '-' || (c >= '0' && c <= '9')) number();
+    else if (c === "'") fail('Strings take double quotes ("), not single quotes.');
+    else fail(`Unexpected "${c}" where a value was expected.`);
+    return false;
   };
-  const list = () => {
-    i++;
+  /** An object's entry name and colon. */
+  const entryName = () => {
     ws();
-    if (text[i] === ']') return void i++;
-    for (;;) {
-      ws();
-      if (text[i] === ']') fail('A comma is followed by "]": remove the comma after the last item.');
-      if (text[i] === ',') fail('Two commas in a row: remove one.');
-      value();
-      ws();
-      if (text[i] === ',') {
-        i++;
-        continue;
-      }
-      if (text[i] === ']') return void i++;
-      fail(text[i] === undefined ? 'The file ends inside a list: a closing "]" is missing.' : 'Put a comma between items, or close the list with "]".');
-    }
+    if (text[i] === '}') fail('A comma is followed by "}": remove the comma after the last entry.');
+    if (text[i] === ',') fail('Two commas in a row: remove one.');
+    if (text[i] !== '"') fail('An entry name needs double quotes, like "name".');
+    string();
+    ws();
+    if (text[i] !== ':') fail('Put a colon (:) after the entry name.');
+    i++;
   };
   try {
-    value();
+    let opened = value();
+    while (opened || open.length > 0) {
+      const inObject = open[open.length - 1] === '{';
+      ws();
+      if (opened) {
+        // Just inside "{" or "[": it closes at once, or its first entry or item follows.
+        if (text[i] === (inObject ? '}' : ']')) {
+          i++;
+          open.pop();
+          opened = false;
+          continue;
+        }
+        if (inObject) entryName();
+        else if (text[i] === ',') fail('Two commas in a row: remove one.');
+        opened = value();
+        continue;
+      }
+      // After an entry or item: a comma and the next one, or the close.
+      if (text[i] === ',') {
+        i++;
+        if (inObject) entryName();
+        else {
+          ws();
+          if (text[i] === ']') fail('A comma is followed by "]": remove the comma after the last item.');
+          if (text[i] === ',') fail('Two commas in a row: remove one.');
+        }
+        opened = value();
+        continue;
+      }
+      if (text[i] === (inObject ? '}' : ']')) {
+        i++;
+        open.pop();
+        continue;
+      }
+      if (inObject) fail(text[i] === undefined ? 'The file ends inside an object: a closing "}" is missing.' : 'Put a comma between entries, or close the object with "}".');
+      fail(text[i] === undefined ? 'The file ends inside a list: a closing "]" is missing.' : 'Put a comma between items, or close the list with "]".');
+    }
     ws();
     if (i < text.length) fail('There is more after the end of the data. A file holds one object.');
     return null;
   } catch (err) {
-    const e = err as Error & { position: number };
-    return { ...lineAndColumn(text, Math.min(e.position, text.length)), message: e.message };
+    if (!(err instanceof JsonSyntax)) throw err;
+    return { ...lineAndColumn(text, Math.min(err.position, text.length)), message: err.message };
   }
 }
 

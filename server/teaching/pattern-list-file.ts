@@ -14,7 +14,6 @@
  */
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
-import { z } from 'zod';
 import type { Group, Pattern } from '../../shared/analysis/pattern';
 import { PATTERN_LIST_LIMITS, patternFieldErrors, patternListInputSchema } from '../../shared/pattern-lists';
 import { fieldPath, FileRejected, parseJsonFile, type FileProblem } from './json-text';
@@ -45,9 +44,14 @@ function rankCell(group: Group): string {
   return offset === 0 ? v : `${v}${offset > 0 ? '+' : ''}${offset}`;
 }
 
-/** A spreadsheet would run a cell that starts with = + - or @ as a formula; a leading apostrophe keeps it text. */
-const guard = (cell: string) => (/^[=+\-@]/.test(cell) ? `'${cell}` : cell);
-const unguard = (cell: string) => cell.replace(/^'(?=[=+\-@])/, '');
+/**
+ * A spreadsheet may run a cell that starts with = + - @, a tab or a carriage return as a
+ * formula; a leading apostrophe keeps it text. A cell that already starts with apostrophes
+ * before one of those gets one more, so reading it back removes exactly the one added.
+ */
+const RISKY = /^'*[=+\-@\t\r]/;
+const guard = (cell: string) => (RISKY.test(cell) ? `'${cell}` : cell);
+const unguard = (cell: string) => (cell.startsWith("'") && RISKY.test(cell) ? cell.slice(1) : cell);
 
 export function patternListCsv(list: PatternListFile): string {
   const rows: string[][] = [[PATTERN_LIST_FORMAT, String(PATTERN_LIST_VERSION)], ['name', list.name]];
@@ -89,8 +93,6 @@ function checkList(candidate: { name: unknown; description: unknown; patterns: u
   return { name: parsed.data.name, description: parsed.data.description, patterns: parsed.data.patterns as Pattern[] };
 }
 
-const header = z.object({ format: z.unknown(), version: z.unknown() }).passthrough();
-
 function checkFormat(format: unknown, version: unknown, where: { format: string; version: string }) {
   if (format !== PATTERN_LIST_FORMAT) {
     throw new FileRejected([{ where: where.format, message: `This is not a Rackside pattern-list file: "format" must be "${PATTERN_LIST_FORMAT}".` }]);
@@ -108,7 +110,7 @@ export function readPatternListJson(text: string): PatternListFile {
   if (typeof data !== 'object' || data === null || Array.isArray(data)) {
     throw new FileRejected([{ where: '(the whole file)', message: 'A pattern-list file holds one object with "format", "version", "name" and "patterns".' }]);
   }
-  const head = header.parse(data);
+  const head = data as Record<string, unknown>;
   checkFormat(head.format, head.version, { format: 'format', version: 'version' });
   const known = new Set(['format', 'version', 'name', 'description', 'patterns']);
   const extra = Object.keys(data).filter((k) => !known.has(k));

@@ -1,5 +1,6 @@
 /** Where a list's patterns come from: the starter list (served from shared/, read-only) or a teacher's stored list. */
 import { starterPatterns, type Pattern } from '../../shared/analysis';
+import { assignmentBound, PATTERN_WORK_LIMITS, workIssues } from '../../shared/analysis/pattern';
 import { STARTER_LIST_ID, STARTER_LIST_NAME, type PatternListDto, type PatternListSummaryDto } from '../../shared/pattern-lists';
 import { PatternListRow } from '../db/models';
 
@@ -38,13 +39,32 @@ export async function listName(id: string): Promise<string> {
 }
 
 /**
+ * A stored list's patterns within today's work limits: a list saved before the limits may hold
+ * patterns too costly to judge on the server's one thread; those are left out, and the list is
+ * cut where its patterns together reach the list's budget.
+ */
+export function withinWorkLimits(patterns: readonly Pattern[]): Pattern[] {
+  const kept: Pattern[] = [];
+  let spent = 0;
+  for (const pattern of patterns) {
+    if (workIssues(pattern).length > 0) continue;
+    spent += assignmentBound(pattern);
+    if (spent > PATTERN_WORK_LIMITS.listAssignments) break;
+    kept.push(pattern);
+  }
+  return kept;
+}
+
+/**
  * The patterns a table judges by. The host's choice was checked when the table opened; a list
- * deleted since falls back to the starter list, so a table never stops working.
+ * deleted since (or with nothing left within the work limits) falls back to the starter list,
+ * so a table never stops working.
  */
 export async function patternsForTable(id: string | undefined): Promise<{ id: string; name: string; patterns: Pattern[] }> {
   if (id && id !== STARTER_LIST_ID) {
     const row = await PatternListRow.findByPk(id);
-    if (row) return { id: row.id, name: row.name, patterns: row.patterns };
+    const patterns = row ? withinWorkLimits(row.patterns) : [];
+    if (row && patterns.length > 0) return { id: row.id, name: row.name, patterns };
   }
   return { id: STARTER_LIST_ID, name: STARTER_LIST_NAME, patterns: starterPatterns };
 }

@@ -67,29 +67,158 @@ function rankChoices(pattern: Pattern): [string, number[]][] {
   });
 }
 
-function* injective<T>(choices: T[][], taken: T[] = []): Generator<T[]> {
-  if (taken.length === choices.length) {
-    yield taken;
-    return;
-  }
-  for (const value of choices[taken.length]) {
-    if (!taken.includes(value)) yield* injective(choices, [...taken, value]);
-  }
+const SUIT_INDEX: Suit[] = [...SUITS];
+/** KIND_OF_SUIT[suit][rank] and DRAGON_OF_SUIT[suit], as kind indexes. */
+const KIND_OF_SUIT = SUIT_INDEX.map((suit) => [0, ...RANKS.map((rank) => kindIndex(suitKind(suit, rank)))]);
+const DRAGON_OF_SUIT = SUIT_INDEX.map((suit) => kindIndex(MATCHING_DRAGON[suit]));
+
+/**
+ * A group reduced to numbers: a fixed kind, or a suit (a letter's slot, or a fixed suit) with a
+ * rank (a variable's slot plus an offset, or a fixed rank), or a suit's dragon.
+ */
+interface Slot {
+  size: number;
+  kind: number;
+  letter: number;
+  suit: number;
+  variable: number;
+  rank: number;
+  dragon: boolean;
+}
+
+/**
+ * Calls `visit` once per choice of distinct suits for the pattern's letters and distinct numbers
+ * for its rank variables, in a fixed order (suits first, then numbers, each in ascending order),
+ * with the chosen suit indexes and numbers, until `visit` returns true. The arrays are reused:
+ * copy what you keep.
+ */
+function forEachChoice(letters: number, ranks: number[][], visit: (suits: number[], values: number[]) => boolean | void) {
+  const suits: number[] = new Array<number>(letters).fill(-1);
+  const values: number[] = new Array<number>(ranks.length).fill(0);
+  let stopped = false;
+  const pickValue = (at: number) => {
+    if (at === ranks.length) {
+      if (visit(suits, values)) stopped = true;
+      return;
+    }
+    for (const value of ranks[at]) {
+      let taken = false;
+      for (let j = 0; j < at; j++) if (values[j] === value) taken = true;
+      if (taken) continue;
+      values[at] = value;
+      pickValue(at + 1);
+      if (stopped) return;
+    }
+  };
+  const pickSuit = (at: number) => {
+    if (at === letters) return pickValue(0);
+    for (let suit = 0; suit < SUIT_INDEX.length; suit++) {
+      let taken = false;
+      for (let j = 0; j < at; j++) if (suits[j] === suit) taken = true;
+      if (taken) continue;
+      suits[at] = suit;
+      pickSuit(at + 1);
+      if (stopped) return;
+    }
+  };
+  pickSuit(0);
+}
+
+/** What one choice asks for: `count` kinds in `kinds` (ascending), with the small and big needs of each kind. */
+interface NeedsView {
+  kinds: Int32Array;
+  count: number;
+  small: Int16Array;
+  big: Int16Array;
+  suits: number[];
+  values: number[];
+}
+
+/**
+ * Walks the needs of every choice of the pattern, in enumeration order, until `visit` returns
+ * true. Numbers throughout; the view is reused between calls.
+ */
+function forEachNeeds(plan: Plan, visit: (view: NeedsView) => boolean | void) {
+  const { slots } = plan;
+  const view: NeedsView = { kinds: new Int32Array(slots.length), count: 0, small: new Int16Array(KIND_COUNT), big: new Int16Array(KIND_COUNT), suits: [], values: [] };
+  const { kinds, small, big } = view;
+  forEachChoice(
+    plan.letters.length,
+    plan.ranks.map(([, list]) => list),
+    (suits, values) => {
+      let count = 0;
+      for (let s = 0; s < slots.length; s++) {
+        const slot = slots[s];
+        let kind = slot.kind;
+        if (kind < 0) {
+          const suit = slot.letter >= 0 ? suits[slot.letter] : slot.suit;
+          kind = slot.dragon ? DRAGON_OF_SUIT[suit] : KIND_OF_SUIT[suit]?.[slot.variable >= 0 ? values[slot.variable] + slot.rank : slot.rank];
+          if (kind === undefined) throw new Error('A group of this pattern has no tile kind: check its suit and rank.');
+        }
+        if (small[kind] === 0 && big[kind] === 0) {
+          // Insertion keeps the kinds sorted: a hand has at most 14 of them.
+          let at = count++;
+          while (at > 0 && kinds[at - 1] > kind) kinds[at] = kinds[--at];
+          kinds[at] = kind;
+        }
+        if (slot.size >= JOKER_MIN_GROUP) big[kind] += slot.size;
+        else small[kind] += slot.size;
+      }
+      view.count = count;
+      view.suits = suits;
+      view.values = values;
+      const stop = visit(view);
+      for (let t = 0; t < count; t++) small[kinds[t]] = big[kinds[t]] = 0;
+      return stop;
+    },
+  );
+}
+
+interface Plan {
+  letters: SuitLetter[];
+  ranks: [string, number[]][];
+  slots: Slot[];
+}
+
+function planOf(pattern: Pattern): Plan {
+  const letters = lettersOf(pattern);
+  const ranks = rankChoices(pattern);
+  const names = ranks.map(([name]) => name);
+  const slots = pattern.groups.map((group): Slot => {
+    const slot: Slot = { size: group.size, kind: -1, letter: -1, suit: -1, variable: -1, rank: 0, dragon: false };
+    if ('tile' in group) {
+      slot.kind = kindIndex(group.tile);
+      return slot;
+    }
+    if (isSuitLetter(group.suit)) slot.letter = letters.indexOf(group.suit);
+    else slot.suit = SUIT_INDEX.indexOf(group.suit);
+    if ('dragon' in group) slot.dragon = true;
+    else if (typeof group.rank === 'number') slot.rank = group.rank;
+    else {
+      slot.variable = names.indexOf(group.rank.var);
+      slot.rank = group.rank.offset;
+    }
+    return slot;
+  });
+  return { letters, ranks, slots };
+}
+
+function assignmentOf(plan: Plan, suits: number[], values: number[]): Assignment {
+  const out: Assignment = { suits: {}, ranks: {} };
+  plan.letters.forEach((letter, i) => (out.suits[letter] = SUIT_INDEX[suits[i]]));
+  plan.ranks.forEach(([name], i) => (out.ranks[name] = values[i]));
+  return out;
 }
 
 /** Every assignment of the pattern, without validating it first. */
 export function enumerateAssignments(pattern: Pattern): Assignment[] {
-  const letters = lettersOf(pattern);
-  const ranks = rankChoices(pattern);
+  const plan = planOf(pattern);
   const out: Assignment[] = [];
-  for (const suits of injective(letters.map(() => [...SUITS]))) {
-    for (const values of injective(ranks.map(([, list]) => list))) {
-      out.push({
-        suits: Object.fromEntries(letters.map((letter, i) => [letter, suits[i]])),
-        ranks: Object.fromEntries(ranks.map(([name], i) => [name, values[i]])),
-      });
-    }
-  }
+  forEachChoice(
+    plan.letters.length,
+    plan.ranks.map(([, list]) => list),
+    (suits, values) => void out.push(assignmentOf(plan, suits, values)),
+  );
   return out;
 }
 
@@ -106,32 +235,28 @@ export function needsOf(pattern: Pattern, assignment: Assignment): Need[] {
   return [...byKind.values()].sort((a, b) => a.kind - b.kind);
 }
 
-/** Compile without validating: assignments that ask for the same tiles are kept once. */
+/**
+ * Compile without validating: assignments that ask for the same tiles are kept once, the first
+ * of them in enumeration order. Works on numbers throughout; an Assignment object is made only
+ * for each distinct set of needs.
+ */
 export function compileUnchecked(pattern: Pattern): CompiledPattern {
+  const plan = planOf(pattern);
   const assignments: Assignment[] = [];
-  const chunks: Need[][] = [];
+  const flat: number[] = [];
+  const starts: number[] = [];
   const seen = new Set<string>();
-  for (const assignment of enumerateAssignments(pattern)) {
-    const needs = needsOf(pattern, assignment);
-    const key = needs.map((n) => `${n.kind}:${n.small}:${n.big}`).join(',');
-    if (seen.has(key)) continue;
+  forEachNeeds(plan, ({ kinds, count, small, big, suits, values }) => {
+    let key = '';
+    for (let t = 0; t < count; t++) key += String.fromCharCode(kinds[t], small[kinds[t]], big[kinds[t]]);
+    if (seen.has(key)) return;
     seen.add(key);
-    assignments.push(assignment);
-    chunks.push(needs);
-  }
-  const starts = new Int32Array(chunks.length + 1);
-  const flat = new Int16Array(chunks.reduce((sum, c) => sum + c.length * 3, 0));
-  let at = 0;
-  chunks.forEach((needs, i) => {
-    starts[i] = at;
-    for (const need of needs) {
-      flat[at++] = need.kind;
-      flat[at++] = need.small;
-      flat[at++] = need.big;
-    }
+    starts.push(flat.length);
+    for (let t = 0; t < count; t++) flat.push(kinds[t], small[kinds[t]], big[kinds[t]]);
+    assignments.push(assignmentOf(plan, suits, values));
   });
-  starts[chunks.length] = at;
-  return { pattern, assignments, flat, starts };
+  starts.push(flat.length);
+  return { pattern, assignments, flat: Int16Array.from(flat), starts: Int32Array.from(starts) };
 }
 
 /**
@@ -139,39 +264,51 @@ export function compileUnchecked(pattern: Pattern): CompiledPattern {
  * kind, 8 flowers); bigger groups take jokers, of which a set has 8.
  */
 export function feasibilityIssues(pattern: Pattern): PatternIssue[] {
-  const assignments = enumerateAssignments(pattern);
-  if (assignments.length === 0) {
-    return [{ message: 'No choice of suits and numbers fits: the rank variables must take different numbers, each within 1–9.' }];
-  }
-  const problems = (assignment: Assignment): PatternIssue[] => {
-    const found: PatternIssue[] = [];
+  const plan = planOf(pattern);
+  // The first choice that real tiles and jokers could fill settles it; otherwise the first
+  // choice's problems are the ones told.
+  let fits = false;
+  let first: Assignment | null = null;
+  forEachNeeds(plan, ({ kinds, count, small, big, suits, values }) => {
     let jokers = 0;
-    for (const need of needsOf(pattern, assignment)) {
-      const kind = TILE_KINDS[need.kind];
-      const copies = copiesInSet(kind);
-      if (need.small > copies) {
-        const groups = pattern.groups.map((g, i) => ({ g, i })).filter(({ g }) => g.size < JOKER_MIN_GROUP && groupKind(g, assignment) === kind);
-        const numbers = groups.map(({ i }) => String(i + 1));
-        const where = numbers.length === 1 ? `This group needs` : `Groups ${joinWords(numbers)} need`;
-        found.push({
-          group: groups[groups.length - 1].i,
-          message: `${where} ${need.small} natural ${tileName(kind)} tiles${numbers.length === 1 ? '' : ' between them'}, but a set has ${copies}, and jokers can't fill singles or pairs.`,
-        });
-      }
-      jokers += Math.max(0, need.big - Math.max(0, copies - need.small));
+    let ok = true;
+    for (let t = 0; t < count; t++) {
+      const copies = COPIES[kinds[t]];
+      if (small[kinds[t]] > copies) ok = false;
+      jokers += Math.max(0, big[kinds[t]] - Math.max(0, copies - small[kinds[t]]));
     }
-    if (jokers > JOKER_COUNT) {
-      const biggest = pattern.groups.reduce((best, g, i) => (g.size > pattern.groups[best].size ? i : best), 0);
-      found.push({ group: biggest, message: `The pattern needs at least ${jokers} jokers, and a set has ${JOKER_COUNT}.` });
-    }
-    return found;
-  };
-  let first: PatternIssue[] | null = null;
-  for (const assignment of assignments) {
-    const found = problems(assignment);
-    if (found.length === 0) return [];
-    first ??= found;
-  }
-  return first ?? [];
+    if (ok && jokers <= JOKER_COUNT) return (fits = true);
+    first ??= assignmentOf(plan, suits, values);
+  });
+  if (fits) return [];
+  if (!first) return [{ message: 'No choice of suits and numbers fits: the rank variables must take different numbers, each within 1–9.' }];
+  return problemsAt(pattern, first);
 }
 
+/** Copies of each kind in a set, by kind index. */
+const COPIES = TILE_KINDS.map((kind) => copiesInSet(kind));
+
+/** Why real tiles plus jokers can't fill one assignment, in words, naming the groups at fault. */
+function problemsAt(pattern: Pattern, assignment: Assignment): PatternIssue[] {
+  const found: PatternIssue[] = [];
+  let jokers = 0;
+  for (const need of needsOf(pattern, assignment)) {
+    const kind = TILE_KINDS[need.kind];
+    const copies = copiesInSet(kind);
+    if (need.small > copies) {
+      const groups = pattern.groups.map((g, i) => ({ g, i })).filter(({ g }) => g.size < JOKER_MIN_GROUP && groupKind(g, assignment) === kind);
+      const numbers = groups.map(({ i }) => String(i + 1));
+      const where = numbers.length === 1 ? `This group needs` : `Groups ${joinWords(numbers)} need`;
+      found.push({
+        group: groups[groups.length - 1].i,
+        message: `${where} ${need.small} natural ${tileName(kind)} tiles${numbers.length === 1 ? '' : ' between them'}, but a set has ${copies}, and jokers can't fill singles or pairs.`,
+      });
+    }
+    jokers += Math.max(0, need.big - Math.max(0, copies - need.small));
+  }
+  if (jokers > JOKER_COUNT) {
+    const biggest = pattern.groups.reduce((best, g, i) => (g.size > pattern.groups[best].size ? i : best), 0);
+    found.push({ group: biggest, message: `The pattern needs at least ${jokers} jokers, and a set has ${JOKER_COUNT}.` });
+  }
+  return found;
+}

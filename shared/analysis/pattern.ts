@@ -62,6 +62,85 @@ export const patternShape = z.strictObject({
   groups: z.array(groupSchema).min(1).max(HAND_SIZE),
 });
 
+/**
+ * How much choosing a pattern may ask for. Checking a pattern and building it for a table try
+ * every choice of its suit letters and number letters, on the server's one thread, so both are
+ * bounded before anything is tried: the number letters, the choices one pattern allows (three
+ * free numbers in three suits, 6 × 9 × 9 × 9, is the most), and the choices a whole list allows.
+ */
+export const PATTERN_WORK_LIMITS = { rankVariables: 4, assignments: 6 * 9 ** 3, listAssignments: 100_000 } as const;
+
+/** The pattern's number letters (rank variables), sorted. */
+export function rankVariables(pattern: Pattern): string[] {
+  const names = new Set<string>();
+  for (const group of pattern.groups) if ('rank' in group && typeof group.rank === 'object') names.add(group.rank.var);
+  return [...names].sort();
+}
+
+/** How many numbers 1–9 each number letter may take, keeping every rank of its offsets within 1–9. */
+export function rankRanges(pattern: Pattern): Map<string, number> {
+  const spans = new Map<string, { low: number; high: number }>();
+  for (const group of pattern.groups) {
+    if (!('rank' in group) || typeof group.rank !== 'object') continue;
+    const { var: name, offset } = group.rank;
+    const span = spans.get(name);
+    spans.set(name, span ? { low: Math.min(span.low, offset), high: Math.max(span.high, offset) } : { low: offset, high: offset });
+  }
+  const out = new Map<string, number>();
+  for (const [name, { low, high }] of spans) out.set(name, Math.max(0, Math.min(9, 9 - high) - Math.max(1, 1 - low) + 1));
+  return out;
+}
+
+/**
+ * At most how many choices of suits and numbers the pattern allows: the ordered picks of
+ * distinct suits for its suit letters times each number letter's range. Counted from the
+ * pattern alone, without trying any choice; never below what compiling tries.
+ */
+export function assignmentBound(pattern: Pattern): number {
+  const letters = new Set<string>();
+  for (const group of pattern.groups) if ('suit' in group && isSuitLetter(group.suit)) letters.add(group.suit);
+  let bound = 1;
+  for (let i = 0; i < letters.size; i++) bound *= 3 - i;
+  for (const range of rankRanges(pattern).values()) bound *= range;
+  return bound;
+}
+
+/** 12345 → "12,345". */
+export function grouped(n: number): string {
+  return String(n).replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+}
+
+/** Whether checking the pattern stays cheap: too many number letters, or too many choices, and it is refused unchecked. */
+export function workIssues(pattern: Pattern): PatternIssue[] {
+  const names = rankVariables(pattern);
+  if (names.length > PATTERN_WORK_LIMITS.rankVariables) {
+    return [
+      {
+        message: `This pattern uses ${names.length} number letters (${names.join(', ')}); at most ${PATTERN_WORK_LIMITS.rankVariables} are allowed, so Rackside can check it quickly. Tie numbers together with offsets (n, n+1) or use fixed numbers.`,
+      },
+    ];
+  }
+  const bound = assignmentBound(pattern);
+  if (bound > PATTERN_WORK_LIMITS.assignments) {
+    return [
+      {
+        message: `This pattern has up to ${grouped(bound)} ways to choose its suits and numbers; at most ${grouped(PATTERN_WORK_LIMITS.assignments)} are allowed, so Rackside can check it quickly. Use fewer number letters, tie them together with offsets (n, n+1), or fix some suits or numbers.`,
+      },
+    ];
+  }
+  return [];
+}
+
+/**
+ * The same bound over a whole list: refused as a whole when its patterns together allow too
+ * many choices. A pattern over its own limits is left out here: it is refused on its own.
+ */
+export function listWorkIssue(patterns: readonly Pattern[]): string | null {
+  const total = patterns.reduce((sum, p) => sum + (workIssues(p).length === 0 ? assignmentBound(p) : 0), 0);
+  if (total <= PATTERN_WORK_LIMITS.listAssignments) return null;
+  return `Together these patterns have up to ${grouped(total)} ways to choose suits and numbers; a list may have at most ${grouped(PATTERN_WORK_LIMITS.listAssignments)}, so tables can judge racks quickly. Split the list, or use fewer number letters in its costliest patterns.`;
+}
+
 /** One problem with a pattern; `group` is the 0-based index into `groups` when one group is at fault. */
 export interface PatternIssue {
   group?: number;
@@ -83,6 +162,7 @@ export function semanticIssues(pattern: Pattern): PatternIssue[] {
   const total = pattern.groups.reduce((sum, g) => sum + g.size, 0);
   if (total !== HAND_SIZE) issues.push({ message: `The groups add up to ${total} tiles; a hand has ${HAND_SIZE}.` });
 
+  issues.push(...workIssues(pattern));
   const offsets = new Map<string, number[]>();
   pattern.groups.forEach((group, index) => {
     if ('tile' in group && group.tile === 'joker') {

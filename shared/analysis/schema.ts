@@ -1,6 +1,6 @@
 /** The full pattern schema and the checker that explains, in words, what is wrong. */
 import { feasibilityIssues } from './compile';
-import { groupLabel, patternShape, semanticIssues, type Pattern } from './pattern';
+import { groupLabel, listWorkIssue, patternShape, semanticIssues, type Pattern } from './pattern';
 
 /** Structure first; then the sizes, jokers, rank ranges and whether real tiles could ever fill it. */
 export const patternSchema = patternShape.superRefine((value, ctx) => {
@@ -32,8 +32,18 @@ export function validatePattern(candidate: unknown): string[] {
   });
 }
 
-/** Validate a whole list: every pattern, and ids unique. */
+/** The patterns of a list whose structure is sound, for reckoning the list's work before checking each one. */
+export function soundPatterns(list: readonly unknown[]): Pattern[] {
+  return list.filter((p) => patternShape.safeParse(p).success) as Pattern[];
+}
+
+/**
+ * Validate a whole list: what its patterns together ask for first (a list over its budget is
+ * refused before any pattern is tried), then every pattern, and ids unique.
+ */
 export function validatePatternList(list: unknown[]): string[] {
+  const tooMuch = listWorkIssue(soundPatterns(list));
+  if (tooMuch) return [tooMuch];
   const errors = list.flatMap((p) => validatePattern(p));
   const seen = new Set<string>();
   for (const p of list as { id?: unknown }[]) {

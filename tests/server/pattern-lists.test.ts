@@ -1,6 +1,7 @@
 import request from 'supertest';
+import { parse } from 'csv-parse/sync';
 import { afterEach, beforeEach, expect, test } from 'vitest';
-import { starterPatterns } from '../../shared/analysis';
+import { starterPatterns, type Pattern } from '../../shared/analysis';
 import { PatternListRow } from '../../server/db/models';
 import { smallList, teachingApp, upload, windsPattern } from './teaching-helpers';
 
@@ -246,4 +247,65 @@ test('uploads are limited in size, type and shape', async () => {
   const json = await t.ines.post('/api/pattern-lists/import').send({ file: goodCsv });
   expect(json.status).toBe(400);
   expect(await PatternListRow.count()).toBe(0);
+});
+
+test('a JSON file without its "format" or "version" is refused with a field error, not a server error', async () => {
+  const cases: [string, Record<string, unknown>, string, RegExp][] = [
+    ['no format and no version', { name: 'x', patterns: [windsPattern] }, 'format', /^This is not a Rackside pattern-list file: "format" must be "rackside-pattern-list"\./],
+    ['no version', { format: 'rackside-pattern-list', name: 'x', patterns: [windsPattern] }, 'version', /^"version" must be 1\./],
+    ['a version in words', { format: 'rackside-pattern-list', version: 'one', name: 'x', patterns: [windsPattern] }, 'version', /^"version" must be 1\./],
+  ];
+  for (const [what, file, field, expected] of cases) {
+    const res = await upload(t.ines, '/api/pattern-lists/import', JSON.stringify(file), 'harbor.json');
+    expect(res.status, what).toBe(400);
+    expect(res.body.error.code, what).toBe('BAD_FILE');
+    expect(res.body.error.fields[field], what).toMatch(expected);
+    expect(res.body.error.fields.file, what).toMatch(new RegExp(`^${field}: `));
+  }
+  expect(await PatternListRow.count()).toBe(0);
+});
+
+test('a JSON file nested far too deep is refused with the line and column where it goes wrong', async () => {
+  const deep = '['.repeat(120_000);
+  const open = await upload(t.ines, '/api/pattern-lists/import', deep, 'deep.json');
+  expect(open.status).toBe(400);
+  expect(open.body.error.fields.file).toBe('line 1, column 120001: The file ends where a value was expected.');
+
+  // Deep, closed, and broken at the far end: the place is still found.
+  const wrapped = `{\n  "format": "rackside-pattern-list",\n  "patterns": ${'['.repeat(100_000)}1,,${']'.repeat(100_000)}\n}`;
+  const broken = await upload(t.ines, '/api/pattern-lists/import', wrapped, 'deep.json');
+  expect(broken.status).toBe(400);
+  expect(broken.body.error.fields.file).toBe(`line 3, column ${15 + 100_000 + 2}: Two commas in a row: remove one.`);
+
+  // Deep and well-formed: read, then refused for what it holds.
+  const valid = `{"format": "rackside-pattern-list", "version": 1, "name": "x", "patterns": [${'['.repeat(100_000)}${']'.repeat(100_000)}]}`;
+  const held = await upload(t.ines, '/api/pattern-lists/import', valid, 'deep.json');
+  expect(held.status).toBe(400);
+  expect(held.body.error.fields.file).toMatch(/^patterns\[0\]: Pattern "\(no id\)"/);
+  expect(await PatternListRow.count()).toBe(0);
+});
+
+test('every cell of a CSV download that a spreadsheet could run as a formula is kept as text, and reads back unchanged', async () => {
+  // Names as a stored list may hold them, whatever the editor trims today.
+  const owner = (await t.ines.get('/api/auth/me')).body.user.id as number;
+  const risky = ['\r=1+1', '\t=1+1', '=HYPERLINK("x")', '+1 winds', '-1 winds', '@home', "'=already quoted"];
+  const row = await PatternListRow.create({
+    id: 'risky-list',
+    ownerId: owner,
+    name: risky[0],
+    description: risky[1],
+    patterns: risky.slice(2).map((name, i) => ({ ...windsPattern, id: `risky-${i}`, name, family: risky[(i + 1) % risky.length] })) as Pattern[],
+  });
+  const csv = (await t.ines.get(`/api/pattern-lists/${row.id}/export?format=csv`)).text;
+  // OWASP "CSV Injection": a cell starting with =, +, -, @, TAB (0x09) or CR (0x0D) is run as a formula; a leading ' keeps it text.
+  const cells = (parse(csv, { relax_column_count: true }) as string[][]).flat();
+  for (const cell of cells) expect(cell, JSON.stringify(cell)).not.toMatch(/^[=+\-@\t\r]/);
+  expect(cells).toEqual(expect.arrayContaining(["'\r=1+1", "'\t=1+1", "'=HYPERLINK(\"x\")", "'+1 winds", "'-1 winds", "'@home", "''=already quoted"]));
+
+  const back = await upload(t.ines, '/api/pattern-lists/import', csv, 'risky.csv');
+  expect(back.status).toBe(201);
+  // Names are trimmed as any list's are; everything else comes back as it went out.
+  expect(back.body.list.name).toBe('=1+1');
+  expect(back.body.list.description).toBe('=1+1');
+  expect(back.body.list.patterns.map((p: { name: string }) => p.name)).toEqual(['=HYPERLINK("x")', '+1 winds', '-1 winds', '@home', "'=already quoted"]);
 });
