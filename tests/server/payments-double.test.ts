@@ -195,6 +195,24 @@ test('two completed payments for one seat reach the webhook at the same instant:
   expect(await lessonSeen(s, cookies.Mina, lessonId)).toMatchObject({ myStatus: 'paid', seatsTaken: 2 });
 });
 
+test('two checkouts started at the same instant by one student leave one open checkout page', async () => {
+  server = await liveServer();
+  const s = server;
+  const fake = s.fakes.payments!;
+  const { lessonId, cookies } = await pricedLesson(s, ['Theo'], 2);
+  const both = await Promise.all([checkout(s, cookies.Theo, lessonId), checkout(s, cookies.Theo, lessonId)]);
+  // Either the second found the first ready and took it, or it replaced the first, which says so.
+  const started = both.filter((r) => r.status === 201 || r.status === 200);
+  const urls = new Set(started.map((r) => r.body.url as string));
+  expect(urls.size).toBe(1);
+  for (const r of both.filter((r) => !started.includes(r))) expect([r.status, r.body.error.code]).toEqual([409, 'CHECKOUT_REPLACED']);
+  const open = [...fake.sessions.values()].filter((session) => session.status === 'open');
+  expect(open.map((session) => session.url)).toEqual([...urls]);
+  const pending = await Payment.findAll({ where: { lessonId, status: 'pending' } });
+  expect(pending.map((p) => p.checkoutSessionId)).toEqual([open[0].id]);
+  expect(await lessonSeen(s, cookies.Theo, lessonId)).toMatchObject({ seatsTaken: 1 });
+});
+
 test('the database keeps one paid payment per seat; seats already paid twice are set aside for a refund by hand', async () => {
   const db = await openDatabase('sqlite::memory:');
   try {
