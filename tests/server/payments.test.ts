@@ -4,44 +4,14 @@ import { afterEach, expect, test } from 'vitest';
 import { LOCAL_WEBHOOK_SECRET } from '../../server/config';
 import { Enrollment, Mail, Payment, PaymentEvent, User } from '../../server/db/models';
 import { liveServer, type Server } from './live';
-import { lessonBody, linkIn, mailsTo } from './lesson-helpers';
+import { lessonBody, mailsTo } from './lesson-helpers';
+import { account, checkout, pricedLesson } from './payment-helpers';
 
 let server: Server | undefined;
 afterEach(async () => {
   await server?.close();
   server = undefined;
 });
-
-/** Registers and signs in through the real server; returns the cookie. */
-async function account(s: Server, name: string, role: 'player' | 'teacher' = 'player') {
-  const email = `${name.toLowerCase()}@harborlane.test`;
-  await request(s.url).post('/api/auth/register').send({ email, password: 'tiles-and-tea', displayName: name });
-  if (role !== 'player') await User.update({ role }, { where: { email } });
-  const res = await request(s.url).post('/api/auth/login').send({ email, password: 'tiles-and-tea' });
-  return (res.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('rackside.sid='))!.split(';')[0];
-}
-
-/** A priced lesson with `seats` seats, and each student invited by mail and accepted through the mailed link. */
-async function pricedLesson(s: Server, students: string[], seats: number) {
-  const ines = await account(s, 'Ines', 'teacher');
-  const created = await request(s.url).post('/api/lessons').set('Cookie', ines).send(lessonBody({ priceCents: 1500, currency: 'usd', seats }));
-  expect(created.status).toBe(201);
-  const lessonId = created.body.lesson.id as number;
-  const cookies: Record<string, string> = {};
-  for (const name of students) {
-    const email = `${name.toLowerCase()}@harborlane.test`;
-    cookies[name] = await account(s, name);
-    expect((await request(s.url).post(`/api/lessons/${lessonId}/invitations`).set('Cookie', ines).send({ emails: [email] })).status).toBe(201);
-    const token = new URL(linkIn((await mailsTo(email, 'invitation'))[0], '/invitations')).pathname.split('/').pop();
-    const accepted = await request(s.url).post(`/api/invitations/${token}/accept`).set('Cookie', cookies[name]);
-    expect(accepted.body.next).toBe('pay');
-  }
-  return { ines, lessonId, cookies };
-}
-
-async function checkout(s: Server, cookie: string, lessonId: number) {
-  return request(s.url).post('/api/payments/checkout').set('Cookie', cookie).send({ lessonId });
-}
 
 test('a seat is paid through the SDK and the fake checkout page; a repeated webhook pays it once', async () => {
   server = await liveServer();
