@@ -25,6 +25,8 @@ export async function startServer(givenConfig: Config) {
     application.logger.error({ tableId, error: (err as Error).message }, 'a table could not be restored from its log; it stays closed until it is mended'),
   );
   if (restored) console.log(`Restored ${restored} table(s) with an exchange under way.`);
+  // Finished and idle tables leave memory; they are read back from the database when next asked for.
+  registry.sweepEvery(Math.max(250, Math.min(30_000, config.tableIdleMs / 2)), config.tableIdleMs, (err) => application.logger.error({ error: (err as Error).message }, 'sweeping idle tables failed'));
   await new Promise<void>((resolve) => httpServer.listen(config.port, resolve));
   const address = httpServer.address();
   const port = typeof address === 'object' && address ? address.port : config.port;

@@ -11,8 +11,18 @@ export class TableRegistry {
 
   get(tableId: string): Promise<TableMaster | null> {
     let master = this.masters.get(tableId);
+    if (master) void master.then((m) => m && (m.lastUsed = Date.now())).catch(() => undefined);
     if (!master) {
-      master = TableRow.findByPk(tableId).then((row) => (row ? TableMaster.load(row, this.hooks) : null));
+      master = TableRow.findByPk(tableId).then(async (row) => {
+        if (!row) return null;
+        const loaded = await TableMaster.load(row, this.hooks);
+        if (row.status === 'playing') {
+          // Read back after leaving memory: finish what is due and let its bots move again.
+          await loaded.resume();
+          loaded.wakeBots();
+        }
+        return loaded;
+      });
       // Tried again on the next ask.
       master.catch(() => this.masters.delete(tableId));
       this.masters.set(tableId, master);
@@ -48,8 +58,41 @@ export class TableRegistry {
     return restored;
   }
 
+  /** How many tables this process holds in memory. */
+  get size(): number {
+    return this.masters.size;
+  }
+
+  /**
+   * Lets tables that are quiet (see TableMaster.quiet) and unused for `idleMs` leave memory; the
+   * next ask reads them back from the database, bots and all. Returns how many left.
+   */
+  async sweep(idleMs: number, now = Date.now()): Promise<number> {
+    let evicted = 0;
+    for (const [id, pending] of [...this.masters]) {
+      const master = await pending.catch(() => undefined);
+      if (master === undefined) continue; // a table that could not be restored stays closed
+      if (master && (!master.quiet || now - master.lastUsed < idleMs)) continue;
+      if (this.masters.get(id) !== pending) continue;
+      master?.close();
+      this.masters.delete(id);
+      evicted += 1;
+    }
+    return evicted;
+  }
+
+  /** Sweeps every `everyMs` until closed. */
+  sweepEvery(everyMs: number, idleMs: number, onError: (err: unknown) => void) {
+    const timer = setInterval(() => void this.sweep(idleMs).catch(onError), everyMs);
+    timer.unref();
+    this.stopSweeping = () => clearInterval(timer);
+  }
+
+  private stopSweeping = () => undefined as void;
+
   /** Stops the bots and waits until every action already queued at any table is done and stored. */
   async closeAll() {
+    this.stopSweeping();
     const masters = await Promise.all([...this.masters.values()].map((m) => m.catch(() => null)));
     for (const master of masters) master?.close();
     await Promise.all(masters.map((master) => master?.idle()));

@@ -137,8 +137,24 @@ export class TableMaster {
     return this.row.id;
   }
 
+  /** Tasks queued and not yet finished. */
+  private tasks = 0;
+  /** When the table was last asked for or worked on (ms since the epoch), so an idle one can leave memory. */
+  lastUsed = Date.now();
+
+  /**
+   * Nothing about this table is under way in this process: no task queued, nothing waiting to be
+   * stored or finished, no bot about to move, nobody at the table. Such a table can leave memory
+   * and be read back from the database when it is next asked for.
+   */
+  get quiet(): boolean {
+    return this.tasks === 0 && this.pending === 0 && this.botTimers.size === 0 && this.connected.size === 0 && this.spectators === 0 && !this.broken;
+  }
+
   /** Runs `task` after every task queued before it: one action at a time per table. */
   run<T>(task: () => Promise<T> | T): Promise<T> {
+    this.tasks += 1;
+    this.lastUsed = Date.now();
     const next = this.queue
       .then(async () => {
         await this.finishing;
@@ -148,7 +164,11 @@ export class TableMaster {
         }
         return task();
       })
-      .finally(() => this.noteStep());
+      .finally(() => {
+        this.tasks -= 1;
+        this.lastUsed = Date.now();
+        this.noteStep();
+      });
     this.queue = next.catch(() => undefined);
     // A refusal is answered once what the table shows has caught up with what it checked against,
     // so the asker already holds the state that explains it.
