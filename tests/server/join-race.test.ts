@@ -1,6 +1,6 @@
 /** A socket that goes away while its join is still being answered never counts as present. */
 import { afterEach, expect, test } from 'vitest';
-import { Client, client, fullTable, liveServer, openSocket, type Server } from './live';
+import { Client, fullTable, liveServer, openSocket, type Server } from './live';
 
 let server: Server | undefined;
 const clients: Client[] = [];
