@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import type { ChatMessageDto } from '../../shared/protocol';
 import { TABLE_LIMITS } from '../../shared/protocol';
 import { Button } from './Button';
@@ -6,6 +6,21 @@ import { Button } from './Button';
 /** The table's conversation: a log that reads new messages aloud politely, and a box to add one. */
 export function Chat({ messages, onSend }: { messages: readonly ChatMessageDto[]; onSend: (text: string) => Promise<boolean> }) {
   const [text, setText] = useState('');
+  // One message at a time: Send is disabled until the table answers, and a second click before that re-render sends nothing.
+  const [sending, setSending] = useState(false);
+  const busy = useRef(false);
+
+  async function send() {
+    if (!text.trim() || busy.current) return;
+    busy.current = true;
+    setSending(true);
+    try {
+      if (await onSend(text)) setText('');
+    } finally {
+      busy.current = false;
+      setSending(false);
+    }
+  }
   return (
     <section aria-labelledby="chat-title" className="flex flex-col gap-2 rounded-card border border-line/60 bg-card p-4">
       <h2 id="chat-title" className="text-lead font-semibold">
@@ -25,9 +40,9 @@ export function Chat({ messages, onSend }: { messages: readonly ChatMessageDto[]
       </div>
       <form
         className="flex flex-wrap gap-2"
-        onSubmit={async (e) => {
+        onSubmit={(e) => {
           e.preventDefault();
-          if (text.trim() && (await onSend(text))) setText('');
+          void send();
         }}
       >
         <label htmlFor="chat-text" className="sr-only">
@@ -41,7 +56,7 @@ export function Chat({ messages, onSend }: { messages: readonly ChatMessageDto[]
           placeholder="Say something to the table"
           className="min-h-12 min-w-0 flex-1 rounded-lg border-2 border-line bg-card px-3"
         />
-        <Button type="submit" disabled={!text.trim()}>
+        <Button type="submit" disabled={!text.trim() || sending}>
           Send
         </Button>
       </form>

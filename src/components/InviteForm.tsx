@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { ApiError } from '../api/client';
 import { useInvite, type InviteResult } from '../api/lessons';
 import { Button } from './Button';
@@ -12,13 +12,21 @@ export function InviteForm({ lessonId }: { lessonId: string }) {
   const error = invite.error instanceof ApiError ? invite.error : null;
   const fieldError = error ? Object.values(error.fields)[0] : undefined;
 
+  // isPending disables the button only from the next render on: a second click before that must not send again.
+  const sending = useRef(false);
+
   function submit(event: FormEvent) {
     event.preventDefault();
+    if (sending.current) return;
+    sending.current = true;
     const emails = text.split(/[\s,;]+/).filter(Boolean);
     invite.mutate(emails, {
       onSuccess: ({ results: r }) => {
         setResults(r);
         if (r.every((x) => x.status !== 'failed')) setText('');
+      },
+      onSettled: () => {
+        sending.current = false;
       },
     });
   }

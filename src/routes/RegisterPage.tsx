@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { LIMITS } from '../../shared/protocol';
 import { useRegister } from '../api/auth';
@@ -15,9 +15,19 @@ export function RegisterPage() {
   const error = register.error instanceof ApiError ? register.error : null;
   const set = (key: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm({ ...form, [key]: e.target.value });
 
+  // isPending disables the button only from the next render on: a second click before that must not send again.
+  const sending = useRef(false);
+
   function submit(event: FormEvent) {
     event.preventDefault();
-    register.mutate(form, { onSuccess: () => navigate('/') });
+    if (sending.current) return;
+    sending.current = true;
+    register.mutate(form, {
+      onSuccess: () => navigate('/'),
+      onSettled: () => {
+        sending.current = false;
+      },
+    });
   }
 
   return (
