@@ -8,6 +8,7 @@ import type { Logger } from 'pino';
 import { absoluteLifetime, createSession } from './auth/session';
 import { createUserSessions } from './auth/user-sessions';
 import { log } from './log';
+import { refuseControlCharacters } from './security/control-characters';
 import { requireOwnOrigin } from './security/origin';
 import type { Config } from './config';
 import { errorHandler, notFoundApi } from './errors';
@@ -60,6 +61,8 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   const teaching = teachingRoutes({ config, sequelize, registry, tableChanged: (master) => onTableChange.forEach((fn) => fn(master)) });
 
   const api = express.Router();
+  // A NUL or other control character in a path parameter or the query string is a 400 on every route.
+  api.use(refuseControlCharacters);
   // The payment service's webhook: raw body for its signature, and no browser Origin to check.
   api.use('/payments/webhook', teaching.webhook);
   api.use(requireOwnOrigin(config));
