@@ -1,16 +1,107 @@
-/** The floor: a bare Socket.IO server that relays one message to the four sockets of a room. */
+/**
+ * The floor for `npm run bench:load`: a bare Socket.IO server that speaks just enough of
+ * Rackside's table protocol for the same load client to play against it. A room of four joins,
+ * sits and starts; every `exchange:act` is answered at once with a state for each of the four,
+ * then acked; when all four have acted the room moves to the next step of a fixed Charleston
+ * script. No rules, no storage, no sign-in: what is left is the transport, JSON and the fan-out.
+ *
+ * STATE_BYTES pads each state to about the size of the states Rackside sent in the same run, so
+ * the two carry the same bytes.
+ */
 import { createServer } from 'node:http';
-import { Server } from 'socket.io';
+import { Server, type Socket } from 'socket.io';
+
+const SEATS = ['east', 'south', 'west', 'north'] as const;
+type Seat = (typeof SEATS)[number];
+/** The steps the load client plays through: it votes for a second Charleston and asks for one courtesy tile. */
+const SCRIPT: { phase: string; passSize: number }[] = [
+  { phase: 'first-right', passSize: 3 },
+  { phase: 'first-across', passSize: 3 },
+  { phase: 'first-left', passSize: 3 },
+  { phase: 'vote', passSize: 0 },
+  { phase: 'second-left', passSize: 3 },
+  { phase: 'second-across', passSize: 3 },
+  { phase: 'second-right', passSize: 3 },
+  { phase: 'courtesy-ask', passSize: 0 },
+  { phase: 'courtesy-pass', passSize: 1 },
+];
+const STATE_BYTES = Number(process.env.STATE_BYTES ?? 0);
+
+interface Room {
+  id: string;
+  sockets: Partial<Record<Seat, Socket>>;
+  step: number;
+  history: { phase: string }[];
+  committed: Record<Seat, boolean>;
+  version: number;
+}
+
+const rooms = new Map<string, Room>();
+const rackOf = (seat: Seat) => Array.from({ length: seat === 'east' ? 14 : 13 }, (_, i) => ({ id: `${seat}-${i}`, kind: `bam${(i % 9) + 1}` }));
+
+function stateFor(room: Room, seat: Seat) {
+  const at = SCRIPT[room.step];
+  const phase = at ? at.phase : 'done';
+  const state = {
+    tableId: room.id,
+    version: room.version,
+    phase,
+    isHost: seat === 'east',
+    mySeat: seat,
+    myRack: rackOf(seat),
+    huddle: { open: false },
+    view: {
+      phase,
+      passSize: at?.passSize ?? 0,
+      history: room.history,
+      seats: Object.fromEntries(SEATS.map((s) => [s, { committed: room.committed[s] }])),
+    },
+    pad: '',
+  };
+  const size = JSON.stringify(state).length;
+  if (size < STATE_BYTES) state.pad = 'x'.repeat(STATE_BYTES - size);
+  return state;
+}
+
+function broadcast(room: Room) {
+  room.version++;
+  for (const seat of SEATS) room.sockets[seat]?.emit('table:state', stateFor(room, seat));
+}
 
 const http = createServer();
 const io = new Server(http, { serveClient: false });
 io.on('connection', (socket) => {
-  socket.on('join', (room: string, ack: () => void) => {
-    socket.join(room);
-    ack();
+  let room: Room | undefined;
+  let seat: Seat | undefined;
+  socket.on('table:join', ({ tableId }: { tableId: string }, ack: (a: object) => void) => {
+    room = rooms.get(tableId) ?? { id: tableId, sockets: {}, step: -1, history: [], committed: { east: false, south: false, west: false, north: false }, version: 0 };
+    rooms.set(tableId, room);
+    ack({ ok: true });
   });
-  socket.on('relay', (room: string, payload: unknown) => {
-    io.to(room).emit('relayed', payload);
+  socket.on('table:sit', ({ seat: wanted }: { seat: Seat }, ack: (a: object) => void) => {
+    if (!room) return ack({ ok: false, code: 'NOT_JOINED' });
+    seat = wanted;
+    room.sockets[seat] = socket;
+    ack({ ok: true });
+  });
+  socket.on('table:start', (_payload: unknown, ack: (a: object) => void) => {
+    if (!room) return ack({ ok: false, code: 'NOT_JOINED' });
+    room.step = 0;
+    ack({ ok: true });
+    broadcast(room);
+  });
+  socket.on('exchange:act', (_payload: unknown, ack: (a: object) => void) => {
+    if (!room || !seat || room.step < 0 || room.step >= SCRIPT.length) return ack({ ok: false, code: 'WRONG_PHASE' });
+    if (room.committed[seat]) return ack({ ok: false, code: 'ALREADY_COMMITTED' });
+    room.committed[seat] = true;
+    if (SEATS.every((s) => room!.committed[s])) {
+      if (SCRIPT[room.step].passSize > 0) room.history = [...room.history, { phase: SCRIPT[room.step].phase }];
+      room.step++;
+      for (const s of SEATS) room.committed[s] = false;
+    }
+    // As Rackside does, the new states go out before the ack.
+    broadcast(room);
+    ack({ ok: true });
   });
 });
 http.listen(Number(process.env.PORT ?? 0), () => {
