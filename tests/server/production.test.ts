@@ -14,25 +14,27 @@ let proc: ChildProcess | undefined;
 let url = '';
 let output = '';
 
+/** The production environment: the test runner's own variables (NODE_ENV=test, VITEST) left out, as they would switch on test behaviour. */
+function productionEnv(without: string[] = []): NodeJS.ProcessEnv {
+  const env: NodeJS.ProcessEnv = {
+    ...Object.fromEntries(Object.entries(process.env).filter(([k]) => k !== 'VITEST' && !k.startsWith('VITEST_') && k !== 'NODE_ENV')),
+    NODE_ENV: 'production',
+    PORT: '0',
+    DATABASE_URL: `sqlite:${join(dir, 'production.sqlite')}`,
+    SESSION_SECRET: 'production-test-session-secret-0123456789abcdef',
+    LINK_SECRET: 'production-test-link-secret-0123456789abcdef',
+    TRUST_PROXY: '1',
+    SEED_DEMO: 'false',
+    BCRYPT_ROUNDS: '4',
+    CLIENT_DIR: join(dir, 'no-client'),
+    LOG_LEVEL: 'info',
+  };
+  for (const name of without) delete env[name];
+  return env;
+}
+
 beforeAll(async () => {
-  // The test runner's own variables (NODE_ENV=test, VITEST) would switch on test behaviour: leave them out.
-  const env = Object.fromEntries(Object.entries(process.env).filter(([k]) => k !== 'VITEST' && !k.startsWith('VITEST_') && k !== 'NODE_ENV'));
-  proc = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: {
-      ...env,
-      NODE_ENV: 'production',
-      PORT: '0',
-      DATABASE_URL: `sqlite:${join(dir, 'production.sqlite')}`,
-      SESSION_SECRET: 'production-test-session-secret-0123456789abcdef',
-      LINK_SECRET: 'production-test-link-secret-0123456789abcdef',
-      TRUST_PROXY: '1',
-      SEED_DEMO: 'false',
-      BCRYPT_ROUNDS: '4',
-      CLIENT_DIR: join(dir, 'no-client'),
-      LOG_LEVEL: 'info',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
+  proc = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { env: productionEnv(), stdio: ['ignore', 'pipe', 'pipe'] });
   url = await new Promise<string>((resolve, reject) => {
     proc!.stdout!.on('data', (d: Buffer) => {
       output += d.toString();
@@ -95,3 +97,17 @@ test('an error leaves as { error: { code, message } } without a stack trace', as
   expect(res.body).toEqual({ error: { code: expect.any(String), message: expect.any(String) } });
   expect(JSON.stringify(res.body)).not.toMatch(/at .*\.ts:\d+/);
 });
+
+test('without SESSION_SECRET it refuses to start and says which secret to set', async () => {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: { ...productionEnv(['SESSION_SECRET']), DATABASE_URL: `sqlite:${join(dir, 'refused.sqlite')}` },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let said = '';
+  child.stdout!.on('data', (d: Buffer) => (said += d.toString()));
+  child.stderr!.on('data', (d: Buffer) => (said += d.toString()));
+  const code = await new Promise<number | null>((resolve) => child.once('exit', resolve));
+  expect(code).not.toBe(0);
+  expect(said).toMatch(/SESSION_SECRET is not set, and NODE_ENV is production/);
+  expect(said).not.toMatch(/ready on/);
+}, 60_000);
