@@ -12,7 +12,7 @@ import { act, canResolve, createExchange, isPassPhase, rackOf, resolve, viewFor 
 import type { Action, ExchangeOptions, ExchangeState, Viewer } from '../../shared/exchange/types';
 import type { HuddleNoteDto, SeatOccupant, SeatStateDto, TableDto, TableOptions, TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
-import { Op, OptimisticLockError, type Transaction } from 'sequelize';
+import { Op, OptimisticLockError } from 'sequelize';
 import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow, type EventType, type StoredExchangeOptions, type StoredSeats, type StoredTableOptions } from '../db/models';
 import { patternsForTable } from '../teaching/pattern-source';
 import { EventNotStored, type EventWriter } from '../db/event-writer';
@@ -400,26 +400,27 @@ export class TableMaster {
         const o = this.row.seats[seat];
         return o?.kind === 'user' ? [o.userId] : [];
       });
-      // The exchange and the table's move to it are stored together: a save that loses to another
-      // process leaves no exchange behind, so the retry deals exactly one.
-      await TableRow.sequelize!.transaction(async (transaction) => {
-        await ExchangeRow.create(
-          {
-            id,
-            tableId: this.row.id,
-            tableName: this.row.name,
-            hostId: this.row.hostId,
-            options,
-            seats: this.row.seats,
-            participants: participantsKey(participantIds),
-            status: 'playing',
-            startedAt: new Date(),
-            finishedAt: null,
-          },
-          { transaction },
-        );
-        await this.saveRow({ status: 'playing', currentExchangeId: id }, transaction);
+      await ExchangeRow.create({
+        id,
+        tableId: this.row.id,
+        tableName: this.row.name,
+        hostId: this.row.hostId,
+        options,
+        seats: this.row.seats,
+        participants: participantsKey(participantIds),
+        status: 'playing',
+        startedAt: new Date(),
+        finishedAt: null,
       });
+      try {
+        await this.saveRow({ status: 'playing', currentExchangeId: id });
+      } catch (err) {
+        // The table did not move to this exchange (another process changed it first): take the
+        // exchange back, so it never shows as under way in history and the retry deals exactly one.
+        // (Not one transaction: on SQLite it would hold the write lock while other writes wait.)
+        await ExchangeRow.destroy({ where: { id } }).catch(() => undefined);
+        throw err;
+      }
       this.exchange = { id, options, state, seq: 0, huddle: closedHuddle(), notes: [] };
       this.showLive();
     });
@@ -685,11 +686,11 @@ export class TableMaster {
    * replaces the row after the save. A save refused because another process changed the row
    * first (its revision moved on) is a conflict; any other failure leaves the row as it was.
    */
-  private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId' | 'options'>>, transaction?: Transaction) {
+  private async saveRow(changes: Partial<Pick<TableRow, 'seats' | 'status' | 'currentExchangeId' | 'options'>>) {
     const next = TableRow.build(this.row.get({ plain: true }), { isNewRecord: false, raw: true });
     next.set(changes);
     try {
-      await next.save({ transaction });
+      await next.save();
       this.row = next;
     } catch (err) {
       this.broken = true;
