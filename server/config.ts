@@ -183,3 +183,14 @@ export function testConfig(overrides: Partial<Config> = {}): Config {
     ...overrides,
   });
 }
+
+/** For the entry points: the settings, or a plain message naming what is missing and exit code 1. */
+export function loadConfigOrExit(): Config {
+  try {
+    return loadConfig();
+  } catch (err) {
+    if (!(err instanceof ConfigError)) throw err;
+    console.error(err.message);
+    process.exit(1);
+  }
+}

@@ -1,6 +1,6 @@
 import { createServer } from 'node:http';
 import { createApplication } from './app';
-import { loadConfig, type Config } from './config';
+import { loadConfigOrExit, type Config } from './config';
 import { openDatabase } from './db';
 import { migrate } from './db/migrate';
 import { seedDemo } from './db/seed';
@@ -96,4 +96,4 @@ export function serve(config: Config) {
 }
 
 const isMain = process.argv[1] && import.meta.url === new URL(`file://${process.argv[1]}`).href;
-if (isMain) void serve(loadConfig());
+if (isMain) void serve(loadConfigOrExit());

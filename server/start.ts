@@ -6,7 +6,7 @@
 import { execSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { loadConfig } from './config';
+import { loadConfigOrExit } from './config';
 import { serve } from './index';
 
 function newestChange(path: string): number {
@@ -16,7 +16,7 @@ function newestChange(path: string): number {
 }
 
 // The demo runs with the local mail and payment fakes unless NODE_ENV=production or real services are configured.
-const config = loadConfig();
+const config = loadConfigOrExit();
 const builtIndex = join(config.clientDir, 'index.html');
 const sources = ['src', 'shared', 'index.html', 'vite.config.ts'].filter((p) => existsSync(p));
 if (!existsSync(builtIndex) || statSync(builtIndex).mtimeMs < Math.max(...sources.map(newestChange))) {
