@@ -14,7 +14,7 @@
  */
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
-import type { Group, Pattern } from '../../shared/analysis/pattern';
+import { buildsWithoutCalls, patternValue, type Group, type Pattern } from '../../shared/analysis/pattern';
 import { PATTERN_LIST_LIMITS, patternFieldErrors, patternListInputSchema } from '../../shared/pattern-lists';
 import { fieldPath, FileRejected, parseJsonFile, type FileProblem } from './json-text';
 
@@ -64,8 +64,8 @@ export function patternListCsv(list: PatternListFile): string {
         p.id,
         first ? p.name : '',
         first ? p.family : '',
-        first ? String(p.points) : '',
-        first ? (p.concealed ? 'yes' : 'no') : '',
+        first ? String(patternValue(p)) : '',
+        first ? (buildsWithoutCalls(p) ? 'yes' : 'no') : '',
         String(group.size),
         'tile' in group ? group.tile : '',
         'suit' in group ? group.suit : '',

@@ -32,6 +32,16 @@ export interface Pattern {
   groups: Group[];
 }
 
+/** Whether the hand must be built without calling discards (every tile from the player's own draws). */
+export function buildsWithoutCalls(p: Pattern): boolean {
+  return p.concealed;
+}
+
+/** What finishing the hand is worth on Rackside's scale. */
+export function patternValue(p: Pattern): number {
+  return p.points;
+}
+
 const size = z.number().int().min(MIN_GROUP_SIZE, 'A group holds at least 1 tile.').max(MAX_GROUP_SIZE, 'A group holds at most 6 tiles (a sextet).');
 const suitRef = z.enum([...SUIT_LETTERS, ...SUITS], { error: 'A suit is a letter A, B or C, or one of bam, crack, dot.' });
 const rankRef = z.union(

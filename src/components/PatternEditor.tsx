@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import type { Group, Pattern } from '../../shared/analysis/pattern';
+import { buildsWithoutCalls, patternValue, type Group, type Pattern } from '../../shared/analysis/pattern';
 import { TILE_KINDS, tileName, type TileKind } from '../../shared/tiles';
 import { GROUP_NAMES } from './patternExample';
 import { PatternTiles } from './PatternTiles';
@@ -160,13 +160,13 @@ export function PatternEditor({ pattern, onChange, errors }: Props) {
           inputMode="numeric"
           min={0}
           max={1000}
-          value={Number.isFinite(pattern.points) ? pattern.points : ''}
+          value={Number.isFinite(patternValue(pattern)) ? patternValue(pattern) : ''}
           onChange={(e) => set({ points: e.target.value === '' ? Number.NaN : Number(e.target.value) })}
           error={errors.points}
         />
       </div>
       <label className="flex items-start gap-3">
-        <input type="checkbox" checked={pattern.concealed} onChange={(e) => set({ concealed: e.target.checked })} className="mt-1 h-6 w-6 shrink-0 accent-accent" />
+        <input type="checkbox" checked={buildsWithoutCalls(pattern)} onChange={(e) => set({ concealed: e.target.checked })} className="mt-1 h-6 w-6 shrink-0 accent-accent" />
         <span>
           <span className="font-medium">Concealed</span>
           <span className="block text-base text-ink-soft">The hand is built without exposing groups.</span>

@@ -1,6 +1,6 @@
 import { useId, useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import type { Pattern } from '../../shared/analysis/pattern';
+import { buildsWithoutCalls, patternValue, type Pattern } from '../../shared/analysis/pattern';
 import type { PatternListDto } from '../../shared/pattern-lists';
 import { ApiError } from '../api/client';
 import { patternListExportUrl, useCopyPatternList, useDeletePatternList, usePatternList, useSavePatternList } from '../api/pattern-lists';
@@ -67,7 +67,7 @@ function ReadOnlyList({ list }: { list: PatternListDto }) {
           <li key={p.id}>
             <Card className="flex flex-col gap-2">
               <h2 className="font-semibold">
-                {p.name} <span className="font-normal text-ink-soft">· {p.family} · {p.points} points{p.concealed ? ' · concealed' : ''}</span>
+                {p.name} <span className="font-normal text-ink-soft">· {p.family} · {patternValue(p)} points{buildsWithoutCalls(p) ? ' · concealed' : ''}</span>
               </h2>
               <PatternTiles groups={p.groups} />
             </Card>
