@@ -1,17 +1,36 @@
 /**
- * The bot tournament: N seeded exchanges (default 2,000) played to the end by the engine, the
- * three strategies rotated through the seats, and for each strategy the mean tiles away from
- * its best starter pattern after the deal, after the first Charleston and at the end, with a
- * 95% interval. Run: npm run bench:bots -- --n 500
+ * The bot tournament, on paired deals. Each deal (one seed) is played once per measured seat
+ * and strategy: only the measured seat's strategy changes, the three other seats play fixed
+ * strategies and every bot is seeded by deal and seat, so the runs of one deal differ only by
+ * what the measured seat chose. Every deal is measured at all four seats (east holds 14 tiles
+ * and passes differently). At the end of the Charleston each measured rack is judged by its
+ * odds of finishing the best pattern of the list (over the tiles that seat has not seen), with
+ * tiles away beside it. A deal's figure is the mean over its four seats, and strategies are
+ * compared by the mean of their per-deal differences with a Student-t 95% interval.
+ *
+ * Run: npm run bench:bots -- [--deals N] [--seed TEXT] [--list starter|teacher|both]
+ *        [--measure odds|away] [--samples N] [--draws N] [--opponents multiples|RIGHT,ACROSS,LEFT]
+ *        [--rotation every-seat|one-seat-per-deal]
  */
 import cliProgress from 'cli-progress';
-import { BOT_STRATEGIES, bestAway, createBot, starterPatterns, type Bot, type BotStrategyId } from '../../shared/analysis';
-import { act, canResolve, createExchange, resolve, viewFor, type ExchangeState } from '../../shared/exchange';
-import { SEATS, type Seat } from '../../shared/seats';
-
-const STAGES = ['deal', 'first', 'end'] as const;
-type Stage = (typeof STAGES)[number];
-const STAGE_LABELS: Record<Stage, string> = { deal: 'after the deal', first: 'after the first Charleston', end: 'at the end' };
+import { existsSync, readFileSync } from 'node:fs';
+import { BOT_STRATEGIES, isBotStrategyId, starterPatterns, validatePatternList, type Pattern } from '../../shared/analysis';
+import {
+  awayMeasure,
+  DIRECTIONS,
+  GOAL_COMPARISONS,
+  oddsMeasure,
+  runTournament,
+  sameOpponents,
+  type CompletionOdds,
+  type Interval,
+  type Measure,
+  type Opponents,
+  type Rotation,
+  type TournamentSummary,
+} from '../../shared/analysis/tournament';
+import { SEATS } from '../../shared/seats';
+import { readPatternListJson } from '../../server/teaching/pattern-list-file';
 
 function argValue(name: string, fallback: string): string {
   const args = process.argv.slice(2);
@@ -22,112 +41,177 @@ function argValue(name: string, fallback: string): string {
   return fallback;
 }
 
-const games = Number(argValue('n', '2000'));
-const prefix = argValue('seed', 'rackside-tournament');
-if (!Number.isInteger(games) || games < 1) {
-  console.error('--n takes a whole number of exchanges, for example --n 500.');
+function fail(message: string): never {
+  console.error(message);
   process.exit(1);
 }
 
-const ids = BOT_STRATEGIES.map((s) => s.id);
-const samples = Object.fromEntries(ids.map((id) => [id, Object.fromEntries(STAGES.map((s) => [s, [] as number[]]))])) as Record<
-  BotStrategyId,
-  Record<Stage, number[]>
->;
-let stopped = 0;
-let courtesyTiles = 0;
-
-function record(state: ExchangeState, lineup: Record<Seat, BotStrategyId>, stage: Stage) {
-  for (const seat of SEATS) samples[lineup[seat]][stage].push(bestAway(state.racks[seat].map((t) => t.kind), starterPatterns));
+function wholeNumber(name: string, fallback: string): number | undefined {
+  const text = argValue(name, fallback);
+  if (text === '') return undefined;
+  const n = Number(text);
+  if (!Number.isInteger(n) || n < 1) fail(`--${name} takes a whole number above 0, for example --${name} ${fallback || 100}.`);
+  return n;
 }
 
-function play(index: number) {
-  const seed = `${prefix}-${index}`;
-  const lineup = Object.fromEntries(SEATS.map((seat, s) => [seat, ids[(index + s) % ids.length]])) as Record<Seat, BotStrategyId>;
-  const bots = Object.fromEntries(SEATS.map((seat) => [seat, createBot(lineup[seat], `${seed}:${seat}`)])) as Record<Seat, Bot>;
-  let state = createExchange({ seed });
-  record(state, lineup, 'deal');
-  for (let step = 0; state.phase !== 'done'; step++) {
-    if (step > 100) throw new Error(`Exchange ${seed} did not finish.`);
-    let moved = false;
-    for (const seat of SEATS) {
-      const action = bots[seat].chooseAction(viewFor(state, seat), starterPatterns);
-      if (!action) continue;
-      const result = act(state, seat, action);
-      if (!result.ok) throw new Error(`Exchange ${seed}: ${lineup[seat]} bot at ${seat} in ${state.phase}: ${result.code} ${result.message}`);
-      state = result.state;
-      moved = true;
-    }
-    if (canResolve(state)) {
-      const before = state.phase;
-      const result = resolve(state);
-      if (!result.ok) throw new Error(`Exchange ${seed}: resolve in ${before}: ${result.message}`);
-      state = result.state;
-      if (before === 'first-left') record(state, lineup, 'first');
-      if (before === 'courtesy-pass') courtesyTiles += state.history[state.history.length - 1].sent.east.length;
-    } else if (!moved) {
-      throw new Error(`Exchange ${seed} is stuck in ${state.phase}.`);
+const DEFAULT_DEALS = '300';
+const deals = wholeNumber('deals', DEFAULT_DEALS)!;
+const prefix = argValue('seed', 'rackside-tournament');
+const listChoice = argValue('list', 'both');
+if (!['starter', 'teacher', 'both'].includes(listChoice)) fail('--list takes starter, teacher or both.');
+const measureChoice = argValue('measure', 'odds');
+if (!['odds', 'away'].includes(measureChoice)) fail('--measure takes odds (finishing odds, tiles away beside) or away (tiles away alone).');
+const samples = wholeNumber('samples', '');
+const drawsLeft = wholeNumber('draws', '');
+const rotation = argValue('rotation', 'every-seat') as Rotation;
+if (!['every-seat', 'one-seat-per-deal'].includes(rotation)) fail('--rotation takes every-seat or one-seat-per-deal.');
+
+function parseOpponents(text: string): Opponents {
+  const parts = text.split(',').map((s) => s.trim());
+  if (parts.length === 1 && isBotStrategyId(parts[0])) return sameOpponents(parts[0]);
+  if (parts.length === 3 && parts.every(isBotStrategyId)) return { right: parts[0], across: parts[1], left: parts[2] };
+  return fail(`--opponents takes one strategy for all three other seats, or three (right,across,left): ${BOT_STRATEGIES.map((s) => s.id).join(', ')}.`);
+}
+const opponents = parseOpponents(argValue('opponents', 'multiples'));
+
+const ODDS_FILE = new URL('../../shared/analysis/odds.ts', import.meta.url);
+const TEACHER_FILE = new URL('../fixtures/teacher-list.json', import.meta.url);
+
+/** The odds measure when finishing odds exist in this tree; else tiles away alone, said out loud. */
+async function chooseMeasure(): Promise<{ measure: Measure; words: string }> {
+  if (measureChoice === 'odds') {
+    if (existsSync(ODDS_FILE)) {
+      const module = (await import(ODDS_FILE.href)) as { completionOdds?: CompletionOdds };
+      if (typeof module.completionOdds === 'function') {
+        const how = [samples ? `${samples} samples` : 'its default samples', drawsLeft ? `${drawsLeft} draws` : 'its default draws'].join(', ');
+        return {
+          measure: oddsMeasure(module.completionOdds, { samples, drawsLeft }),
+          words: `finishing odds of the best pattern (completionOdds, ${how}, over the tiles the seat has not seen), tiles away beside`,
+        };
+      }
+      console.log('Note: shared/analysis/odds.ts exports no completionOdds; falling back to tiles away.');
+    } else {
+      console.log('Note: shared/analysis/odds.ts is not in this tree yet; falling back to tiles away (--measure away).');
     }
   }
-  if (!state.history.some((h) => h.phase === 'second-left')) stopped++;
-  record(state, lineup, 'end');
+  return { measure: awayMeasure, words: 'tiles away from the closest pattern (no finishing odds)' };
 }
 
-function stats(values: number[]) {
-  const n = values.length;
-  const mean = values.reduce((a, b) => a + b, 0) / n;
-  const variance = values.reduce((a, b) => a + (b - mean) ** 2, 0) / Math.max(1, n - 1);
-  return { n, mean, se: Math.sqrt(variance / n) };
+interface NamedList {
+  key: 'starter' | 'teacher';
+  name: string;
+  patterns: Pattern[];
 }
 
-const fmt = (x: number) => x.toFixed(2);
-// 1.96: the two-sided 95% point of the normal distribution, from memory.
-const Z95 = 1.96;
-
-const bar = new cliProgress.SingleBar(
-  { format: 'tournament [{bar}] {value}/{total} exchanges · {duration_formatted}', stream: process.stderr, hideCursor: true },
-  cliProgress.Presets.shades_classic,
-);
-const started = performance.now();
-bar.start(games, 0);
-for (let i = 0; i < games; i++) {
-  play(i);
-  bar.increment();
+function loadTeacherList(): NamedList | string {
+  if (!existsSync(TEACHER_FILE)) return 'tests/fixtures/teacher-list.json is not in this tree yet; the teacher list is skipped.';
+  const text = readFileSync(TEACHER_FILE, 'utf8');
+  try {
+    const data: unknown = JSON.parse(text);
+    if (Array.isArray(data)) {
+      const errors = validatePatternList(data);
+      if (errors.length) return `tests/fixtures/teacher-list.json has problems, so it is skipped:\n  ${errors.slice(0, 5).join('\n  ')}`;
+      return { key: 'teacher', name: 'Teacher list (tests/fixtures/teacher-list.json)', patterns: data as Pattern[] };
+    }
+    const file = readPatternListJson(text);
+    return { key: 'teacher', name: `${file.name} (tests/fixtures/teacher-list.json)`, patterns: file.patterns };
+  } catch (error) {
+    const problems = (error as { problems?: { where: string; message: string }[] }).problems;
+    const detail = problems ? problems.slice(0, 5).map((p) => `${p.where}: ${p.message}`).join('\n  ') : String(error);
+    return `tests/fixtures/teacher-list.json could not be read, so it is skipped:\n  ${detail}`;
+  }
 }
-bar.stop();
-const seconds = (performance.now() - started) / 1000;
 
-console.log(`\n${games} exchanges (seeds ${prefix}-0 … ${prefix}-${games - 1}), strategies rotated through the seats, ${seconds.toFixed(1)} s.`);
-console.log(`Mean tiles away from the best of the ${starterPatterns.length} starter patterns, with 95% intervals (lower is closer):\n`);
-console.table(
-  Object.fromEntries(
-    BOT_STRATEGIES.map((s) => [
-      `${s.id} (${s.name})`,
-      {
-        seats: samples[s.id].deal.length,
-        ...Object.fromEntries(
-          STAGES.map((stage) => {
-            const { mean, se } = stats(samples[s.id][stage]);
-            return [STAGE_LABELS[stage], `${fmt(mean)} ± ${fmt(Z95 * se)}`];
-          }),
-        ),
-      },
-    ]),
-  ),
-);
+// ───────────── printing ─────────────
 
-console.log('Differences at the end (first minus second), with 95% intervals:');
-for (const [a, b] of [
-  ['advised', 'multiples'],
-  ['advised', 'random'],
-  ['multiples', 'random'],
-] as [BotStrategyId, BotStrategyId][]) {
-  const x = stats(samples[a].end);
-  const y = stats(samples[b].end);
-  console.log(`  ${a} − ${b}: ${fmt(x.mean - y.mean)} ± ${fmt(Z95 * Math.hypot(x.se, y.se))}`);
+function table(headers: string[], rows: string[][]): string {
+  const widths = headers.map((h, c) => Math.max(h.length, ...rows.map((r) => r[c].length)));
+  const line = (cells: string[]) => `  ${cells.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('   ')}`;
+  return [line(headers), `  ${widths.map((w) => '─'.repeat(w)).join('   ')}`, ...rows.map(line)].join('\n');
 }
-const firstCount = samples.random.first.length + samples.multiples.first.length + samples.advised.first.length;
+
+const pct = (x: number) => `${(100 * x).toFixed(2)}%`;
+const signed = (x: number, digits: number, unit = '') => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(digits)}${unit}`;
+const meanPct = (i: Interval | null) => (i ? `${pct(i.mean)} ± ${(100 * i.half).toFixed(2)}` : '—');
+const meanAway = (i: Interval) => `${i.mean.toFixed(2)} ± ${i.half.toFixed(2)}`;
+const range = (i: Interval, scale: number, digits: number, unit = '') =>
+  `${signed(scale * i.mean, digits, unit)} [${signed(scale * i.low, digits)}, ${signed(scale * i.high, digits)}]`;
+const strategyName = (id: string) => `${id} (${BOT_STRATEGIES.find((s) => s.id === id)?.name ?? id})`;
+
+function report(list: NamedList, summary: TournamentSummary, seconds: number) {
+  console.log(`\n═══ ${list.name}: ${list.patterns.length} patterns ═══`);
+  console.log(`${summary.deals} deals × ${rotation === 'every-seat' ? '4 measured seats' : '1 measured seat'}, ${seconds.toFixed(1)} s. Exchanges stopped after the first Charleston in ${pct(summary.stoppedEarly)} of measured runs.\n`);
+  console.log('Per strategy, the mean over deals of the deal’s mean over its four seats, ± the half-width of the 95% interval:');
+  console.log(
+    table(
+      ['strategy in the measured seat', 'finishing odds', 'tiles away'],
+      summary.rows.map((r) => [strategyName(r.strategy), meanPct(r.odds), meanAway(r.away)]),
+    ),
+  );
+  console.log('\nPaired differences, per deal then averaged, mean [95% interval]:');
+  console.log(
+    table(
+      ['comparison', 'finishing odds, points', 'tiles closer', `beats it on ${summary.judgedOn === 'odds' ? 'odds' : 'tiles away'}`],
+      summary.differences.map((d) => [
+        `${d.better} − ${d.worse}`,
+        d.odds ? range(d.odds, 100, 2) : '—',
+        range(d.closer, 1, 2),
+        d.holds ? 'yes, interval above 0' : 'no, interval reaches 0',
+      ]),
+    ),
+  );
+  console.log('\nBy seat (mean over every run at that seat; seats of a deal are not independent, so no intervals):');
+  console.log(
+    table(
+      ['strategy', ...SEATS.map((s) => `${s} odds / away`)],
+      summary.rows.map((r) => [
+        r.strategy,
+        ...SEATS.map((seat) => {
+          const f = summary.bySeat[r.strategy][seat];
+          return f ? `${f.odds === null ? '—' : pct(f.odds)} / ${f.away.toFixed(2)}` : '—';
+        }),
+      ]),
+    ),
+  );
+  const goal = GOAL_COMPARISONS.map(([a, b]) => `${a} beats ${b}`).join(', and ');
+  console.log(
+    `\nGoal on ${list.key === 'starter' ? 'the starter list' : 'the teacher list'} (${goal}, each by a margin whose 95% interval excludes 0, judged on ${
+      summary.judgedOn === 'odds' ? 'finishing odds' : 'tiles away'
+    }): ${summary.goalHolds ? 'MET' : 'NOT MET'}.`,
+  );
+}
+
+// ───────────── running ─────────────
+
+const { measure, words } = await chooseMeasure();
+const lists: NamedList[] = [];
+if (listChoice !== 'teacher') lists.push({ key: 'starter', name: 'Starter list', patterns: starterPatterns });
+if (listChoice !== 'starter') {
+  const teacher = loadTeacherList();
+  if (typeof teacher === 'string') console.log(`Note: ${teacher}`);
+  else lists.push(teacher);
+}
+if (lists.length === 0) fail('No list to play on.');
+
+const sameAround = DIRECTIONS.every((d) => opponents[d] === opponents.right);
 console.log(
-  `\nStopped after the first Charleston: ${((100 * stopped) / games).toFixed(1)}% of exchanges. ` +
-    `Courtesy tiles east sent, on average: ${fmt(courtesyTiles / games)}. Seats measured after the first Charleston: ${firstCount}.`,
+  [
+    `Bot tournament: ${deals} paired deals (seeds ${prefix}-0 … ${prefix}-${deals - 1}).`,
+    `Measured seat: ${rotation === 'every-seat' ? 'every deal is measured at all four seats' : 'deal i is measured at seat i mod 4'}; only its strategy changes between runs of a deal.`,
+    `Other seats: ${sameAround ? `all three ${strategyName(opponents.right)}` : DIRECTIONS.map((d) => `${d} of it ${strategyName(opponents[d])}`).join(', ')}; every bot seeded by deal and seat.`,
+    `Measure at the end of the Charleston: ${words}.`,
+    'Intervals: Student t, 95%, over deals (a deal’s figure is the mean over its measured seats).',
+  ].join('\n'),
 );
+
+for (const list of lists) {
+  const bar = new cliProgress.SingleBar(
+    { format: `${list.key} [{bar}] {value}/{total} deals · {duration_formatted}`, stream: process.stderr, hideCursor: true },
+    cliProgress.Presets.shades_classic,
+  );
+  const started = performance.now();
+  bar.start(deals, 0);
+  const { summary } = runTournament({ prefix, deals, list: list.patterns, measure, opponents, rotation, onDeal: (done) => bar.update(done) });
+  bar.stop();
+  report(list, summary, (performance.now() - started) / 1000);
+}
