@@ -161,7 +161,7 @@ export interface RoomTableDto {
   id: string;
   name: string;
   index: number;
-  status: 'lobby' | 'playing' | 'done';
+  status: 'lobby' | 'playing' | 'done' | 'closed';
   seats: Record<Seat, { kind: 'user' | 'bot'; displayName: string; userId?: number } | null>;
   seed: string | null;
   drillId: string | null;

@@ -80,6 +80,8 @@ export const tableOptionsSchema = z
     teaching: z.boolean().optional(),
     /** Hide the pass advice from the players (a test of skill). */
     hideAdvice: z.boolean().optional(),
+    /** Bots always vote for the second Charleston (a practice table wants all six passes). */
+    botsPlaySecond: z.boolean().optional(),
     /** The pattern list the table's analysis and bots use: "starter" or one of the host's own lists. */
     patternListId: z.string().trim().min(1, 'Pick a pattern list.').max(64).optional(),
   })
@@ -107,6 +109,8 @@ export interface TableOptions {
   huddleEveryPass: boolean;
   teaching: boolean;
   hideAdvice: boolean;
+  /** Bots always vote for the second Charleston. */
+  botsPlaySecond: boolean;
   /** The pattern list for analysis and bots; absent means the starter list. */
   patternListId?: string;
   /** The drill the table deals from, if any (its preset racks stay on the server). */
@@ -114,7 +118,7 @@ export interface TableOptions {
   drillName?: string;
 }
 
-export type TableStatus = 'lobby' | 'playing' | 'done';
+export type TableStatus = 'lobby' | 'playing' | 'done' | 'closed';
 
 export type SeatOccupant =
   | { kind: 'user'; userId: number; displayName: string; connected: boolean }
@@ -250,6 +254,8 @@ export const clientEventSchemas = {
   'table:leave': z.object({}).strict().default({}),
   /** Host: show or hide the pass advice for the players. */
   'table:advice': z.object({ hidden: z.boolean() }).strict(),
+  /** Host: close the table for good (not while an exchange is under way); its exchanges stay in history. */
+  'table:close': z.object({}).strict().default({}),
   'chat:send': z.object({ text: z.string().trim().min(1, 'Say something first.').max(TABLE_LIMITS.chatMax, `A message has at most ${TABLE_LIMITS.chatMax} characters.`) }).strict(),
 } as const;
 

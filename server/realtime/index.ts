@@ -271,6 +271,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       const master = await registry.get(tableId);
       if (!master) throw new TableError('NOT_FOUND', 'There is no table with that id.');
       if (socket.disconnected) throw new TableError('GONE', 'The connection closed before the table was joined.');
+      if (master.row.status === 'closed') throw new TableError('TABLE_CLOSED', 'This table is closed. Its exchanges are in your history.');
       const { userId, isAdmin } = socket.data;
       const insider = master.isHost(userId) || master.seatOf(userId) !== null || isAdmin;
       if (master.row.private && !insider && invite !== master.row.inviteCode) {
@@ -339,6 +340,10 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
     on('table:advice', async ({ hidden }) => {
       const master = await joined();
       return after(master, master.setAdvice(member(socket), hidden));
+    });
+    on('table:close', async () => {
+      const master = await joined();
+      return after(master, master.closeTable(member(socket)));
     });
     on('chat:send', async ({ text }) => {
       const master = await joined();

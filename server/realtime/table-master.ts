@@ -380,6 +380,7 @@ export class TableMaster {
     return this.run(async () => {
       this.requireHost(viewer);
       if (this.row.status === 'playing') throw new TableError('EXCHANGE_UNDER_WAY', 'An exchange is already under way.');
+      if (this.row.status === 'closed') throw new TableError('TABLE_CLOSED', 'This table is closed. Open a new table to deal again.');
       const empty = SEATS.filter((seat) => !this.row.seats[seat]);
       if (empty.length) throw new TableError('SEATS_EMPTY', `Fill every seat first (empty: ${empty.join(', ')}). Seat a bot in any seat nobody takes.`);
       // The engine's seed comes from the seed name, where it holds, and how many deals this table dealt before.
@@ -423,6 +424,20 @@ export class TableMaster {
       }
       this.exchange = { id, options, state, seq: 0, huddle: closedHuddle(), notes: [] };
       this.showLive();
+    });
+  }
+
+  /** The host closes the table for good; it leaves every list, and its exchanges stay in history. */
+  closeTable(viewer: Member): Promise<void> {
+    return this.retried(() => this.closeOnce(viewer));
+  }
+
+  private closeOnce(viewer: Member): Promise<void> {
+    return this.run(async () => {
+      this.requireHost(viewer);
+      if (this.row.status === 'closed') return;
+      if (this.row.status === 'playing') throw new TableError('EXCHANGE_UNDER_WAY', 'An exchange is under way. Close the table once it is over.');
+      await this.saveRow({ status: 'closed' });
     });
   }
 
@@ -708,14 +723,14 @@ export class TableMaster {
     for (const seat of SEATS) {
       const occupant = this.row.seats[seat];
       if (occupant?.kind !== 'bot' || this.botTimers.has(seat)) continue;
-      if (!chooseBotAction(occupant.strategy as never, viewFor(live.state, seat), this.patterns, `${live.id}:${seat}`)) continue;
+      if (!this.botMove(live, seat, occupant.strategy)) continue;
       const timer = setTimeout(() => {
         this.run(async () => {
           this.botTimers.delete(seat);
           const now = this.exchange;
           const bot = this.row.seats[seat];
           if (this.closed || !now || bot?.kind !== 'bot' || this.row.status !== 'playing') return null;
-          const action = chooseBotAction(bot.strategy as never, viewFor(now.state, seat), this.patterns, `${now.id}:${seat}`);
+          const action = this.botMove(now, seat, bot.strategy);
           if (!action) return null;
           try {
             return await this.applyAct(now, seat, action, null);
@@ -729,6 +744,20 @@ export class TableMaster {
       }, this.hooks.botDelayMs);
       this.botTimers.set(seat, timer);
     }
+  }
+
+  /**
+   * What a bot does now, if anything. In the vote, bots wait until every person at the table has
+   * voted (so nobody is skipped past the vote by a bot's instant stop), and on a table set so, they
+   * always vote for the second Charleston.
+   */
+  private botMove(live: LiveExchange, seat: Seat, strategy: string): Action | null {
+    if (live.state.phase === 'vote') {
+      const people = SEATS.filter((s) => this.row.seats[s]?.kind === 'user');
+      if (people.some((s) => live.state.votes[s] === undefined)) return null;
+      if (this.row.options.botsPlaySecond) return live.state.votes[seat] === undefined ? { type: 'vote', stop: false } : null;
+    }
+    return chooseBotAction(strategy as never, viewFor(live.state, seat), this.patterns, `${live.id}:${seat}`);
   }
 
   private step = { key: '', version: 0 };
@@ -907,6 +936,7 @@ export function defaultTableOptions(input: Partial<TableOptions> = {}): TableOpt
     huddleEveryPass: input.huddleEveryPass ?? false,
     teaching: input.teaching ?? false,
     hideAdvice: input.hideAdvice ?? false,
+    botsPlaySecond: input.botsPlaySecond ?? false,
     patternListId: input.patternListId ?? STARTER_LIST_ID,
   };
 }

@@ -82,17 +82,21 @@ export function tablesRouter(registry: TableRegistry) {
 
   router.get('/', async (req, res) => {
     const userId = req.user!.id;
+    // Closed tables leave every list; finished tables leave the open list (they live in history).
     const rows = await TableRow.findAll({
-      where: { [Op.or]: [{ private: false }, { hostId: userId }] },
+      where: { status: { [Op.ne]: 'closed' }, [Op.or]: [{ private: false }, { hostId: userId }] },
       order: [['updatedAt', 'DESC']],
       limit: 200,
     });
     // Private tables where the user sits but does not host are found through the seats.
-    const seatedPrivate = await TableRow.findAll({ where: { private: true, hostId: { [Op.ne]: userId } }, order: [['updatedAt', 'DESC']], limit: 500 });
+    const seatedPrivate = await TableRow.findAll({ where: { private: true, status: { [Op.ne]: 'closed' }, hostId: { [Op.ne]: userId } }, order: [['updatedAt', 'DESC']], limit: 500 });
     const mine: TableRow[] = [];
     const open: TableRow[] = [];
     const isMine = (row: TableRow) => row.hostId === userId || seatedAt(row, userId);
-    for (const row of rows) (isMine(row) ? mine : open).push(row);
+    for (const row of rows) {
+      if (isMine(row)) mine.push(row);
+      else if (row.status !== 'done') open.push(row);
+    }
     for (const row of seatedPrivate) if (isMine(row)) mine.push(row);
     res.json({
       mine: await Promise.all(mine.map((r) => dtoOf(r, userId))),

@@ -42,8 +42,8 @@ function copyRecord(record: PassRecord): PassRecord {
 /**
  * The state as one viewer may see it; the only way state leaves the engine. Never holds the
  * seed, the wall or the options. A seat sees its own rack, pending pass and received tiles,
- * and of the others only rack sizes and whether they committed; votes and courtesy asks of
- * others once they settle. 'host' and 'replay' see every rack and pass; 'spectator' counts only.
+ * and of the others only rack sizes and whether they committed; every vote as it comes, and
+ * courtesy asks of others once they settle. 'host' and 'replay' see every rack and pass; 'spectator' counts only.
  */
 export function viewFor(state: ExchangeState, viewer: Viewer): ExchangeView {
   const seat = isSeat(viewer) ? viewer : null;
@@ -80,7 +80,6 @@ export function viewFor(state: ExchangeState, viewer: Viewer): ExchangeView {
     }
   }
 
-  const voteSettled = state.phase !== 'vote';
   const askSettled = state.phase !== 'courtesy-ask';
   const shown = (settled: boolean): readonly Seat[] => (full || (seat && settled) ? SEATS : visible);
 
@@ -100,7 +99,8 @@ export function viewFor(state: ExchangeState, viewer: Viewer): ExchangeView {
     blindAllowed: isBlindPhase(state.phase),
     asks: pick(state.asks, shown(askSettled)),
     agreed: pick(state.agreed, shown(askSettled)),
-    votes: pick(state.votes, shown(voteSettled)),
+    // The vote is open, as at a real table: every seat and spectator sees each vote as it comes.
+    votes: pick(state.votes, SEATS),
     history,
     kinds,
   };

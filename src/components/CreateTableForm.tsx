@@ -15,6 +15,7 @@ const SWITCHES: { key: Switch; label: string; hint: string; initial: boolean }[]
   { key: 'jokers', label: 'Deal with jokers', hint: 'Off deals from the set without its 8 jokers.', initial: true },
   { key: 'secondCharleston', label: 'Offer a second Charleston', hint: 'After the first, the table votes; off stops after the first.', initial: true },
   { key: 'courtesy', label: 'Offer the courtesy pass', hint: 'Seats across from each other may swap up to 3 tiles at the end.', initial: true },
+  { key: 'botsPlaySecond', label: 'Bots always play the second Charleston', hint: 'For practice: bots vote to go on, so the table plays all six passes unless a person stops.', initial: false },
   { key: 'huddleEveryPass', label: 'Hold every pass', hint: 'Each pass waits for the host to let it go, to talk it over first.', initial: false },
   { key: 'teaching', label: 'Teaching table', hint: 'The host sees every rack all the time.', initial: false },
   { key: 'hideAdvice', label: 'Hide the advice', hint: 'Players see their rack summary but no advised passes: a test of skill.', initial: false },

@@ -9,7 +9,7 @@ import { FormMessage } from './FormMessage';
 import { SelectField } from './SelectField';
 import { TextField } from './TextField';
 
-const STATUS = { lobby: 'Waiting to start', playing: 'Playing', done: 'Finished' } as const;
+const STATUS = { lobby: 'Waiting to start', playing: 'Playing', done: 'Finished', closed: 'Closed' } as const;
 
 function TableCard({ table }: { table: RoomTableDto }) {
   return (

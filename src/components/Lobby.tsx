@@ -8,7 +8,7 @@ import { Card } from './Card';
 import { CreateTableForm } from './CreateTableForm';
 import { TextField } from './TextField';
 
-const STATUS_WORDS = { lobby: 'Seating', playing: 'Passing', done: 'Finished' } as const;
+const STATUS_WORDS = { lobby: 'Seating', playing: 'Passing', done: 'Finished', closed: 'Closed' } as const;
 
 function TableRow({ table }: { table: TableDto }) {
   const filled = SEATS.filter((s) => table.seats[s]).length;

@@ -20,7 +20,7 @@ export function TableTop({ table, centre, seatExtra }: { table: TableStateDto; c
     const seat = bySide.get(side)!;
     return (
       <div key={seat} className={AREA[side]}>
-        <SeatCard seat={seat} side={side} state={table.seats[seat]} playing={playing}>
+        <SeatCard seat={seat} side={side} viewerSeated={table.mySeat !== null} state={table.seats[seat]} playing={playing}>
           {seatExtra?.(seat)}
         </SeatCard>
       </div>

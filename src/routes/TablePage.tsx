@@ -21,6 +21,7 @@ import { useRackOrder } from '../components/rackOrder';
 import { TableTop } from '../components/TableTop';
 import { joinTable, leaveTable, send } from '../realtime/socket';
 import { useTableStore } from '../realtime/tableStore';
+import { VoteTally, voteResult } from '../components/VoteBoard';
 
 function stepKey(table: TableStateDto) {
   return `${table.exchangeId}:${table.view?.phase}:${table.view?.history.length}`;
@@ -46,7 +47,10 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
   const key = stepKey(table);
   const [pick, setPick] = useState({ key: '', ids: [] as string[], blind: 0 });
   const [ask, setAsk] = useState<CourtesyCount | null>(null);
-  const [said, setSaid] = useState('');
+  const [said, setSaidFor] = useState({ key: '', text: '' });
+  // A message belongs to the step it was said in: the next pass starts with none.
+  const saidNow = said.key === key ? said.text : '';
+  const setSaid = (text: string) => setSaidFor({ key, text });
   const committedNow = me ? table.seats[me].committed : false;
   const picked = pick.key === key && !committedNow ? pick.ids : [];
   const blind = pick.key === key ? pick.blind : 0;
@@ -81,8 +85,22 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
     void run('exchange:act', { action: { type: 'pass', tiles: picked, blind: blind || undefined }, version });
   };
 
+  const decided = voteResult(table);
   return (
     <div className="flex flex-col gap-4">
+      {view.phase === 'vote' && (
+        <section aria-labelledby="vote-title" className="flex flex-col gap-2 rounded-card border border-line/60 bg-card p-3 sm:p-4">
+          <h2 id="vote-title" className="text-lead font-semibold">
+            The vote on a second Charleston
+          </h2>
+          <VoteTally table={table} />
+        </section>
+      )}
+      {decided && (
+        <p role="status" className="rounded-card border-2 border-ink/30 bg-card px-4 py-2 font-semibold">
+          {decided}
+        </p>
+      )}
       <TableTop table={table} centre={direction && view.passSize > 0 ? <PassArrow direction={direction} to={me ? seatTo(me, direction) : null} count={view.passSize} /> : null} />
       {table.huddle.open && huddle}
       {me && (
@@ -113,7 +131,7 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
             onSay={setSaid}
           />
           <p role="status" className="min-h-6 font-medium">
-            {said}
+            {saidNow}
           </p>
           <p role="status" className="font-medium text-received">
             {announcement}
@@ -150,9 +168,27 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
       )}
       {!table.huddle.open && huddle}
       {view.phase === 'done' && table.exchangeId && (
-        <p className="rounded-card border-2 border-accent bg-accent-soft p-4 font-semibold">
-          The Charleston is over. <Link to={`/replays/${table.exchangeId}`}>Replay this exchange pass by pass</Link>
-        </p>
+        <div className="flex flex-col gap-3 rounded-card border-2 border-accent bg-accent-soft p-4">
+          <p className="font-semibold">
+            The Charleston is over. <Link to={`/replays/${table.exchangeId}`}>Replay this exchange pass by pass</Link>
+          </p>
+          {table.status === 'closed' ? (
+            <p>
+              The host closed this table. Its exchanges are in <Link to="/history">My exchanges</Link>.
+            </p>
+          ) : table.isHost ? (
+            <div className="flex flex-wrap gap-3">
+              <Button kind="primary" disabled={busy} onClick={() => void run('table:start', {})}>
+                Deal again
+              </Button>
+              <Button disabled={busy} onClick={() => void run('table:close', {})}>
+                Close the table
+              </Button>
+            </div>
+          ) : (
+            <p>The same seats play the next deal when the host deals again.</p>
+          )}
+        </div>
       )}
     </div>
   );

@@ -10,7 +10,7 @@ const occupants = {
   north: { kind: 'bot', strategy: 'multiples', displayName: 'Pair keeper (bot)' },
 } as const;
 
-export const OPTIONS = { seed: 'harbor-lane-week-01', jokers: true, secondCharleston: true, courtesy: true, huddleEveryPass: false, teaching: false, hideAdvice: false };
+export const OPTIONS = { seed: 'harbor-lane-week-01', jokers: true, secondCharleston: true, courtesy: true, huddleEveryPass: false, teaching: false, hideAdvice: false, botsPlaySecond: false };
 
 /** A table state as the server would send it, built from a real engine state. */
 export function tableState(state: ExchangeState | null, viewer: Seat | null, extra: Partial<TableStateDto> = {}, version = 1): TableStateDto {

@@ -67,7 +67,7 @@ test('the create form sends every option, shows server field errors, and opens t
   expect(calls.find((c) => c.key === 'POST /api/tables')!.body).toEqual({
     name: 'Harbor Lane drills',
     private: true,
-    options: { seed: 'harbor-lane-week-01', jokers: true, secondCharleston: true, courtesy: false, huddleEveryPass: true, teaching: false, hideAdvice: true },
+    options: { seed: 'harbor-lane-week-01', jokers: true, secondCharleston: true, courtesy: false, huddleEveryPass: true, teaching: false, hideAdvice: true, botsPlaySecond: false },
   });
   await userEvent.click(screen.getByRole('button', { name: 'Open the table' }));
   await waitFor(() => expect(router.state.location.pathname).toBe('/tables/t9'));

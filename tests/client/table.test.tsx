@@ -1,7 +1,7 @@
 import { act as reactAct, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { beforeEach, expect, test, vi } from 'vitest';
-import { act, createExchange } from '../../shared/exchange';
+import { act, createExchange, viewFor } from '../../shared/exchange';
 import type { TableStateDto } from '../../shared/protocol';
 import { useTableStore } from '../../src/realtime/tableStore';
 import { fakeApi, renderAt, signedInAs } from './render';
@@ -202,4 +202,49 @@ test('when the Charleston is over the table links to its replay', async () => {
   expect(state.phase).toBe('done');
   await showTable(tableState(state, 'east', {}, 9));
   expect(screen.getByRole('link', { name: 'Replay this exchange pass by pass' }).getAttribute('href')).toBe('/replays/x1');
+});
+
+test('the vote shows every seat’s vote as it comes, and afterwards who stopped', async () => {
+  let s = passAll(passAll(passAll(fresh())));
+  s = must(act(s, 'west', { type: 'vote', stop: false }));
+  await showTable(tableState(s, 'west'));
+  const tally = screen.getByRole('list', { name: 'Votes so far' });
+  expect(within(tally).getByText('West (you):').nextSibling!.textContent).toBe('go on');
+  expect(within(tally).getByText('North (bot):').nextSibling!.textContent).toBe('not voted yet');
+  push(tableState(must(act(s, 'north', { type: 'vote', stop: true })), 'west', {}, 2));
+  expect(await screen.findByText('North (bot) voted to stop: no second Charleston.')).toBeTruthy();
+});
+
+test('at the end the host deals again or closes the table; a player is told the host deals the next one', async () => {
+  let s = passAll(passAll(passAll(fresh())));
+  s = must(act(s, 'south', { type: 'vote', stop: true }));
+  for (const seat of ['east', 'south', 'west', 'north'] as const) s = must(act(s, seat, { type: 'courtesy-ask', count: 0 }));
+  expect(s.phase).toBe('done');
+  await showTable(tableState(s, 'east', { isHost: true }));
+  await userEvent.click(screen.getByRole('button', { name: 'Deal again' }));
+  expect(lastSend()).toEqual(['table:start', {}]);
+  await userEvent.click(screen.getByRole('button', { name: 'Close the table' }));
+  expect(lastSend()).toEqual(['table:close', {}]);
+  push(tableState(s, 'west', { isHost: false }, 3));
+  expect(await screen.findByText('The same seats play the next deal when the host deals again.')).toBeTruthy();
+  expect(screen.queryByRole('button', { name: 'Deal again' })).toBeNull();
+});
+
+test('a spectator sees compass names on the seats, never “you” or “your left”', async () => {
+  const watching: TableStateDto = { ...tableState(fresh(), 'east'), mySeat: null, myRack: [], isHost: false, view: viewFor(fresh(), 'spectator') };
+  await showTable(watching);
+  const top = screen.getByRole('group', { name: 'The table, seen from above' });
+  expect(within(top).queryByText(/you/i)).toBeNull();
+  expect(within(top).getByText('East')).toBeTruthy();
+});
+
+test('a message said during one pass is gone when the next pass begins', async () => {
+  const first = fresh();
+  await showTable(tableState(first, 'west', {}, 1));
+  const rack = screen.getByRole('group', { name: 'Your rack' });
+  const tiles = within(rack).getAllByRole('button').filter((b) => !b.getAttribute('aria-label')!.startsWith('joker'));
+  for (const tile of tiles.slice(0, 4)) await userEvent.click(tile);
+  expect(screen.getByText(/You have picked 3 already/)).toBeTruthy();
+  push(tableState(passAll(first), 'west', {}, 2));
+  await waitFor(() => expect(screen.queryByText(/You have picked 3 already/)).toBeNull());
 });

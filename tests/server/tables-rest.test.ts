@@ -60,3 +60,33 @@ test('a replay opens only when the exchange is done, and only to its players, it
   expect((await request(server.url).get('/api/exchanges').set('Cookie', outsider.cookie)).body.exchanges).toEqual([]);
   expect((await request(server.url).get('/api/exchanges/none/replay').set('Cookie', outsider.cookie)).status).toBe(404);
 });
+
+test('finished tables leave the open list; a host closes a table, which leaves every list and refuses joins', async () => {
+  const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } });
+  clients.push(...t.clients);
+  const sol = await client(server, 'Sol');
+  clients.push(sol);
+  const open = async () => (await request(server.url).get('/api/tables').set('Cookie', sol.cookie)).body.open.map((x: { id: string }) => x.id);
+  expect(await open()).toContain(t.table.id);
+  await t.host.ok('table:start');
+  for (;;) {
+    const states = await Promise.all(t.clients.map((c) => c.until((s) => s.phase === 'done' || (s.view !== null && !s.view.seats[s.mySeat!].committed))));
+    if (states.every((s) => s.phase === 'done')) break;
+    await Promise.all(
+      t.clients.map(async (c) => {
+        const s = c.state;
+        if (s.phase === 'done' || s.view!.seats[s.mySeat!].committed) return;
+        const tiles = s.myRack.filter((x) => x.kind !== 'joker').slice(0, 3).map((x) => x.id);
+        await c.emit('exchange:act', { action: { type: 'pass', tiles } });
+      }),
+    );
+  }
+  expect(await open()).not.toContain(t.table.id);
+  const theo = t.clients[1];
+  expect(await theo.emit('table:close')).toMatchObject({ ok: false, code: 'NOT_HOST' });
+  await t.host.ok('table:close');
+  const mine = (await request(server.url).get('/api/tables').set('Cookie', t.host.cookie)).body.mine.map((x: { id: string }) => x.id);
+  expect(mine).not.toContain(t.table.id);
+  expect(await sol.emit('table:join', { tableId: t.table.id, as: 'spectator' })).toMatchObject({ ok: false, code: 'TABLE_CLOSED' });
+  expect(await t.host.emit('table:start')).toMatchObject({ ok: false, code: 'TABLE_CLOSED' });
+});

@@ -94,11 +94,11 @@ test('a seat sees its pass size and whether blind is allowed', () => {
   expect(viewFor(advanceTo(start(), 'vote'), 'east')).toMatchObject({ passSize: 0, blindAllowed: false });
 });
 
-test('other seats’ votes stay hidden until the vote settles', () => {
+test('every vote is seen as it comes, by every seat and spectator', () => {
   let state = advanceTo(start(), 'vote');
   state = must(act(state, 'east', { type: 'vote', stop: false }));
-  expect(viewFor(state, 'south').votes).toEqual({});
-  expect(viewFor(state, 'east').votes).toEqual({ east: false });
+  expect(viewFor(state, 'south').votes).toEqual({ east: false });
+  expect(viewFor(state, 'spectator').votes).toEqual({ east: false });
   expect(viewFor(state, 'host').votes).toEqual({ east: false });
   state = must(act(state, 'south', { type: 'vote', stop: true }));
   expect(viewFor(state, 'west').votes).toEqual({ east: false, south: true });
