@@ -27,6 +27,34 @@ function stepKey(table: TableStateDto) {
   return `${table.exchangeId}:${table.view?.phase}:${table.view?.history.length}`;
 }
 
+interface Picks {
+  key: string;
+  ids: string[];
+  blind: number;
+}
+
+const picksKey = (tableId: string) => `rackside:picks:${tableId}`;
+
+function storedPicks(tableId: string): Picks {
+  try {
+    const raw = JSON.parse(sessionStorage.getItem(picksKey(tableId)) ?? 'null') as Partial<Picks> | null;
+    if (raw && typeof raw.key === 'string' && Array.isArray(raw.ids) && raw.ids.every((x) => typeof x === 'string') && typeof raw.blind === 'number') {
+      return { key: raw.key, ids: raw.ids, blind: raw.blind };
+    }
+  } catch {
+    // Nothing kept, or something unreadable: start with no picks.
+  }
+  return { key: '', ids: [], blind: 0 };
+}
+
+function keepPicks(tableId: string, picks: Picks) {
+  try {
+    sessionStorage.setItem(picksKey(tableId), JSON.stringify(picks));
+  } catch {
+    // Storage full or off: the picks live only on this page.
+  }
+}
+
 function useActions() {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -45,7 +73,12 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
   const view = table.view!;
   const me = table.mySeat;
   const key = stepKey(table);
-  const [pick, setPick] = useState({ key: '', ids: [] as string[], blind: 0 });
+  const [pick, setPickState] = useState<Picks>(() => storedPicks(table.tableId));
+  // The picks of a pass stay in this browser tab until it resolves: a refresh or the back button keeps them.
+  const setPick = (next: Picks) => {
+    setPickState(next);
+    keepPicks(table.tableId, next);
+  };
   const [ask, setAsk] = useState<CourtesyCount | null>(null);
   const [said, setSaidFor] = useState({ key: '', text: '' });
   // A message belongs to the step it was said in: the next pass starts with none.

@@ -1,5 +1,5 @@
 /**
- * `npm run bench:soak [-- --exchanges 10000 --wave 1000 --players 100]`: many exchanges played one
+ * `npm run bench:soak [-- --exchanges 10000 --wave 1000 --players 100 --idle-ms 1000 --settle-ms 2200]`: many exchanges played one
  * after another against the real server in its own process, in waves; after each wave the server
  * runs a full collection and its resident memory and heap are printed. Tables nobody is at leave
  * memory (TABLE_IDLE_MS), so memory should stay flat after the first waves.
@@ -25,6 +25,8 @@ const EXCHANGES = arg('exchanges', 10_000);
 const WAVE = arg('wave', 1_000);
 const PLAYERS = arg('players', 100);
 const IDLE_MS = arg('idle-ms', 1_000);
+/** How long to wait after a wave before reading memory (default: two idle periods, so the wave's tables are swept). */
+const SETTLE_MS = arg('settle-ms', IDLE_MS * 2 + 200);
 const dir = mkdtempSync(join(tmpdir(), 'rackside-soak-'));
 
 function startServer(): Promise<{ child: ChildProcess; url: string }> {
@@ -166,7 +168,7 @@ async function main() {
     );
     done += wave;
     // Let the idle tables of this wave reach the sweep, then read memory after a full collection.
-    await new Promise((resolve) => setTimeout(resolve, IDLE_MS * 2 + 200));
+    await new Promise((resolve) => setTimeout(resolve, SETTLE_MS));
     const m = await settled(child);
     rows.push({ heap: m.heap, rss: m.rssKb });
     const seconds = (performance.now() - w0) / 1000;

@@ -248,3 +248,22 @@ test('a message said during one pass is gone when the next pass begins', async (
   push(tableState(passAll(first), 'west', {}, 2));
   await waitFor(() => expect(screen.queryByText(/You have picked 3 already/)).toBeNull());
 });
+
+test('picks of a pass survive leaving the page and coming back until the pass resolves', async () => {
+  sessionStorage.clear();
+  const state = tableState(fresh(), 'west', {}, 4);
+  const first = await showTable(state);
+  const tiles = () => within(screen.getByRole('group', { name: 'Your rack' })).getAllByRole('button').filter((b) => !b.getAttribute('aria-label')!.startsWith('joker'));
+  await userEvent.click(tiles()[0]);
+  await userEvent.click(tiles()[1]);
+  const chosen = tiles().slice(0, 2).map((t) => t.dataset.tileId);
+  first.unmount();
+  useTableStore.getState().reset();
+
+  await showTable(state);
+  const pressed = tiles().filter((t) => t.getAttribute('aria-pressed') === 'true').map((t) => t.dataset.tileId);
+  expect(pressed.sort()).toEqual(chosen.sort());
+  // Once the pass has resolved, the old picks are gone.
+  push(tableState(passAll(fresh()), 'west', {}, 5));
+  await waitFor(() => expect(tiles().filter((t) => t.getAttribute('aria-pressed') === 'true')).toHaveLength(0));
+});
