@@ -1,8 +1,8 @@
 /**
  * The floor for `npm run bench:load`: a bare Socket.IO server that speaks just enough of
  * Rackside's table protocol for the same load client to play against it. A room of four joins,
- * sits and starts; every `exchange:act` is answered at once with a state for each of the four,
- * then acked; when all four have acted the room moves to the next step of a fixed Charleston
+ * sits and starts; the actions a room gets in one turn of the event loop are answered with one
+ * state for each of the four, then acked (Rackside sends one state per viewer per stored group); when all four have acted the room moves to the next step of a fixed Charleston
  * script. No rules, no storage, no sign-in: what is left is the transport, JSON and the fan-out.
  *
  * STATE_BYTES pads each state to about the size of the states Rackside sent in the same run, so
@@ -34,6 +34,8 @@ interface Room {
   history: { phase: string }[];
   committed: Record<Seat, boolean>;
   version: number;
+  /** Acks waiting for this turn's states to go out; set while a flush is due. */
+  pending: ((a: object) => void)[] | null;
 }
 
 const rooms = new Map<string, Room>();
@@ -68,13 +70,28 @@ function broadcast(room: Room) {
   for (const seat of SEATS) room.sockets[seat]?.emit('table:state', stateFor(room, seat));
 }
 
+/** As Rackside does: whatever a room got in one turn of the event loop goes out as one state per seat, then the acks. */
+function answerThisTurn(room: Room, ack: (a: object) => void) {
+  if (room.pending) {
+    room.pending.push(ack);
+    return;
+  }
+  room.pending = [ack];
+  setImmediate(() => {
+    const acks = room.pending!;
+    room.pending = null;
+    broadcast(room);
+    for (const a of acks) a({ ok: true });
+  });
+}
+
 const http = createServer();
 const io = new Server(http, { serveClient: false });
 io.on('connection', (socket) => {
   let room: Room | undefined;
   let seat: Seat | undefined;
   socket.on('table:join', ({ tableId }: { tableId: string }, ack: (a: object) => void) => {
-    room = rooms.get(tableId) ?? { id: tableId, sockets: {}, step: -1, history: [], committed: { east: false, south: false, west: false, north: false }, version: 0 };
+    room = rooms.get(tableId) ?? { id: tableId, sockets: {}, step: -1, history: [], committed: { east: false, south: false, west: false, north: false }, version: 0, pending: null };
     rooms.set(tableId, room);
     ack({ ok: true });
   });
@@ -99,9 +116,7 @@ io.on('connection', (socket) => {
       room.step++;
       for (const s of SEATS) room.committed[s] = false;
     }
-    // As Rackside does, the new states go out before the ack.
-    broadcast(room);
-    ack({ ok: true });
+    answerThisTurn(room, ack);
   });
 });
 http.listen(Number(process.env.PORT ?? 0), () => {
