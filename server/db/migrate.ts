@@ -7,8 +7,9 @@ import * as m0004 from './migrations/0004-lessons-mail-payments';
 import * as m0005 from './migrations/0005-audit-log';
 import * as m0006 from './migrations/0006-table-revision';
 import * as m0007 from './migrations/0007-payment-refund-reason';
+import * as m0008 from './migrations/0008-pattern-value-sealed';
 
-const MIGRATIONS = [m0001, m0002, m0003, m0004, m0005, m0006, m0007].sort((a, b) => a.name.localeCompare(b.name));
+const MIGRATIONS = [m0001, m0002, m0003, m0004, m0005, m0006, m0007, m0008].sort((a, b) => a.name.localeCompare(b.name));
 
 export function migrator(sequelize: Sequelize) {
   return new Umzug({

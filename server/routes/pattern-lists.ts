@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { Router, type Response } from 'express';
-import type { Pattern } from '../../shared/analysis/pattern';
+import { withCurrentFields, type Pattern } from '../../shared/analysis/pattern';
 import { patternFieldErrors, patternListInputSchema, STARTER_LIST_ID } from '../../shared/pattern-lists';
 import { requireTeacher } from '../auth/guards';
 import { DrillRow, PatternListRow } from '../db/models';
@@ -13,10 +13,14 @@ import { fileError, fileKindOf, uploadedText, uploadOne } from '../teaching/uplo
 const notFound = () => new HttpError(404, 'NOT_FOUND', 'There is no pattern list with that id among yours.');
 const readOnly = () => new HttpError(403, 'READ_ONLY', 'The starter list can’t be changed. Copy it to make a list of your own.');
 
-/** Checks a list from the editor: the list's own fields, then every pattern by the analysis schema. */
+/**
+ * Checks a list from the editor: the list's own fields, then every pattern by the analysis schema.
+ * A page loaded before `value` and `sealed` may still send `points` and `concealed`; they are renamed.
+ */
 function parseList(body: unknown): PatternListFile {
   const parsed = patternListInputSchema.safeParse(body ?? {});
   if (!parsed.success) throw badInput(parsed.error);
+  parsed.data.patterns = parsed.data.patterns.map(withCurrentFields);
   const fields = patternFieldErrors(parsed.data.patterns);
   if (Object.keys(fields).length) {
     const first = Object.values(fields)[0];

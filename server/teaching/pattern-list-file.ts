@@ -1,27 +1,37 @@
 /**
- * Rackside's own pattern-list files, JSON and CSV, version 1.
+ * Rackside's own pattern-list files, JSON and CSV, version 2 (version 1 is still read).
  *
- * JSON: { "format": "rackside-pattern-list", "version": 1, "name", "description", "patterns": [Pattern…] }
+ * JSON: { "format": "rackside-pattern-list", "version": 2, "name", "description", "patterns": [Pattern…] }
  * with each pattern in the analysis format.
  *
- * CSV: a first line `rackside-pattern-list,1`; then `name,<list name>` and optionally
- * `description,<text>`; then the header row `id,name,family,points,concealed,size,tile,suit,rank,dragon`
- * (any order); then one row per group. A pattern's own cells (name, family, points, concealed)
+ * CSV: a first line `rackside-pattern-list,2`; then `name,<list name>` and optionally
+ * `description,<text>`; then the header row `id,name,family,value,sealed,size,tile,suit,rank,dragon`
+ * (any order); then one row per group. A pattern's own cells (name, family, value, sealed)
  * sit on its first row and stay empty (or the same) on the rows after; a pattern's rows are
  * consecutive. A group is a `tile` (a kind such as flower), or a `suit` (A, B, C or bam, crack, dot)
  * with a `rank` (1–9, or a variable letter with an offset: n, n+1, n-2), or `dragon` = match with a suit.
- * `concealed` is yes or no.
+ * `sealed` is yes or no.
+ *
+ * Version 1 named a pattern's value `points` and its sealed mark `concealed` (in JSON and as CSV
+ * columns); a version 1 file is read with those names and becomes a list in today's names.
  */
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
-import { buildsWithoutCalls, patternValue, type Group, type Pattern } from '../../shared/analysis/pattern';
+import { buildsWithoutCalls, patternValue, withCurrentFields, type Group, type Pattern } from '../../shared/analysis/pattern';
 import { PATTERN_LIST_LIMITS, patternFieldErrors, patternListInputSchema } from '../../shared/pattern-lists';
 import { fieldPath, FileRejected, parseJsonFile, type FileProblem } from './json-text';
 
 export const PATTERN_LIST_FORMAT = 'rackside-pattern-list';
-export const PATTERN_LIST_VERSION = 1;
-export const CSV_COLUMNS = ['id', 'name', 'family', 'points', 'concealed', 'size', 'tile', 'suit', 'rank', 'dragon'] as const;
+export const PATTERN_LIST_VERSION = 2;
+/** Versions this Rackside reads: 1 (fields `points` and `concealed`) and 2. */
+export const READABLE_VERSIONS = [1, 2] as const;
+type Version = (typeof READABLE_VERSIONS)[number];
+export const CSV_COLUMNS = ['id', 'name', 'family', 'value', 'sealed', 'size', 'tile', 'suit', 'rank', 'dragon'] as const;
+/** Version 1's header: the same columns, with `points` and `concealed` for `value` and `sealed`. */
+export const CSV_COLUMNS_V1 = ['id', 'name', 'family', 'points', 'concealed', 'size', 'tile', 'suit', 'rank', 'dragon'] as const;
 type Column = (typeof CSV_COLUMNS)[number];
+/** A column's name in a file of the given version. */
+const columnName = (column: Column, version: Version): string => (version === 1 ? CSV_COLUMNS_V1[CSV_COLUMNS.indexOf(column)] : column);
 
 export interface PatternListFile {
   name: string;
@@ -93,16 +103,31 @@ function checkList(candidate: { name: unknown; description: unknown; patterns: u
   return { name: parsed.data.name, description: parsed.data.description, patterns: parsed.data.patterns as Pattern[] };
 }
 
-function checkFormat(format: unknown, version: unknown, where: { format: string; version: string }) {
+function checkFormat(format: unknown, version: unknown, where: { format: string; version: string }): Version {
   if (format !== PATTERN_LIST_FORMAT) {
     throw new FileRejected([{ where: where.format, message: `This is not a Rackside pattern-list file: "format" must be "${PATTERN_LIST_FORMAT}".` }]);
   }
-  if (version !== PATTERN_LIST_VERSION) {
+  if (!(READABLE_VERSIONS as readonly unknown[]).includes(version)) {
     const newer = typeof version === 'number' && version > PATTERN_LIST_VERSION;
+    const readable = READABLE_VERSIONS.join(' or ');
     throw new FileRejected([
-      { where: where.version, message: newer ? `This file is version ${version}; this Rackside reads version ${PATTERN_LIST_VERSION}.` : `"version" must be ${PATTERN_LIST_VERSION}.` },
+      { where: where.version, message: newer ? `This file is version ${version}; this Rackside reads version ${readable}.` : `"version" must be ${readable}.` },
     ]);
   }
+  return version as Version;
+}
+
+/** In a version 2 file, a pattern still using version 1's names is told which names to use. */
+function oldNamesIn(patterns: unknown): FileProblem[] {
+  if (!Array.isArray(patterns)) return [];
+  const problems: FileProblem[] = [];
+  patterns.forEach((p: unknown, index) => {
+    if (typeof p !== 'object' || p === null) return;
+    for (const [old, now] of [['points', 'value'], ['concealed', 'sealed']] as const) {
+      if (old in p) problems.push({ where: fieldPath(['patterns', String(index), old]), message: `Version 2 names this field "${now}"; "${old}" is version 1's name. Rename it, or mark the file as version 1.` });
+    }
+  });
+  return problems.slice(0, MAX_PROBLEMS);
 }
 
 export function readPatternListJson(text: string): PatternListFile {
@@ -111,12 +136,17 @@ export function readPatternListJson(text: string): PatternListFile {
     throw new FileRejected([{ where: '(the whole file)', message: 'A pattern-list file holds one object with "format", "version", "name" and "patterns".' }]);
   }
   const head = data as Record<string, unknown>;
-  checkFormat(head.format, head.version, { format: 'format', version: 'version' });
+  const version = checkFormat(head.format, head.version, { format: 'format', version: 'version' });
   const known = new Set(['format', 'version', 'name', 'description', 'patterns']);
   const extra = Object.keys(data).filter((k) => !known.has(k));
   if (extra.length) throw new FileRejected([{ where: extra[0], message: `"${extra[0]}" is not part of a pattern-list file. Remove it.` }]);
   const d = data as Record<string, unknown>;
-  return checkList({ name: d.name, description: d.description, patterns: d.patterns }, (key) => fieldPath(key.split('.')));
+  if (version === 2) {
+    const old = oldNamesIn(d.patterns);
+    if (old.length) throw new FileRejected(old);
+  }
+  const patterns = version === 1 && Array.isArray(d.patterns) ? d.patterns.map(withCurrentFields) : d.patterns;
+  return checkList({ name: d.name, description: d.description, patterns }, (key) => fieldPath(key.split('.')));
 }
 
 /** A rank cell: a number, or a variable letter with an optional offset; a string is the problem. */
@@ -146,7 +176,8 @@ export function readPatternListCsv(text: string): PatternListFile {
   if (rows.length === 0) throw new FileRejected([{ where: 'line 1', message: 'The file is empty.' }]);
   const [first, ...rest] = rows;
   const version = /^\d+$/.test(first.cells[1] ?? '') ? Number(first.cells[1]) : first.cells[1];
-  checkFormat(first.cells[0], version, { format: `line ${first.line}`, version: `line ${first.line}` });
+  const fileVersion = checkFormat(first.cells[0], version, { format: `line ${first.line}`, version: `line ${first.line}` });
+  const columns = fileVersion === 1 ? CSV_COLUMNS_V1 : CSV_COLUMNS;
 
   const meta: Record<string, string> = {};
   let at = 0;
@@ -158,15 +189,17 @@ export function readPatternListCsv(text: string): PatternListFile {
     meta[cells[0]] = cells.slice(1).join(',');
     at++;
   }
-  if (at >= rest.length) throw new FileRejected([{ where: `line ${rows[rows.length - 1].line}`, message: `The header row is missing: ${CSV_COLUMNS.join(',')}.` }]);
+  if (at >= rest.length) throw new FileRejected([{ where: `line ${rows[rows.length - 1].line}`, message: `The header row is missing: ${columns.join(',')}.` }]);
   const head = rest[at];
-  const index = new Map<string, number>(head.cells.map((name, i) => [name, i]));
-  const missing = CSV_COLUMNS.filter((c) => !index.has(c));
-  const unknown = head.cells.filter((c) => !(CSV_COLUMNS as readonly string[]).includes(c));
+  const fileIndex = new Map<string, number>(head.cells.map((name, i) => [name, i]));
+  const missing = (columns as readonly string[]).filter((c) => !fileIndex.has(c));
+  const unknown = head.cells.filter((c) => !(columns as readonly string[]).includes(c));
   if (missing.length || unknown.length) {
     const message = missing.length ? `The header row lacks ${missing.map((c) => `"${c}"`).join(', ')}.` : `The header row has unknown columns: ${unknown.map((c) => `"${c}"`).join(', ')}.`;
     throw new FileRejected([{ where: `line ${head.line}`, message }]);
   }
+  // Columns by today's names, wherever the file put them and whatever its version called them.
+  const index = new Map<Column, number>(CSV_COLUMNS.map((c) => [c, fileIndex.get(columnName(c, fileVersion))!]));
   const groupRows = rest.slice(at + 1);
   if (groupRows.length > PATTERN_LIST_LIMITS.patternsMax * 14) {
     throw new FileRejected([{ where: `line ${groupRows[0].line}`, message: 'The file has too many rows for one list.' }]);
@@ -174,14 +207,14 @@ export function readPatternListCsv(text: string): PatternListFile {
 
   const problems: FileProblem[] = [];
   const cell = (row: Row, column: Column) => row.cells[index.get(column)!] ?? '';
-  const patterns: (Omit<Pattern, 'points' | 'concealed'> & { points: unknown; concealed: unknown })[] = [];
+  const patterns: (Omit<Pattern, 'value' | 'sealed'> & { value: unknown; sealed: unknown })[] = [];
   // Where each pattern and group came from, to name the line of each problem.
   const lines: { pattern: number; groups: number[] }[] = [];
   let current: (typeof patterns)[number] | null = null;
   const done = new Set<string>();
   for (const row of groupRows) {
     const id = cell(row, 'id');
-    const at = (column: Column) => `line ${row.line}, column ${column}`;
+    const at = (column: Column) => `line ${row.line}, column ${columnName(column, fileVersion)}`;
     if (!id) {
       problems.push({ where: at('id'), message: 'Every row names the id of the pattern its group belongs to.' });
       continue;
@@ -192,25 +225,25 @@ export function readPatternListCsv(text: string): PatternListFile {
         continue;
       }
       done.add(id);
-      const points = cell(row, 'points');
-      const concealed = cell(row, 'concealed').toLowerCase();
+      const value = cell(row, 'value');
+      const sealed = cell(row, 'sealed').toLowerCase();
       current = {
         id,
         name: cell(row, 'name'),
         family: cell(row, 'family'),
-        points: /^\d+$/.test(points) ? Number(points) : points,
-        concealed: ['yes', 'true'].includes(concealed) ? true : ['no', 'false'].includes(concealed) ? false : concealed,
+        value: /^\d+$/.test(value) ? Number(value) : value,
+        sealed: ['yes', 'true'].includes(sealed) ? true : ['no', 'false'].includes(sealed) ? false : sealed,
         groups: [],
       };
-      if (typeof current.points === 'string') problems.push({ where: at('points'), message: `Pattern "${id}": points are a whole number, such as 25.` });
-      if (typeof current.concealed === 'string') problems.push({ where: at('concealed'), message: `Pattern "${id}": concealed is yes or no.` });
+      if (typeof current.value === 'string') problems.push({ where: at('value'), message: `Pattern "${id}": ${columnName('value', fileVersion)} is a whole number, such as 40.` });
+      if (typeof current.sealed === 'string') problems.push({ where: at('sealed'), message: `Pattern "${id}": ${columnName('sealed', fileVersion)} is yes or no.` });
       patterns.push(current);
       lines.push({ pattern: row.line, groups: [] });
     } else {
-      for (const column of ['name', 'family', 'points', 'concealed'] as const) {
+      for (const column of ['name', 'family', 'value', 'sealed'] as const) {
         const value = cell(row, column);
         if (value && value.toLowerCase() !== shown(current[column]).toLowerCase()) {
-          problems.push({ where: at(column), message: `Pattern "${id}": its ${column} is given on its first row; leave this cell empty.` });
+          problems.push({ where: at(column), message: `Pattern "${id}": its ${columnName(column, fileVersion)} is given on its first row; leave this cell empty.` });
         }
       }
     }
@@ -251,7 +284,7 @@ export function readPatternListCsv(text: string): PatternListFile {
       const column = parts[4] === 'tile' || parts[4] === 'suit' || parts[4] === 'rank' || parts[4] === 'dragon' || parts[4] === 'size' ? `, column ${parts[4]}` : '';
       return `line ${p.groups[Number(parts[3])] ?? p.pattern}${column}`;
     }
-    const column = parts[2] && (CSV_COLUMNS as readonly string[]).includes(parts[2]) ? `, column ${parts[2]}` : '';
+    const column = parts[2] && (CSV_COLUMNS as readonly string[]).includes(parts[2]) ? `, column ${columnName(parts[2] as Column, fileVersion)}` : '';
     return `line ${p.pattern}${column}`;
   };
   return checkList({ name: meta.name, description: meta.description ?? '', patterns }, where);

@@ -1,6 +1,6 @@
 /** Where a list's patterns come from: the starter list (served from shared/, read-only) or a teacher's stored list. */
 import { starterPatterns, type Pattern } from '../../shared/analysis';
-import { assignmentBound, PATTERN_WORK_LIMITS, workIssues } from '../../shared/analysis/pattern';
+import { assignmentBound, PATTERN_WORK_LIMITS, withCurrentFields, workIssues } from '../../shared/analysis/pattern';
 import { STARTER_LIST_ID, STARTER_LIST_NAME, type PatternListDto, type PatternListSummaryDto } from '../../shared/pattern-lists';
 import { PatternListRow } from '../db/models';
 
@@ -18,8 +18,16 @@ export function summaryOf(row: PatternListRow): PatternListSummaryDto {
   return { id: row.id, name: row.name, description: row.description, patternCount: row.patterns.length, readOnly: false, updatedAt: row.updatedAt.toISOString() };
 }
 
+/**
+ * A stored list's patterns in today's field names. Migration 0008 rewrote the rows stored
+ * before `value` and `sealed`; a row written by an older process since is still read.
+ */
+export function storedPatterns(row: PatternListRow): Pattern[] {
+  return row.patterns.map((p) => withCurrentFields(p) as Pattern);
+}
+
 export function dtoOf(row: PatternListRow): PatternListDto {
-  return { ...summaryOf(row), patterns: row.patterns };
+  return { ...summaryOf(row), patterns: storedPatterns(row) };
 }
 
 /** The owner's own list with that id, or null (another teacher's list is as absent as a missing one). */
@@ -63,7 +71,7 @@ export function withinWorkLimits(patterns: readonly Pattern[]): Pattern[] {
 export async function patternsForTable(id: string | undefined): Promise<{ id: string; name: string; patterns: Pattern[] }> {
   if (id && id !== STARTER_LIST_ID) {
     const row = await PatternListRow.findByPk(id);
-    const patterns = row ? withinWorkLimits(row.patterns) : [];
+    const patterns = row ? withinWorkLimits(storedPatterns(row)) : [];
     if (row && patterns.length > 0) return { id: row.id, name: row.name, patterns };
   }
   return { id: STARTER_LIST_ID, name: STARTER_LIST_NAME, patterns: starterPatterns };

@@ -27,19 +27,38 @@ export interface Pattern {
   id: string;
   name: string;
   family: string;
-  points: number;
-  concealed: boolean;
+  /** What finishing the hand is worth; Rackside's own list derives it from measured odds (rarer is worth more). */
+  value: number;
+  /** Sealed: built from the player's own draws alone, with no called discards. */
+  sealed: boolean;
   groups: Group[];
 }
 
 /** Whether the hand must be built without calling discards (every tile from the player's own draws). */
 export function buildsWithoutCalls(p: Pattern): boolean {
-  return p.concealed;
+  return p.sealed;
 }
 
 /** What finishing the hand is worth on Rackside's scale. */
 export function patternValue(p: Pattern): number {
-  return p.points;
+  return p.value;
+}
+
+/**
+ * A pattern in today's field names. Lists stored, and files written, before `value` and
+ * `sealed` name them `points` and `concealed`; those are renamed (a field already under its new
+ * name wins), in the order today's format writes. Anything that is not an object passes through
+ * for the schema to refuse.
+ */
+export function withCurrentFields(raw: unknown): unknown {
+  if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) return raw;
+  const old = raw as Record<string, unknown>;
+  if (!('points' in old) && !('concealed' in old)) return raw;
+  const { points, concealed, ...rest } = old;
+  const { id, name, family, groups, ...others } = rest;
+  const out: Record<string, unknown> = { id, name, family, value: 'value' in rest ? rest.value : points, sealed: 'sealed' in rest ? rest.sealed : concealed, groups, ...others };
+  for (const key of Object.keys(out)) if (out[key] === undefined) delete out[key];
+  return out;
 }
 
 const size = z.number().int().min(MIN_GROUP_SIZE, 'A group holds at least 1 tile.').max(MAX_GROUP_SIZE, 'A group holds at most 6 tiles (a sextet).');
@@ -67,8 +86,8 @@ export const patternShape = z.strictObject({
   id: z.string().regex(/^[a-z0-9][a-z0-9-]{0,39}$/, 'An id is lower-case letters, digits and dashes, up to 40.'),
   name: z.string().trim().min(1, 'Give the pattern a name.').max(60, 'A name has at most 60 characters.'),
   family: z.string().trim().min(1, 'Give the pattern a family.').max(30),
-  points: z.number().int().min(0).max(1000),
-  concealed: z.boolean(),
+  value: z.number({ error: 'A value is a whole number from 0 to 1000.' }).int('A value is a whole number from 0 to 1000.').min(0, 'A value is a whole number from 0 to 1000.').max(1000, 'A value is a whole number from 0 to 1000.'),
+  sealed: z.boolean({ error: 'Sealed is true or false: true when the hand is built from your own draws, with no calls.' }),
   groups: z.array(groupSchema).min(1).max(HAND_SIZE),
 });
 

@@ -24,7 +24,7 @@ export const STARTER_FAMILIES: Readonly<Record<string, string>> = {
 
 export const starterPatterns: Pattern[] = [
   {
-    id: 'even-01', name: 'Even climb in one suit', family: 'even', points: 25, concealed: false,
+    id: 'even-01', name: 'Even climb in one suit', family: 'even', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: 2 },
       { size: 3, suit: 'A', rank: 4 },
@@ -33,7 +33,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'even-02', name: 'Evens split two ways', family: 'even', points: 25, concealed: false,
+    id: 'even-02', name: 'Evens split two ways', family: 'even', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: 2 },
       { size: 4, suit: 'A', rank: 4 },
@@ -42,7 +42,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'even-03', name: 'Evens woven through three suits', family: 'even', points: 30, concealed: false,
+    id: 'even-03', name: 'Evens woven through three suits', family: 'even', value: 30, sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 3, suit: 'A', rank: 2 },
@@ -52,7 +52,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'even-04', name: 'Evens with their dragon', family: 'even', points: 25, concealed: false,
+    id: 'even-04', name: 'Evens with their dragon', family: 'even', value: 25, sealed: false,
     groups: [
       { size: 3, suit: 'A', rank: 2 },
       { size: 3, suit: 'A', rank: 4 },
@@ -62,7 +62,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'odd-01', name: 'Every odd in one suit', family: 'odd', points: 30, concealed: false,
+    id: 'odd-01', name: 'Every odd in one suit', family: 'odd', value: 30, sealed: false,
     groups: [
       { size: 2, suit: 'A', rank: 1 },
       { size: 3, suit: 'A', rank: 3 },
@@ -72,7 +72,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'odd-02', name: 'Odd kongs in two suits', family: 'odd', points: 25, concealed: false,
+    id: 'odd-02', name: 'Odd kongs in two suits', family: 'odd', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: 1 },
       { size: 4, suit: 'A', rank: 3 },
@@ -81,7 +81,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'odd-03', name: 'Odds and a north', family: 'odd', points: 25, concealed: false,
+    id: 'odd-03', name: 'Odds and a north', family: 'odd', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: 1 },
       { size: 3, suit: 'A', rank: 5 },
@@ -90,7 +90,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'odd-04', name: 'Odd kongs around flowers', family: 'odd', points: 30, concealed: false,
+    id: 'odd-04', name: 'Odd kongs around flowers', family: 'odd', value: 30, sealed: false,
     groups: [
       { size: 4, tile: 'flower' },
       { size: 4, suit: 'A', rank: 3 },
@@ -99,7 +99,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'ladder-01', name: 'Four rungs', family: 'ladder', points: 25, concealed: false,
+    id: 'ladder-01', name: 'Four rungs', family: 'ladder', value: 25, sealed: false,
     groups: [
       { size: 3, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 3, suit: 'A', rank: { var: 'n', offset: 1 } },
@@ -108,7 +108,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'ladder-02', name: 'Five rungs', family: 'ladder', points: 30, concealed: false,
+    id: 'ladder-02', name: 'Five rungs', family: 'ladder', value: 30, sealed: false,
     groups: [
       { size: 2, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 3, suit: 'A', rank: { var: 'n', offset: 1 } },
@@ -118,7 +118,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'ladder-03', name: 'Three rungs over flowers', family: 'ladder', points: 25, concealed: false,
+    id: 'ladder-03', name: 'Three rungs over flowers', family: 'ladder', value: 25, sealed: false,
     groups: [
       { size: 4, tile: 'flower' },
       { size: 3, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -127,7 +127,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'ladder-04', name: 'Ladder with its dragon', family: 'ladder', points: 25, concealed: false,
+    id: 'ladder-04', name: 'Ladder with its dragon', family: 'ladder', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 4, suit: 'A', rank: { var: 'n', offset: 1 } },
@@ -136,7 +136,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'ladder-05', name: 'Seven-step staircase', family: 'ladder', points: 40, concealed: true,
+    id: 'ladder-05', name: 'Seven-step staircase', family: 'ladder', value: 40, sealed: true,
     groups: [
       { size: 1, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 1, suit: 'A', rank: { var: 'n', offset: 1 } },
@@ -150,7 +150,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'braid-01', name: 'Three-suit stair', family: 'braid', points: 25, concealed: false,
+    id: 'braid-01', name: 'Three-suit stair', family: 'braid', value: 25, sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 4, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -159,7 +159,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'braid-02', name: 'Braided pungs', family: 'braid', points: 30, concealed: false,
+    id: 'braid-02', name: 'Braided pungs', family: 'braid', value: 30, sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 3, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -169,7 +169,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'braid-03', name: 'Two-suit zigzag', family: 'braid', points: 25, concealed: false,
+    id: 'braid-03', name: 'Two-suit zigzag', family: 'braid', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 3, suit: 'B', rank: { var: 'n', offset: 1 } },
@@ -178,7 +178,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'braid-04', name: 'Braid between winds', family: 'braid', points: 30, concealed: false,
+    id: 'braid-04', name: 'Braid between winds', family: 'braid', value: 30, sealed: false,
     groups: [
       { size: 3, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 3, suit: 'B', rank: { var: 'n', offset: 1 } },
@@ -188,7 +188,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'mirror-01', name: 'One number, three suits', family: 'mirror', points: 25, concealed: false,
+    id: 'mirror-01', name: 'One number, three suits', family: 'mirror', value: 25, sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 4, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -197,7 +197,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'mirror-02', name: 'Two numbers, twice', family: 'mirror', points: 25, concealed: false,
+    id: 'mirror-02', name: 'Two numbers, twice', family: 'mirror', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 4, suit: 'B', rank: { var: 'n', offset: 0 } },
@@ -206,7 +206,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'mirror-03', name: 'Number and two dragons', family: 'mirror', points: 30, concealed: false,
+    id: 'mirror-03', name: 'Number and two dragons', family: 'mirror', value: 30, sealed: false,
     groups: [
       { size: 3, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 3, suit: 'B', rank: { var: 'n', offset: 0 } },
@@ -216,7 +216,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'mirror-04', name: 'Neighbours that match', family: 'mirror', points: 25, concealed: false,
+    id: 'mirror-04', name: 'Neighbours that match', family: 'mirror', value: 25, sealed: false,
     groups: [
       { size: 3, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 3, suit: 'B', rank: { var: 'n', offset: 0 } },
@@ -225,7 +225,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'compass-01', name: 'All four winds', family: 'compass', points: 25, concealed: false,
+    id: 'compass-01', name: 'All four winds', family: 'compass', value: 25, sealed: false,
     groups: [
       { size: 4, tile: 'wind-n' },
       { size: 3, tile: 'wind-e' },
@@ -234,7 +234,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'compass-02', name: 'Winds round a dragon pair', family: 'compass', points: 30, concealed: false,
+    id: 'compass-02', name: 'Winds round a dragon pair', family: 'compass', value: 30, sealed: false,
     groups: [
       { size: 3, tile: 'wind-n' },
       { size: 3, tile: 'wind-e' },
@@ -244,7 +244,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'compass-03', name: 'Dragon kongs and a north', family: 'compass', points: 30, concealed: false,
+    id: 'compass-03', name: 'Dragon kongs and a north', family: 'compass', value: 30, sealed: false,
     groups: [
       { size: 4, tile: 'dragon-red' },
       { size: 4, tile: 'dragon-green' },
@@ -253,7 +253,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'compass-04', name: 'Windrose in bloom', family: 'compass', points: 30, concealed: false,
+    id: 'compass-04', name: 'Windrose in bloom', family: 'compass', value: 30, sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 3, tile: 'wind-n' },
@@ -263,7 +263,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'compass-05', name: 'Winds beside a number', family: 'compass', points: 25, concealed: false,
+    id: 'compass-05', name: 'Winds beside a number', family: 'compass', value: 25, sealed: false,
     groups: [
       { size: 4, tile: 'wind-e' },
       { size: 4, tile: 'wind-w' },
@@ -272,7 +272,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'garden-01', name: 'Flower bed', family: 'garden', points: 30, concealed: false,
+    id: 'garden-01', name: 'Flower bed', family: 'garden', value: 30, sealed: false,
     groups: [
       { size: 5, tile: 'flower' },
       { size: 3, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -281,7 +281,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'garden-02', name: 'Flowers over evens', family: 'garden', points: 25, concealed: false,
+    id: 'garden-02', name: 'Flowers over evens', family: 'garden', value: 25, sealed: false,
     groups: [
       { size: 4, tile: 'flower' },
       { size: 3, suit: 'A', rank: 2 },
@@ -290,7 +290,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'garden-03', name: 'Flower sextet', family: 'garden', points: 35, concealed: false,
+    id: 'garden-03', name: 'Flower sextet', family: 'garden', value: 35, sealed: false,
     groups: [
       { size: 6, tile: 'flower' },
       { size: 4, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -298,7 +298,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'garden-04', name: 'Flowers and dragons', family: 'garden', points: 30, concealed: false,
+    id: 'garden-04', name: 'Flowers and dragons', family: 'garden', value: 30, sealed: false,
     groups: [
       { size: 5, tile: 'flower' },
       { size: 3, tile: 'dragon-red' },
@@ -307,7 +307,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'crowd-01', name: 'Quint, kong, quint', family: 'crowd', points: 40, concealed: false,
+    id: 'crowd-01', name: 'Quint, kong, quint', family: 'crowd', value: 40, sealed: false,
     groups: [
       { size: 5, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 4, suit: 'A', rank: { var: 'n', offset: 1 } },
@@ -315,7 +315,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'crowd-02', name: 'Twin quints', family: 'crowd', points: 40, concealed: false,
+    id: 'crowd-02', name: 'Twin quints', family: 'crowd', value: 40, sealed: false,
     groups: [
       { size: 4, tile: 'flower' },
       { size: 5, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -323,7 +323,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'crowd-03', name: 'Sextet between winds', family: 'crowd', points: 45, concealed: false,
+    id: 'crowd-03', name: 'Sextet between winds', family: 'crowd', value: 45, sealed: false,
     groups: [
       { size: 6, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 4, tile: 'wind-n' },
@@ -331,7 +331,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'crowd-04', name: 'Dragon quint', family: 'crowd', points: 40, concealed: false,
+    id: 'crowd-04', name: 'Dragon quint', family: 'crowd', value: 40, sealed: false,
     groups: [
       { size: 5, dragon: 'match', suit: 'A' },
       { size: 5, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -339,7 +339,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'quiet-01', name: 'Seven pairs climbing', family: 'quiet', points: 50, concealed: true,
+    id: 'quiet-01', name: 'Seven pairs climbing', family: 'quiet', value: 50, sealed: true,
     groups: [
       { size: 2, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 2, suit: 'A', rank: { var: 'n', offset: 1 } },
@@ -351,7 +351,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'quiet-02', name: 'Paired neighbours in three suits', family: 'quiet', points: 50, concealed: true,
+    id: 'quiet-02', name: 'Paired neighbours in three suits', family: 'quiet', value: 50, sealed: true,
     groups: [
       { size: 2, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 2, suit: 'B', rank: { var: 'n', offset: 0 } },
@@ -363,7 +363,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'quiet-03', name: 'Odd singles, odd pairs', family: 'quiet', points: 45, concealed: true,
+    id: 'quiet-03', name: 'Odd singles, odd pairs', family: 'quiet', value: 45, sealed: true,
     groups: [
       { size: 1, suit: 'A', rank: 1 },
       { size: 1, suit: 'A', rank: 3 },
@@ -378,7 +378,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'quiet-04', name: 'One of each honour', family: 'quiet', points: 50, concealed: true,
+    id: 'quiet-04', name: 'One of each honour', family: 'quiet', value: 50, sealed: true,
     groups: [
       { size: 1, tile: 'wind-n' },
       { size: 1, tile: 'wind-e' },
@@ -394,7 +394,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'edges-01', name: 'Bookends', family: 'edges', points: 25, concealed: false,
+    id: 'edges-01', name: 'Bookends', family: 'edges', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: 1 },
       { size: 4, suit: 'A', rank: 9 },
@@ -403,7 +403,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'edges-02', name: 'Bookends and dragons', family: 'edges', points: 30, concealed: false,
+    id: 'edges-02', name: 'Bookends and dragons', family: 'edges', value: 30, sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 3, suit: 'A', rank: 1 },
@@ -413,7 +413,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'squares-01', name: 'Square numbers', family: 'squares', points: 25, concealed: false,
+    id: 'squares-01', name: 'Square numbers', family: 'squares', value: 25, sealed: false,
     groups: [
       { size: 3, tile: 'flower' },
       { size: 3, suit: 'A', rank: 1 },
@@ -422,7 +422,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'squares-02', name: 'Squares in three suits', family: 'squares', points: 30, concealed: false,
+    id: 'squares-02', name: 'Squares in three suits', family: 'squares', value: 30, sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 4, suit: 'A', rank: 1 },
@@ -431,7 +431,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'squares-03', name: 'Paired squares', family: 'squares', points: 45, concealed: true,
+    id: 'squares-03', name: 'Paired squares', family: 'squares', value: 45, sealed: true,
     groups: [
       { size: 2, suit: 'A', rank: 1 },
       { size: 2, suit: 'A', rank: 4 },
@@ -443,7 +443,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'primes-01', name: 'Prime pungs', family: 'primes', points: 30, concealed: false,
+    id: 'primes-01', name: 'Prime pungs', family: 'primes', value: 30, sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 3, suit: 'A', rank: 2 },
@@ -453,7 +453,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'primes-02', name: 'Primes in two suits', family: 'primes', points: 25, concealed: false,
+    id: 'primes-02', name: 'Primes in two suits', family: 'primes', value: 25, sealed: false,
     groups: [
       { size: 4, suit: 'A', rank: 2 },
       { size: 3, suit: 'A', rank: 3 },
@@ -462,7 +462,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'tens-01', name: 'Make ten twice', family: 'tens', points: 25, concealed: false,
+    id: 'tens-01', name: 'Make ten twice', family: 'tens', value: 25, sealed: false,
     groups: [
       { size: 3, suit: 'A', rank: 3 },
       { size: 3, suit: 'A', rank: 7 },
@@ -471,7 +471,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'tens-02', name: 'Tens beside a dragon', family: 'tens', points: 30, concealed: false,
+    id: 'tens-02', name: 'Tens beside a dragon', family: 'tens', value: 30, sealed: false,
     groups: [
       { size: 3, suit: 'A', rank: 2 },
       { size: 3, suit: 'A', rank: 8 },
@@ -481,7 +481,7 @@ export const starterPatterns: Pattern[] = [
     ],
   },
   {
-    id: 'tens-03', name: 'Ten by pairs', family: 'tens', points: 45, concealed: true,
+    id: 'tens-03', name: 'Ten by pairs', family: 'tens', value: 45, sealed: true,
     groups: [
       { size: 2, suit: 'A', rank: 1 },
       { size: 2, suit: 'A', rank: 9 },

@@ -155,21 +155,22 @@ export function PatternEditor({ pattern, onChange, errors }: Props) {
         <TextField label="Pattern name" value={pattern.name} onChange={(e) => set({ name: e.target.value })} error={errors.name} />
         <TextField label="Family" hint="A word that groups related patterns." value={pattern.family} onChange={(e) => set({ family: e.target.value })} error={errors.family} />
         <TextField
-          label="Points"
+          label="Value"
+          hint="What finishing it is worth, 0 to 1000. Rackside's own list runs from 10 to 100: the rarer the hand, the more it is worth."
           type="number"
           inputMode="numeric"
           min={0}
           max={1000}
           value={Number.isFinite(patternValue(pattern)) ? patternValue(pattern) : ''}
-          onChange={(e) => set({ points: e.target.value === '' ? Number.NaN : Number(e.target.value) })}
-          error={errors.points}
+          onChange={(e) => set({ value: e.target.value === '' ? Number.NaN : Number(e.target.value) })}
+          error={errors.value}
         />
       </div>
       <label className="flex items-start gap-3">
-        <input type="checkbox" checked={buildsWithoutCalls(pattern)} onChange={(e) => set({ concealed: e.target.checked })} className="mt-1 h-6 w-6 shrink-0 accent-accent" />
+        <input type="checkbox" checked={buildsWithoutCalls(pattern)} onChange={(e) => set({ sealed: e.target.checked })} className="mt-1 h-6 w-6 shrink-0 accent-accent" />
         <span>
-          <span className="font-medium">Concealed</span>
-          <span className="block text-base text-ink-soft">The hand is built without exposing groups.</span>
+          <span className="font-medium">Sealed</span>
+          <span className="block text-base text-ink-soft">Build it from your own draws, no calls.</span>
         </span>
       </label>
 

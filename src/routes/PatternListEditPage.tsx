@@ -33,8 +33,8 @@ function freshPattern(patterns: Pattern[]): Pattern {
     id: `pattern-${String(n).padStart(2, '0')}`,
     name: '',
     family: 'practice',
-    points: 25,
-    concealed: false,
+    value: 50,
+    sealed: false,
     groups: [
       { size: 2, tile: 'flower' },
       { size: 4, suit: 'A', rank: { var: 'n', offset: 0 } },
@@ -67,7 +67,7 @@ function ReadOnlyList({ list }: { list: PatternListDto }) {
           <li key={p.id}>
             <Card className="flex flex-col gap-2">
               <h2 className="font-semibold">
-                {p.name} <span className="font-normal text-ink-soft">· {p.family} · {patternValue(p)} points{buildsWithoutCalls(p) ? ' · concealed' : ''}</span>
+                {p.name} <span className="font-normal text-ink-soft">· {p.family} · value {patternValue(p)}{buildsWithoutCalls(p) ? ' · sealed: build it from your own draws, no calls' : ''}</span>
               </h2>
               <PatternTiles groups={p.groups} />
             </Card>

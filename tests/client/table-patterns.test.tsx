@@ -19,7 +19,7 @@ const harborList = {
   name: 'Harbor Lane steps list',
   patterns: [
     {
-      id: 'harbor-steps', name: 'Harbor steps', family: 'ladder', points: 25, concealed: false,
+      id: 'harbor-steps', name: 'Harbor steps', family: 'ladder', value: 25, sealed: false,
       groups: [{ size: 4, tile: 'bam1' }, { size: 4, tile: 'bam2' }, { size: 3, tile: 'bam3' }, { size: 3, tile: 'bam4' }],
     },
   ],

@@ -210,6 +210,31 @@ test('the pattern editor draws the pattern as tiles while it is built and puts s
   expect(sent.patterns[0].groups[1]).toEqual({ size: 5, dragon: 'match', suit: 'B' });
 });
 
+test('the pattern editor sets a value and the sealed mark, sent in today\'s field names; a list shows both', async () => {
+  const calls = stubApi({ ...teacher, 'POST /api/pattern-lists': { status: 400, body: { error: { code: 'BAD_INPUT', message: 'Look again.', fields: { 'patterns.0.value': 'A value is a whole number from 0 to 1000.' } } } } });
+  renderAt('/pattern-lists/new');
+  await userEvent.type(await screen.findByLabelText('List name'), 'Harbor Lane sealed');
+  const sealed = screen.getByRole('checkbox', { name: /^Sealed/ });
+  expect(sealed.closest('label')!.textContent).toBe('SealedBuild it from your own draws, no calls.');
+  expect(screen.queryByText(/concealed/i)).toBeNull();
+  await userEvent.click(sealed);
+  const value = screen.getByLabelText('Value');
+  await userEvent.clear(value);
+  await userEvent.type(value, '65');
+  await userEvent.click(screen.getByRole('button', { name: 'Make the list' }));
+  await waitFor(() => expect(value.getAttribute('aria-invalid')).toBe('true'));
+  const sent = calls.find((c) => c.key === 'POST /api/pattern-lists')!.body as { patterns: Record<string, unknown>[] };
+  expect(sent.patterns[0]).toMatchObject({ value: 65, sealed: true });
+  expect(sent.patterns[0]).not.toHaveProperty('points');
+  expect(sent.patterns[0]).not.toHaveProperty('concealed');
+
+  const shown = { ...starterSummary, patterns: [{ ...starterPatterns[0], id: 'x-01', name: 'Shown sealed', value: 85, sealed: true }] };
+  stubApi({ ...teacher, 'GET /api/pattern-lists/starter': { status: 200, body: { list: shown } } });
+  renderAt('/pattern-lists/starter');
+  const heading = await screen.findByRole('heading', { name: /^Shown sealed/ });
+  expect(heading.textContent).toBe(`Shown sealed · ${starterPatterns[0].family} · value 85 · sealed: build it from your own draws, no calls`);
+});
+
 test('a pattern-list upload shows the line at fault', async () => {
   const calls = stubApi({
     ...teacher,

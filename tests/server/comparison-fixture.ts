@@ -16,8 +16,8 @@ export const stepsPattern = {
   id: 'harbor-steps',
   name: 'Harbor steps',
   family: 'ladder',
-  points: 25,
-  concealed: false,
+  value: 25,
+  sealed: false,
   groups: [
     { size: 4, tile: 'bam1' },
     { size: 4, tile: 'bam2' },

@@ -84,9 +84,9 @@ test('editing and deleting my list; a list a drill uses is kept until the drill 
   const edited = await t.ines.put(`/api/pattern-lists/${made.id}`).send({ ...smallList, name: 'Renamed', patterns: [windsPattern] });
   expect(edited.status).toBe(200);
   expect(edited.body.list).toMatchObject({ name: 'Renamed', patternCount: 1 });
-  const invalid = await t.ines.put(`/api/pattern-lists/${made.id}`).send({ ...smallList, patterns: [{ ...windsPattern, points: -1 }] });
+  const invalid = await t.ines.put(`/api/pattern-lists/${made.id}`).send({ ...smallList, patterns: [{ ...windsPattern, value: -1 }] });
   expect(invalid.status).toBe(400);
-  expect(Object.keys(invalid.body.error.fields)).toEqual(['patterns.0.points']);
+  expect(Object.keys(invalid.body.error.fields)).toEqual(['patterns.0.value']);
   expect((await t.ines.get(`/api/pattern-lists/${made.id}`)).body.list.name).toBe('Renamed');
 
   const drill = await t.ines.post('/api/drills').send({ name: 'Uses it', seed: 'harbor-lane-week-01', patternListId: made.id });
@@ -121,15 +121,15 @@ test('the starter list goes out as JSON and CSV and both come back as the same p
   expect(json.headers['content-type']).toMatch(/^application\/json/);
   expect(json.headers['content-disposition']).toBe('attachment; filename="starter-list.rackside-patterns.json"');
   const file = JSON.parse(json.text);
-  expect(file).toMatchObject({ format: 'rackside-pattern-list', version: 1, name: 'Starter list' });
+  expect(file).toMatchObject({ format: 'rackside-pattern-list', version: 2, name: 'Starter list' });
 
   const csv = await t.ines.get('/api/pattern-lists/starter/export?format=csv');
   expect(csv.headers['content-type']).toMatch(/^text\/csv/);
   expect(csv.text.split('\n').slice(0, 4)).toEqual([
-    'rackside-pattern-list,1',
+    'rackside-pattern-list,2',
     'name,Starter list',
     expect.stringMatching(/^description,/),
-    'id,name,family,points,concealed,size,tile,suit,rank,dragon',
+    'id,name,family,value,sealed,size,tile,suit,rank,dragon',
   ]);
   expect((await t.ines.get('/api/pattern-lists/starter/export?format=xml')).status).toBe(400);
 
@@ -153,9 +153,9 @@ test('a CSV download keeps formula-like names as text, and reads them back uncha
 });
 
 const goodCsv = [
-  'rackside-pattern-list,1',
+  'rackside-pattern-list,2',
   'name,Harbor Lane CSV list',
-  'id,name,family,points,concealed,size,tile,suit,rank,dragon',
+  'id,name,family,value,sealed,size,tile,suit,rank,dragon',
   'harbor-01,Harbor winds,compass,25,no,2,flower,,,',
   'harbor-01,,,,,3,wind-n,,,',
   'harbor-01,,,,,3,wind-e,,,',
@@ -167,12 +167,12 @@ const goodCsv = [
   'step-01,,,,,3,,bam,9,',
 ].join('\n');
 
-test('a hand-written CSV list imports with its ranks, dragons and concealed flags', async () => {
+test('a hand-written CSV list imports with its ranks, dragons and sealed marks', async () => {
   const res = await upload(t.ines, '/api/pattern-lists/import', goodCsv, 'harbor.csv');
   expect(res.status).toBe(201);
   expect(res.body.list.patterns[0]).toEqual(windsPattern);
   expect(res.body.list.patterns[1]).toEqual({
-    id: 'step-01', name: 'Two steps', family: 'ladder', points: 30, concealed: true,
+    id: 'step-01', name: 'Two steps', family: 'ladder', value: 30, sealed: true,
     groups: [
       { size: 4, suit: 'A', rank: { var: 'n', offset: 0 } },
       { size: 4, suit: 'A', rank: { var: 'n', offset: 1 } },
@@ -191,10 +191,10 @@ test('a broken CSV file is refused with the line and column at fault, and nothin
     ['split rows', [...lines, 'harbor-01,,,,,1,flower,,,'].join('\n'), /^line 13, column id: Pattern "harbor-01" already ended above/],
     ['an unknown column', lines.map((l, i) => (i === 2 ? `${l},colour` : l)).join('\n'), /^line 3: The header row has unknown columns: "colour"/],
     ['a wrong first line', ['some-other-list,1', ...lines.slice(1)].join('\n'), /^line 1: This is not a Rackside pattern-list file/],
-    ['a newer version', ['rackside-pattern-list,2', ...lines.slice(1)].join('\n'), /^line 1: This file is version 2/],
+    ['a newer version', ['rackside-pattern-list,3', ...lines.slice(1)].join('\n'), /^line 1: This file is version 3; this Rackside reads version 1 or 2/],
     ['an open quote', lines.map((l, i) => (i === 6 ? 'harbor-01,"Harbor,,,,3,,A,n,' : l)).join('\n'), /^line \d+: This line can't be read as CSV/],
     ['a tile and a suit at once', lines.map((l, i) => (i === 3 ? 'harbor-01,Harbor winds,compass,25,no,2,flower,A,,' : l)).join('\n'), /^line 4, column tile: Pattern "harbor-01", group 1: a group with a tile/],
-    ['concealed maybe', lines.map((l, i) => (i === 8 ? 'step-01,Two steps,ladder,30,maybe,4,,A,n,' : l)).join('\n'), /^line 9, column concealed: Pattern "step-01": concealed is yes or no/],
+    ['sealed maybe', lines.map((l, i) => (i === 8 ? 'step-01,Two steps,ladder,30,maybe,4,,A,n,' : l)).join('\n'), /^line 9, column sealed: Pattern "step-01": sealed is yes or no/],
   ];
   for (const [what, text, expected] of cases) {
     const res = await upload(t.ines, '/api/pattern-lists/import', text, 'harbor.csv');
@@ -207,7 +207,7 @@ test('a broken CSV file is refused with the line and column at fault, and nothin
 });
 
 test('a broken JSON file is refused with the line or field at fault, and nothing is saved', async () => {
-  const good = JSON.stringify({ format: 'rackside-pattern-list', version: 1, name: 'Harbor JSON', patterns: [windsPattern] }, null, 2);
+  const good = JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'Harbor JSON', patterns: [windsPattern] }, null, 2);
   const badGroup = structuredClone(windsPattern) as Record<string, unknown> & { groups: Record<string, unknown>[] };
   badGroup.groups[3] = { size: 3, suit: 'Q', rank: 4 };
   const cases: [string, string, RegExp][] = [
@@ -215,9 +215,9 @@ test('a broken JSON file is refused with the line or field at fault, and nothing
     ['a missing bracket', good.slice(0, -1), new RegExp(`^line ${good.split('\n').length}, column 1: The file ends inside an object`)],
     ['single quotes', good.replace('"Harbor JSON"', "'Harbor JSON'"), /^line 4, column 11: Strings take double quotes/],
     ['a wrong format', good.replace('rackside-pattern-list', 'tile-list'), /^format: This is not a Rackside pattern-list file/],
-    ['a bad group', JSON.stringify({ format: 'rackside-pattern-list', version: 1, name: 'x', patterns: [badGroup] }), /^patterns\[0\]\.groups\[3\]: Pattern "harbor-01", group 4 of 5: A group has a size and either a tile, a suit with a rank/],
-    ['no patterns', JSON.stringify({ format: 'rackside-pattern-list', version: 1, name: 'x', patterns: [] }), /^patterns: A list needs at least one pattern/],
-    ['an extra key', JSON.stringify({ format: 'rackside-pattern-list', version: 1, name: 'x', patterns: [windsPattern], owner: 'pat' }), /^owner: "owner" is not part of a pattern-list file/],
+    ['a bad group', JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'x', patterns: [badGroup] }), /^patterns\[0\]\.groups\[3\]: Pattern "harbor-01", group 4 of 5: A group has a size and either a tile, a suit with a rank/],
+    ['no patterns', JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'x', patterns: [] }), /^patterns: A list needs at least one pattern/],
+    ['an extra key', JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'x', patterns: [windsPattern], owner: 'pat' }), /^owner: "owner" is not part of a pattern-list file/],
     ['an empty file', '  ', /^line 1: The file is empty/],
   ];
   for (const [what, text, expected] of cases) {
@@ -252,8 +252,8 @@ test('uploads are limited in size, type and shape', async () => {
 test('a JSON file without its "format" or "version" is refused with a field error, not a server error', async () => {
   const cases: [string, Record<string, unknown>, string, RegExp][] = [
     ['no format and no version', { name: 'x', patterns: [windsPattern] }, 'format', /^This is not a Rackside pattern-list file: "format" must be "rackside-pattern-list"\./],
-    ['no version', { format: 'rackside-pattern-list', name: 'x', patterns: [windsPattern] }, 'version', /^"version" must be 1\./],
-    ['a version in words', { format: 'rackside-pattern-list', version: 'one', name: 'x', patterns: [windsPattern] }, 'version', /^"version" must be 1\./],
+    ['no version', { format: 'rackside-pattern-list', name: 'x', patterns: [windsPattern] }, 'version', /^"version" must be 1 or 2\./],
+    ['a version in words', { format: 'rackside-pattern-list', version: 'one', name: 'x', patterns: [windsPattern] }, 'version', /^"version" must be 1 or 2\./],
   ];
   for (const [what, file, field, expected] of cases) {
     const res = await upload(t.ines, '/api/pattern-lists/import', JSON.stringify(file), 'harbor.json');

@@ -7,8 +7,8 @@ export const windsPattern = {
   id: 'harbor-01',
   name: 'Harbor winds',
   family: 'compass',
-  points: 25,
-  concealed: false,
+  value: 25,
+  sealed: false,
   groups: [
     { size: 2, tile: 'flower' },
     { size: 3, tile: 'wind-n' },

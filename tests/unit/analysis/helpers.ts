@@ -11,7 +11,7 @@ export function rack(...parts: [TileKind, number][]): TileKind[] {
 }
 
 export function testPattern(id: string, groups: Group[], extra: Partial<Pattern> = {}): Pattern {
-  return { id, name: `Test ${id}`, family: 'test', points: 25, concealed: false, groups, ...extra };
+  return { id, name: `Test ${id}`, family: 'test', value: 25, sealed: false, groups, ...extra };
 }
 
 /**

@@ -46,7 +46,7 @@ test('the quiet family is concealed and made only of singles and pairs', () => {
   const quiet = starterPatterns.filter((p) => p.family === 'quiet');
   expect(quiet.length).toBeGreaterThan(0);
   for (const p of quiet) {
-    expect(p.concealed).toBe(true);
+    expect(p.sealed).toBe(true);
     expect(p.groups.every((g) => g.size < JOKER_MIN_GROUP)).toBe(true);
   }
 });
