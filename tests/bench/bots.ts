@@ -10,19 +10,27 @@
  *
  * Run: npm run bench:bots -- [--deals N] [--seed TEXT] [--list starter|teacher|both]
  *        [--measure odds|away] [--samples N] [--draws N] [--opponents multiples|RIGHT,ACROSS,LEFT]
- *        [--rotation every-seat|one-seat-per-deal]
+ *        [--rotation every-seat|one-seat-per-deal] [--workers N]
+ *
+ * Deals are independent, so they are split over --workers child processes (2 by default, for
+ * the two cores; 1 plays them in this process); the figures are the same for any count.
  */
 import cliProgress from 'cli-progress';
+import { fork } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { BOT_STRATEGIES, isBotStrategyId, starterPatterns, validatePatternList, type Pattern } from '../../shared/analysis';
 import {
   awayMeasure,
   DIRECTIONS,
   GOAL_COMPARISONS,
   oddsMeasure,
+  playDeal,
   runTournament,
   sameOpponents,
+  summarize,
   type CompletionOdds,
+  type DealResult,
   type Interval,
   type Measure,
   type Opponents,
@@ -63,6 +71,7 @@ const measureChoice = argValue('measure', 'odds');
 if (!['odds', 'away'].includes(measureChoice)) fail('--measure takes odds (finishing odds, tiles away beside) or away (tiles away alone).');
 const samples = wholeNumber('samples', '');
 const drawsLeft = wholeNumber('draws', '');
+const workers = wholeNumber('workers', '2')!;
 const rotation = argValue('rotation', 'every-seat') as Rotation;
 if (!['every-seat', 'one-seat-per-deal'].includes(rotation)) fail('--rotation takes every-seat or one-seat-per-deal.');
 
@@ -78,7 +87,7 @@ const ODDS_FILE = new URL('../../shared/analysis/odds.ts', import.meta.url);
 const TEACHER_FILE = new URL('../fixtures/teacher-list.json', import.meta.url);
 
 /** The odds measure when finishing odds exist in this tree; else tiles away alone, said out loud. */
-async function chooseMeasure(): Promise<{ measure: Measure; words: string }> {
+async function chooseMeasure(quiet: boolean): Promise<{ measure: Measure; words: string }> {
   if (measureChoice === 'odds') {
     if (existsSync(ODDS_FILE)) {
       const module = (await import(ODDS_FILE.href)) as { completionOdds?: CompletionOdds };
@@ -89,9 +98,9 @@ async function chooseMeasure(): Promise<{ measure: Measure; words: string }> {
           words: `finishing odds of the best pattern (completionOdds, ${how}, over the tiles the seat has not seen), tiles away beside`,
         };
       }
-      console.log('Note: shared/analysis/odds.ts exports no completionOdds; falling back to tiles away.');
+      if (!quiet) console.log('Note: shared/analysis/odds.ts exports no completionOdds; falling back to tiles away.');
     } else {
-      console.log('Note: shared/analysis/odds.ts is not in this tree yet; falling back to tiles away (--measure away).');
+      if (!quiet) console.log('Note: shared/analysis/odds.ts is not in this tree yet; falling back to tiles away (--measure away).');
     }
   }
   return { measure: awayMeasure, words: 'tiles away from the closest pattern (no finishing odds)' };
@@ -183,35 +192,85 @@ function report(list: NamedList, summary: TournamentSummary, seconds: number) {
 
 // ───────────── running ─────────────
 
-const { measure, words } = await chooseMeasure();
-const lists: NamedList[] = [];
-if (listChoice !== 'teacher') lists.push({ key: 'starter', name: 'Starter list', patterns: starterPatterns });
-if (listChoice !== 'starter') {
-  const teacher = loadTeacherList();
-  if (typeof teacher === 'string') console.log(`Note: ${teacher}`);
-  else lists.push(teacher);
+interface Job {
+  patterns: Pattern[];
+  indexes: number[];
 }
-if (lists.length === 0) fail('No list to play on.');
+type WorkerMessage = { deal: DealResult } | { done: true } | { error: string };
 
-const sameAround = DIRECTIONS.every((d) => opponents[d] === opponents.right);
-console.log(
-  [
-    `Bot tournament: ${deals} paired deals (seeds ${prefix}-0 … ${prefix}-${deals - 1}).`,
-    `Measured seat: ${rotation === 'every-seat' ? 'every deal is measured at all four seats' : 'deal i is measured at seat i mod 4'}; only its strategy changes between runs of a deal.`,
-    `Other seats: ${sameAround ? `all three ${strategyName(opponents.right)}` : DIRECTIONS.map((d) => `${d} of it ${strategyName(opponents[d])}`).join(', ')}; every bot seeded by deal and seat.`,
-    `Measure at the end of the Charleston: ${words}.`,
-    'Intervals: Student t, 95%, over deals (a deal’s figure is the mean over its measured seats).',
-  ].join('\n'),
-);
+/** A child process: plays the deals it is sent, one message per deal, with the measure the same flags choose. */
+async function runWorker() {
+  const { measure } = await chooseMeasure(true);
+  process.once('message', (job: Job) => {
+    try {
+      for (const index of job.indexes) {
+        process.send!({ deal: playDeal({ prefix, index, list: job.patterns, measure, opponents, rotation }) } satisfies WorkerMessage);
+      }
+      process.send!({ done: true } satisfies WorkerMessage, () => process.disconnect());
+    } catch (error) {
+      process.send!({ error: error instanceof Error ? (error.stack ?? error.message) : String(error) } satisfies WorkerMessage, () => process.disconnect());
+    }
+  });
+}
 
-for (const list of lists) {
-  const bar = new cliProgress.SingleBar(
-    { format: `${list.key} [{bar}] {value}/{total} deals · {duration_formatted}`, stream: process.stderr, hideCursor: true },
-    cliProgress.Presets.shades_classic,
+/** Deals i, i + w, i + 2w … go to worker i; the results are put back in deal order, so any worker count gives the same figures. */
+function playInWorkers(patterns: Pattern[], onDeal: (done: number) => void): Promise<DealResult[]> {
+  const results: DealResult[] = [];
+  const children = Array.from({ length: Math.min(workers, deals) }, (_, w) => {
+    const indexes = Array.from({ length: deals }, (_, i) => i).filter((i) => i % workers === w);
+    const child = fork(fileURLToPath(import.meta.url), [...process.argv.slice(2), '--worker'], { execArgv: ['--import', 'tsx'], stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
+    return new Promise<void>((done, failed) => {
+      child.on('message', (message: WorkerMessage) => {
+        if ('error' in message) return failed(new Error(message.error));
+        if ('done' in message) return;
+        results.push(message.deal);
+        onDeal(results.length);
+      });
+      child.on('exit', (code) => (code === 0 ? done() : failed(new Error(`A tournament worker stopped with exit code ${code}.`))));
+      child.send({ patterns, indexes } satisfies Job);
+    });
+  });
+  return Promise.all(children).then(() => results.sort((a, b) => a.index - b.index));
+}
+
+async function main() {
+  const { measure, words } = await chooseMeasure(false);
+  const lists: NamedList[] = [];
+  if (listChoice !== 'teacher') lists.push({ key: 'starter', name: 'Starter list', patterns: starterPatterns });
+  if (listChoice !== 'starter') {
+    const teacher = loadTeacherList();
+    if (typeof teacher === 'string') console.log(`Note: ${teacher}`);
+    else lists.push(teacher);
+  }
+  if (lists.length === 0) fail('No list to play on.');
+
+  const sameAround = DIRECTIONS.every((d) => opponents[d] === opponents.right);
+  console.log(
+    [
+      `Bot tournament: ${deals} paired deals (seeds ${prefix}-0 … ${prefix}-${deals - 1}), ${workers === 1 ? 'in this process' : `split over ${workers} processes`}.`,
+      `Measured seat: ${rotation === 'every-seat' ? 'every deal is measured at all four seats' : 'deal i is measured at seat i mod 4'}; only its strategy changes between runs of a deal.`,
+      `Other seats: ${sameAround ? `all three ${strategyName(opponents.right)}` : DIRECTIONS.map((d) => `${d} of it ${strategyName(opponents[d])}`).join(', ')}; every bot seeded by deal and seat.`,
+      `Measure at the end of the Charleston: ${words}.`,
+      'Intervals: Student t, 95%, over deals (a deal’s figure is the mean over its measured seats).',
+    ].join('\n'),
   );
-  const started = performance.now();
-  bar.start(deals, 0);
-  const { summary } = runTournament({ prefix, deals, list: list.patterns, measure, opponents, rotation, onDeal: (done) => bar.update(done) });
-  bar.stop();
-  report(list, summary, (performance.now() - started) / 1000);
+
+  for (const list of lists) {
+    const bar = new cliProgress.SingleBar(
+      { format: `${list.key} [{bar}] {value}/{total} deals · {duration_formatted}`, stream: process.stderr, hideCursor: true },
+      cliProgress.Presets.shades_classic,
+    );
+    const started = performance.now();
+    bar.start(deals, 0);
+    const onDeal = (done: number) => bar.update(done);
+    const played =
+      workers === 1
+        ? runTournament({ prefix, deals, list: list.patterns, measure, opponents, rotation, onDeal }).deals
+        : await playInWorkers(list.patterns, onDeal);
+    bar.stop();
+    report(list, summarize(played), (performance.now() - started) / 1000);
+  }
 }
+
+if (process.argv.includes('--worker')) await runWorker();
+else await main();
