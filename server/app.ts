@@ -56,7 +56,7 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   const onTableChange = new Set<(master: TableMaster, fromPeer?: boolean) => void>();
   // One owner per table, shared by the REST routes and the sockets.
   const events = createEventWriter(sequelize);
-  const registry = new TableRegistry({ botDelayMs: config.botDelayMs, events, changed: (master, fromPeer) => onTableChange.forEach((fn) => fn(master, fromPeer)) });
+  const registry = new TableRegistry({ botDelayMs: config.botDelayMs, seatGraceMs: config.seatGraceMs, events, changed: (master, fromPeer) => onTableChange.forEach((fn) => fn(master, fromPeer)) });
 
   const teaching = teachingRoutes({ config, sequelize, registry, tableChanged: (master) => onTableChange.forEach((fn) => fn(master)) });
 

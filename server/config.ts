@@ -39,6 +39,8 @@ export interface Config {
   shutdownGraceMs: number;
   /** A table nobody is at and nothing is under way at leaves memory after this long, in ms (read back on demand). */
   tableIdleMs: number;
+  /** How long a seated player may be gone mid-exchange before a bot may take the seat (the host's, by itself), in ms. */
+  seatGraceMs: number;
   /**
    * Map stack traces to the TypeScript sources (SOURCE_MAPS; on outside production). The
    * database driver reads a stack on every query, and mapping it costs more than the query.
@@ -150,6 +152,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     botDelayMs: int(env.BOT_DELAY_MS, 600),
     shutdownGraceMs: int(env.SHUTDOWN_GRACE_MS, 200),
     tableIdleMs: int(env.TABLE_IDLE_MS, 2 * 60 * 1000),
+    seatGraceMs: int(env.SEAT_GRACE_MS, 60 * 1000),
     sourceMaps: bool(env.SOURCE_MAPS, !production),
     publicUrl: env.PUBLIC_URL || null,
     smtpUrl: env.SMTP_URL || null,

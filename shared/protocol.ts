@@ -121,8 +121,10 @@ export interface TableOptions {
 export type TableStatus = 'lobby' | 'playing' | 'done' | 'closed';
 
 export type SeatOccupant =
-  | { kind: 'user'; userId: number; displayName: string; connected: boolean }
-  | { kind: 'bot'; strategy: string; displayName: string };
+  /** `awaySince`: when a seated player's last connection closed (ISO), while they are gone. */
+  | { kind: 'user'; userId: number; displayName: string; connected: boolean; awaySince?: string | null }
+  /** `standsInFor`: the player this bot keeps the seat warm for; they can take it back. */
+  | { kind: 'bot'; strategy: string; displayName: string; standsInFor?: { userId: number; displayName: string } };
 
 export interface TableDto {
   id: string;

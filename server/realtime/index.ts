@@ -171,6 +171,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
       const n = (master.connected.get(socket.data.userId) ?? 0) + delta;
       if (n > 0) master.connected.set(socket.data.userId, n);
       else master.connected.delete(socket.data.userId);
+      master.presenceChanged();
     }
     if (redis && !closing) {
       // Who is here counts the sockets of every process: count again here, and have the others do so.
@@ -195,6 +196,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
         master.connected.clear();
         connected.forEach((n, userId) => master.connected.set(userId, n));
         master.spectators = spectators;
+        master.presenceChanged();
         broadcast(master);
       })
       .catch((err) => application.logger.warn({ tableId: master.id, error: (err as Error).message }, 'counting the sockets of every process failed'));

@@ -74,6 +74,8 @@ export interface MasterHooks {
    */
   changed(master: TableMaster, fromPeer?: boolean): void;
   botDelayMs: number;
+  /** How long a seated player may be gone mid-exchange before a bot may take the seat, in ms. */
+  seatGraceMs?: number;
   /** Where exchange events are stored, in groups. */
   events: EventWriter;
 }
@@ -327,6 +329,12 @@ export class TableMaster {
   private sitOnce(viewer: Member, seat: Seat): Promise<void> {
     return this.run(async () => {
       if (viewer.as !== 'player') throw new TableError('SPECTATOR', 'You joined to watch. Join as a player to take a seat.');
+      const warm = this.row.seats[seat];
+      if (this.row.status === 'playing' && warm?.kind === 'bot' && warm.standsInFor?.userId === viewer.userId) {
+        // Back from being away: the bot that kept this seat warm hands it back, rack and all.
+        await this.saveRow({ seats: { ...this.row.seats, [seat]: { kind: 'user', userId: viewer.userId, displayName: warm.standsInFor.displayName } } });
+        return;
+      }
       this.requireSeatChangesAllowed();
       const occupant = this.row.seats[seat];
       if (occupant?.kind === 'user' && occupant.userId === viewer.userId) return;
@@ -361,15 +369,77 @@ export class TableMaster {
       this.requireHost(viewer);
       if (!isBotStrategyId(strategy)) throw new TableError('BAD_INPUT', 'Unknown bot strategy.');
       const occupant = this.row.seats[seat];
+      const info = BOT_STRATEGIES.find((s) => s.id === strategy)!;
       if (occupant?.kind === 'user') {
-        // A player who is still here keeps the seat; one who left may be replaced.
+        // A player who is still here keeps the seat; one who left may be replaced once the grace time is over.
         if (this.row.status !== 'playing' || this.connected.has(occupant.userId)) {
           throw new TableError('SEAT_TAKEN', `${occupant.displayName} is sitting ${seat}. A bot can only replace a player who has left during an exchange.`);
         }
+        const wait = this.graceLeft(occupant.userId);
+        if (wait > 0) {
+          throw new TableError('GRACE_TIME', `${occupant.displayName} may be back soon: a bot can take the ${seat} seat in ${Math.ceil(wait / 1000)} s.`);
+        }
+        await this.saveRow({ seats: { ...this.row.seats, [seat]: this.standIn(occupant, strategy, info.name) } });
+        return;
       }
-      const info = BOT_STRATEGIES.find((s) => s.id === strategy)!;
       await this.saveRow({ seats: { ...this.row.seats, [seat]: { kind: 'bot', strategy, displayName: `${info.name} (bot, ${seat})` } } });
     });
+  }
+
+  // ───────────── who is away ─────────────
+
+  private awaySince = new Map<number, number>();
+  private readonly loadedAt = Date.now();
+  private handOffTimer: NodeJS.Timeout | null = null;
+
+  private get seatGraceMs() {
+    return this.hooks.seatGraceMs ?? 60_000;
+  }
+
+  /** When a seated player's last connection closed; a table read back after a restart counts from then. */
+  awayTime(userId: number): number | null {
+    if (this.connected.has(userId)) return null;
+    return this.awaySince.get(userId) ?? this.loadedAt;
+  }
+
+  /** How long, in ms, until a bot may take this player's seat (0: now). */
+  private graceLeft(userId: number, now = Date.now()): number {
+    const since = this.awayTime(userId);
+    return since === null ? 0 : Math.max(0, since + this.seatGraceMs - now);
+  }
+
+  private standIn(occupant: { userId: number; displayName: string }, strategy: string, name: string) {
+    return { kind: 'bot' as const, strategy, displayName: `${name} (bot, for ${occupant.displayName})`, standsInFor: { userId: occupant.userId, displayName: occupant.displayName } };
+  }
+
+  /**
+   * Called whenever who is connected changes: notes when seated players go and come back, and if
+   * the host is the one gone mid-exchange, hands the host's seat to a bot once the grace time is
+   * over (nobody else could), which the host takes back on return.
+   */
+  presenceChanged(now = Date.now()) {
+    for (const seat of SEATS) {
+      const o = this.row.seats[seat];
+      if (o?.kind !== 'user') continue;
+      if (this.connected.has(o.userId)) this.awaySince.delete(o.userId);
+      else if (!this.awaySince.has(o.userId)) this.awaySince.set(o.userId, now);
+    }
+    if (this.handOffTimer) clearTimeout(this.handOffTimer);
+    this.handOffTimer = null;
+    const hostSeat = this.seatOf(this.row.hostId);
+    if (this.closed || this.row.status !== 'playing' || !hostSeat || this.connected.has(this.row.hostId)) return;
+    this.handOffTimer = setTimeout(() => {
+      this.handOffTimer = null;
+      this.run(async () => {
+        const seat = this.seatOf(this.row.hostId);
+        const o = seat ? this.row.seats[seat] : null;
+        if (this.closed || !seat || o?.kind !== 'user' || this.row.status !== 'playing' || this.graceLeft(o.userId) > 0) return;
+        await this.saveRow({ seats: { ...this.row.seats, [seat]: this.standIn(o, 'advised', 'Coach') } });
+      })
+        .then(() => this.hooks.changed(this))
+        .catch((err) => console.error(`Table ${this.id}: handing the host's seat to a bot failed`, err));
+    }, this.graceLeft(this.row.hostId, now));
+    this.handOffTimer.unref?.();
   }
 
   start(viewer: Member): Promise<void> {
@@ -782,6 +852,7 @@ export class TableMaster {
 
   close() {
     this.closed = true;
+    if (this.handOffTimer) clearTimeout(this.handOffTimer);
     this.botTimers.forEach((t) => clearTimeout(t));
     this.botTimers.clear();
   }
@@ -792,7 +863,8 @@ export class TableMaster {
     const o = this.row.seats[seat];
     if (!o) return null;
     if (o.kind === 'bot') return o;
-    return { ...o, connected: this.connected.has(o.userId) };
+    const since = this.row.status === 'playing' ? this.awayTime(o.userId) : null;
+    return { ...o, connected: this.connected.has(o.userId), awaySince: since === null ? null : new Date(since).toISOString() };
   }
 
   tableDto(forUserId: number | null): TableDto {

@@ -119,6 +119,8 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
   };
 
   const decided = voteResult(table);
+  const userId = useMe().data?.id;
+  const standIn = table.mySeat ? null : (SEATS.find((s) => { const o = table.seats[s].occupant; return o?.kind === 'bot' && o.standsInFor?.userId === userId; }) ?? null);
   return (
     <div className="flex flex-col gap-4">
       {view.phase === 'vote' && (
@@ -134,7 +136,26 @@ function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<t
           {decided}
         </p>
       )}
-      <TableTop table={table} centre={direction && view.passSize > 0 ? <PassArrow direction={direction} to={me ? seatTo(me, direction) : null} count={view.passSize} /> : null} />
+      {standIn && (
+        <div className="flex flex-wrap items-center gap-3 rounded-card border-2 border-accent bg-accent-soft p-3">
+          <p className="font-semibold">A bot kept your {standIn} seat while you were away.</p>
+          <Button kind="primary" disabled={busy} onClick={() => void run('table:sit', { seat: standIn })}>
+            Take back your seat
+          </Button>
+        </div>
+      )}
+      <TableTop
+        table={table}
+        seatExtra={(seat) => {
+          const who = table.seats[seat].occupant;
+          if (!table.isHost || table.status !== 'playing' || who?.kind !== 'user' || who.connected) return null;
+          return (
+            <Button disabled={busy} onClick={() => void run('table:bot', { seat, strategy: 'advised' })}>
+              Hand the {seat} seat to a bot
+            </Button>
+          );
+        }}
+        centre={direction && view.passSize > 0 ? <PassArrow direction={direction} to={me ? seatTo(me, direction) : null} count={view.passSize} /> : null} />
       {table.huddle.open && huddle}
       {me && (
         <section aria-labelledby="rack-title" className="flex flex-col gap-3 rounded-card border border-line/60 bg-card p-3 sm:p-4">

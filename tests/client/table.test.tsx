@@ -15,6 +15,8 @@ const socket = vi.hoisted(() => ({
 vi.mock('../../src/realtime/socket', () => socket);
 
 beforeEach(() => {
+  // Picks are kept in the tab per table and step; every test starts a fresh tab.
+  sessionStorage.clear();
   useTableStore.getState().reset();
   socket.send.mockClear();
   socket.joinTable.mockClear();
@@ -266,4 +268,19 @@ test('picks of a pass survive leaving the page and coming back until the pass re
   // Once the pass has resolved, the old picks are gone.
   push(tableState(passAll(fresh()), 'west', {}, 5));
   await waitFor(() => expect(tiles().filter((t) => t.getAttribute('aria-pressed') === 'true')).toHaveLength(0));
+});
+
+test('the host can hand an away player’s seat to a bot, and the player returning is offered the seat back', async () => {
+  const playing = tableState(fresh(), 'east', { isHost: true });
+  playing.seats.west.occupant = { kind: 'user', userId: 2, displayName: 'Theo Brandt', connected: false, awaySince: '2026-12-01T18:00:00Z' };
+  await showTable(playing);
+  await userEvent.click(screen.getByRole('button', { name: 'Hand the west seat to a bot' }));
+  expect(lastSend()).toEqual(['table:bot', { seat: 'west', strategy: 'advised' }]);
+
+  // Ruth (user 1, signed in) comes back to find a bot keeping her seat.
+  const back: TableStateDto = { ...tableState(fresh(), 'east'), mySeat: null, myRack: [], isHost: false, view: viewFor(fresh(), 'spectator') };
+  back.seats.east.occupant = { kind: 'bot', strategy: 'advised', displayName: 'Coach (bot, for Ruth Adeyemi)', standsInFor: { userId: 1, displayName: 'Ruth Adeyemi' } };
+  push({ ...back, version: 9 });
+  await userEvent.click(await screen.findByRole('button', { name: 'Take back your seat' }));
+  expect(lastSend()).toEqual(['table:sit', { seat: 'east' }]);
 });

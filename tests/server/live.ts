@@ -13,7 +13,7 @@ export type Server = Awaited<ReturnType<typeof startServer>> & { url: string };
 
 export async function liveServer(overrides: Partial<Config> = {}): Promise<Server> {
   const server = await startServer(
-    loadConfig({}, { port: 0, databaseUrl: 'sqlite::memory:', bcryptRounds: 4, seedDemo: false, sessionSecret: 'live-test', clientDir: 'none', botDelayMs: 0, shutdownGraceMs: 0, ...overrides }),
+    loadConfig({}, { port: 0, databaseUrl: 'sqlite::memory:', bcryptRounds: 4, seedDemo: false, sessionSecret: 'live-test', clientDir: 'none', botDelayMs: 0, shutdownGraceMs: 0, seatGraceMs: 0, ...overrides }),
   );
   return { ...server, url: `http://127.0.0.1:${(server.httpServer.address() as AddressInfo).port}` };
 }

@@ -4,7 +4,9 @@ import type { TableOptions, TableStatus } from '../../../shared/protocol';
 import type { TileKind } from '../../../shared/tiles';
 
 /** Who sits in a seat, as stored: a user or a bot. */
-export type StoredOccupant = { kind: 'user'; userId: number; displayName: string } | { kind: 'bot'; strategy: string; displayName: string };
+/** A bot may stand in for a player who left mid-exchange; that player can take the seat back. */
+export type StandIn = { userId: number; displayName: string };
+export type StoredOccupant = { kind: 'user'; userId: number; displayName: string } | { kind: 'bot'; strategy: string; displayName: string; standsInFor?: StandIn };
 export type StoredSeats = Record<Seat, StoredOccupant | null>;
 /** Options as stored: a drill's preset racks are kept here and never leave the server. */
 export type StoredTableOptions = TableOptions & {
