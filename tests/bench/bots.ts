@@ -10,7 +10,7 @@
  *
  * Run: npm run bench:bots -- [--deals N] [--seed TEXT] [--list starter|teacher|both]
  *        [--measure odds|away] [--samples N] [--draws N] [--opponents multiples|RIGHT,ACROSS,LEFT]
- *        [--rotation every-seat|one-seat-per-deal] [--workers N]
+ *        [--rotation every-seat|one-seat-per-deal] [--workers N] [--teacher PATH]
  *
  * Deals are independent, so they are split over --workers child processes (2 by default, for
  * the two cores; 1 plays them in this process); the figures are the same for any count.
@@ -18,6 +18,7 @@
 import cliProgress from 'cli-progress';
 import { fork } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { BOT_STRATEGIES, isBotStrategyId, starterPatterns, validatePatternList, type Pattern } from '../../shared/analysis';
 import {
@@ -84,7 +85,9 @@ function parseOpponents(text: string): Opponents {
 const opponents = parseOpponents(argValue('opponents', 'multiples'));
 
 const ODDS_FILE = new URL('../../shared/analysis/odds.ts', import.meta.url);
-const TEACHER_FILE = new URL('../fixtures/teacher-list.json', import.meta.url);
+const TEACHER_DEFAULT = 'tests/fixtures/teacher-list.json';
+const teacherPath = argValue('teacher', TEACHER_DEFAULT);
+const TEACHER_FILE = teacherPath === TEACHER_DEFAULT ? fileURLToPath(new URL('../fixtures/teacher-list.json', import.meta.url)) : resolve(teacherPath);
 
 /** The odds measure when finishing odds exist in this tree; else tiles away alone, said out loud. */
 async function chooseMeasure(quiet: boolean): Promise<{ measure: Measure; words: string }> {
@@ -113,21 +116,21 @@ interface NamedList {
 }
 
 function loadTeacherList(): NamedList | string {
-  if (!existsSync(TEACHER_FILE)) return 'tests/fixtures/teacher-list.json is not in this tree yet; the teacher list is skipped.';
+  if (!existsSync(TEACHER_FILE)) return `${teacherPath} was not found; the teacher list is skipped.`;
   const text = readFileSync(TEACHER_FILE, 'utf8');
   try {
     const data: unknown = JSON.parse(text);
     if (Array.isArray(data)) {
       const errors = validatePatternList(data);
-      if (errors.length) return `tests/fixtures/teacher-list.json has problems, so it is skipped:\n  ${errors.slice(0, 5).join('\n  ')}`;
-      return { key: 'teacher', name: 'Teacher list (tests/fixtures/teacher-list.json)', patterns: data as Pattern[] };
+      if (errors.length) return `${teacherPath} has problems, so it is skipped:\n  ${errors.slice(0, 5).join('\n  ')}`;
+      return { key: 'teacher', name: `Teacher list (${teacherPath})`, patterns: data as Pattern[] };
     }
     const file = readPatternListJson(text);
-    return { key: 'teacher', name: `${file.name} (tests/fixtures/teacher-list.json)`, patterns: file.patterns };
+    return { key: 'teacher', name: `${file.name} (${teacherPath})`, patterns: file.patterns };
   } catch (error) {
     const problems = (error as { problems?: { where: string; message: string }[] }).problems;
     const detail = problems ? problems.slice(0, 5).map((p) => `${p.where}: ${p.message}`).join('\n  ') : String(error);
-    return `tests/fixtures/teacher-list.json could not be read, so it is skipped:\n  ${detail}`;
+    return `${teacherPath} could not be read, so it is skipped:\n  ${detail}`;
   }
 }
 
