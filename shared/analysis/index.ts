@@ -19,3 +19,5 @@ export { advisePass, defaultMargin, DEFENCE, MAX_FOCUS, PASS_SIZE, passChoices, 
 export { summarizeRack, type RackSummary } from './summary';
 export { STARTER_FAMILIES, starterPatterns } from './starter-patterns';
 export * from './bots';
+export { COST_UNIT, DEFAULT_CALL_RATE, missingPrice, rankByPrice, type MissingPrice, type MissingTile, type PricedPattern } from './price';
+export { completionOdds, ODDS_DEFAULTS, type CompletionOdds, type OddsOptions } from './odds';
