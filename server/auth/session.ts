@@ -13,20 +13,25 @@ declare module 'express-session' {
   }
 }
 
-type StoredSession = session.SessionData & { cookie: { expires?: string | Date | null } };
-
 export function createSession(sequelize: Sequelize, config: Config) {
   const SequelizeStore = connectSessionSequelize(session.Store);
   const store = new SequelizeStore({ db: sequelize, expiration: config.sessionMaxAgeMs, checkExpirationInterval: 15 * 60 * 1000 });
 
   // The store's own sweep runs every 15 minutes; a session past its idle lifetime is refused at once.
-  const get = store.get.bind(store);
-  store.get = (sid: string, done: (err: unknown, data?: session.SessionData | null) => void) =>
-    get(sid, (err: unknown, data?: StoredSession | null) => {
-      const expires = data?.cookie?.expires ? new Date(data.cookie.expires).getTime() : Infinity;
-      if (err || !data || expires > Date.now()) return done(err, data);
-      store.destroy(sid, () => done(null, null));
-    });
+  // The deadline is the row's `expires` column, which every request moves on (the store's touch);
+  // the cookie expiry saved inside the session data moves only when the session itself changes.
+  const rows = (store as unknown as { sessionModel: { findOne(q: object): Promise<{ data: string; expires: Date | string | null } | null> } }).sessionModel;
+  store.get = (sid: string, done: (err: unknown, data?: session.SessionData | null) => void) => {
+    rows
+      .findOne({ where: { sid } })
+      .then((row) => {
+        if (!row) return done(null, null);
+        const expires = row.expires ? new Date(row.expires).getTime() : Infinity;
+        if (expires > Date.now()) return done(null, JSON.parse(row.data) as session.SessionData);
+        store.destroy(sid, () => done(null, null));
+      })
+      .catch((err: unknown) => done(err));
+  };
 
   const middleware = session({
     name: SESSION_COOKIE,
