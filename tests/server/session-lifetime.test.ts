@@ -32,7 +32,7 @@ async function app() {
   return { t, cookie: sessionCookie(login)!.split(';')[0] };
 }
 
-test('a session idle past its lifetime is refused, and stays refused with the old cookie replayed', async () => {
+test('ASVS 7.3.1: a session idle past its lifetime is refused, and stays refused with the old cookie replayed', async () => {
   const { t, cookie } = await app();
   const idle = t.config.sessionMaxAgeMs;
   const me = () => request(t.app).get('/api/auth/me').set('Cookie', cookie);
@@ -58,7 +58,7 @@ test('each request pushes the idle deadline on', async () => {
   expect((await me()).status).toBe(200);
 });
 
-test('a session ends at its absolute lifetime however active it is, on REST and on the socket', async () => {
+test('ASVS 7.3.2: a session ends at its absolute lifetime however active it is, on REST and on the socket', async () => {
   // An idle lifetime longer than the absolute one, so only the absolute deadline can end the session.
   const server = await liveServer({ sessionMaxAgeMs: 24 * 60 * MINUTE });
   disposers.push(() => server.close());

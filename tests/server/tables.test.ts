@@ -129,7 +129,9 @@ test('no client ever receives a tile id its seat was never dealt or passed, unti
   expect(host.state.options.seed).toBe('harbor-lane-week-03');
   for (const c of cs) {
     const own = new Set(c.states.flatMap((s) => s.myRack.map((t) => t.id)));
-    for (const s of c.states.filter((x) => x.phase !== 'done')) {
+    const during = c.states.filter((x) => x.phase !== 'done');
+    expect(during.length).toBeGreaterThan(0);
+    for (const s of during) {
       const ids = JSON.stringify(s).match(/"t\d+"/g) ?? [];
       for (const id of ids) expect(own.has(JSON.parse(id)), `${c.name} saw ${id} in ${s.phase}`).toBe(true);
     }
@@ -206,12 +208,11 @@ test('one person and three bots finish an exchange; the bots play by themselves'
   await ines.ok('table:bot', { seat: 'north', strategy: 'random' });
   expect(ines.state.seats.south.occupant).toMatchObject({ kind: 'bot', strategy: 'advised' });
   await ines.ok('table:start');
-  for (let turns = 0; turns < 20; turns++) {
-    const s = await ines.until((x) => x.phase === 'done' || simpleAction(x) !== null);
+  for (;;) {
+    const s = await ines.until((x) => x.phase === 'done' || simpleAction(x) !== null, 10_000);
     if (s.phase === 'done') break;
-    const ack = await ines.emit('exchange:act', { action: simpleAction(s, { stop: false, ask: 1 }) });
-    // A bot's stop vote may close the vote between our look and our answer.
-    if (!ack.ok) expect(ack.code).toBe('WRONG_PHASE');
+    // Bots wait for the person's vote, so every move she is asked for is hers to make.
+    await ines.ok('exchange:act', { action: simpleAction(s, { stop: false, ask: 1 }) });
   }
   expect(ines.state.phase).toBe('done');
   expect(ines.state.myRack).toHaveLength(14);
