@@ -2,7 +2,8 @@ import { create } from 'zustand';
 import type { ChatMessageDto, TableStateDto } from '../../shared/protocol';
 import { receivedAnnouncement } from './announce';
 
-export type Connection = 'idle' | 'connecting' | 'online' | 'offline';
+/** 'signed-out': the server refused this tab's session; nothing is retried until the person signs in again. */
+export type Connection = 'idle' | 'connecting' | 'online' | 'offline' | 'signed-out';
 
 interface TableStore {
   table: TableStateDto | null;

@@ -1,8 +1,12 @@
-import { useEffect } from 'react';
-import { Link, NavLink, Outlet, useMatches, useNavigate } from 'react-router-dom';
-import { useMe, useSignOut } from '../api/auth';
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useRef } from 'react';
+import { Link, NavLink, Outlet, useLocation, useMatches, useNavigate } from 'react-router-dom';
+import { meQuery, useMe, useSignOut } from '../api/auth';
+import { onSessionEnded, useSignedOutNotice } from '../api/sessionEnd';
 import { Button } from '../components/Button';
+import { Card } from '../components/Card';
 import { TEXT_SIZES, usePreferences, type TextSize } from '../preferences';
+import { signInPath } from './returnPath';
 
 const SIZE_LABELS: Record<TextSize, string> = { standard: 'A', large: 'A+', largest: 'A++' };
 
@@ -33,10 +37,66 @@ function TextSizePicker() {
 const navClass = ({ isActive }: { isActive: boolean }) =>
   `rounded-md px-3 py-2 font-medium no-underline ${isActive ? 'bg-accent-soft text-ink underline' : 'text-ink hover:bg-accent-soft'}`;
 
+/** Said in place of the page when the session this tab used has ended elsewhere. */
+function SignedOut({ at }: { at: string }) {
+  return (
+    <Card className="mx-auto max-w-lg">
+      <h1 className="mb-3 text-title font-semibold">You were signed out</h1>
+      <p className="mb-4">Rackside no longer knows this tab as you: you signed out in another tab or window, or your session ran out. Nothing on this page was lost on the server.</p>
+      <p>
+        <Link to={signInPath(at)} className="font-semibold">
+          Sign in again
+        </Link>{' '}
+        <span className="text-ink-soft">to come back to this page.</span>
+      </p>
+    </Card>
+  );
+}
+
+/**
+ * Hears that the session ended (a 401 from the API, a socket refused at its handshake) and, for a tab
+ * that was signed in, puts "You were signed out" in place of the page it is on.
+ */
+function useSessionEndNotice(): string | null {
+  const queryClient = useQueryClient();
+  const location = useLocation();
+  const here = `${location.pathname}${location.search}`;
+  const hereRef = useRef(here);
+  const endedAt = useSignedOutNotice((s) => s.at);
+  useEffect(() => {
+    hereRef.current = here;
+  }, [here]);
+  useEffect(
+    () =>
+      onSessionEnded(() => {
+        // A visitor who was never signed in hears 401s too: that is no news to them.
+        if (!queryClient.getQueryData(meQuery.queryKey)) return;
+        useSignedOutNotice.getState().mark(hereRef.current);
+      }),
+    [queryClient],
+  );
+  // The page is already replaced by the notice when the cache forgets the user, so no page sees itself signed out first.
+  useEffect(() => {
+    if (endedAt === null) return;
+    if (queryClient.getQueryData(meQuery.queryKey)) {
+      queryClient.setQueryData(meQuery.queryKey, null);
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'me' });
+    }
+  }, [endedAt, queryClient]);
+  // Going anywhere else (signing in, another page) ends the notice.
+  useEffect(() => {
+    if (endedAt !== null && endedAt !== here) useSignedOutNotice.getState().clear();
+  }, [endedAt, here]);
+  return endedAt !== null && endedAt === here ? endedAt : null;
+}
+
 export function Layout() {
-  const { data: me } = useMe();
+  const { data: cachedMe } = useMe();
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const location = useLocation();
+  const endedAt = useSessionEndNotice();
+  const me = endedAt === null ? cachedMe : null;
   // The table and replay pages use the whole width of a laptop, so a rack fits on one line.
   const wide = useMatches().some((m) => (m.handle as { wide?: boolean } | undefined)?.wide);
   const width = wide ? 'max-w-[90rem]' : 'max-w-5xl';
@@ -102,7 +162,7 @@ export function Layout() {
                 Sign out
               </Button>
             ) : (
-              <Link to="/sign-in" className="font-semibold">
+              <Link to={signInPath(`${location.pathname}${location.search}`)} className="font-semibold">
                 Sign in
               </Link>
             )}
@@ -110,7 +170,7 @@ export function Layout() {
         </div>
       </header>
       <main id="main" className={`mx-auto w-full ${width} flex-1 px-4 py-8`}>
-        <Outlet />
+        {endedAt === null ? <Outlet /> : <SignedOut at={endedAt} />}
       </main>
     </div>
   );

@@ -1,27 +1,32 @@
 import { useState, type FormEvent } from 'react';
-import { Link, useNavigate } from 'react-router-dom';
+import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { useSignIn } from '../api/auth';
 import { ApiError } from '../api/client';
 import { Button } from '../components/Button';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { TextField } from '../components/TextField';
+import { safeReturnPath } from './returnPath';
 
 export function SignInPage() {
   const signIn = useSignIn();
   const navigate = useNavigate();
+  const [params] = useSearchParams();
+  // Where the person was before: `?next=/tables/abc`, a path on this site only.
+  const next = safeReturnPath(params.get('next'));
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
   const error = signIn.error instanceof ApiError ? signIn.error : null;
 
   function submit(event: FormEvent) {
     event.preventDefault();
-    signIn.mutate({ email, password }, { onSuccess: () => navigate('/') });
+    signIn.mutate({ email, password }, { onSuccess: () => navigate(next, { replace: true }) });
   }
 
   return (
     <Card className="mx-auto max-w-md">
       <h1 className="mb-6 text-title font-semibold">Sign in</h1>
+      {next !== '/' && <p className="mb-4 text-ink-soft">After signing in you go back to the page you were on.</p>}
       <form onSubmit={submit} noValidate className="flex flex-col gap-5">
         <FormMessage error>{error && !Object.keys(error.fields).length ? error.message : null}</FormMessage>
         <TextField label="E-mail" type="email" autoComplete="email" value={email} onChange={(e) => setEmail(e.target.value)} error={error?.fields.email} required />
