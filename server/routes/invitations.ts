@@ -7,6 +7,7 @@ import type { Config } from '../config';
 import { Enrollment, Invitation, Lesson, User } from '../db/models';
 import { HttpError } from '../errors';
 import { lessonDto } from '../services/lessons';
+import { replacedByNewer } from '../services/invitations';
 import { seatsTaken, seatTransaction } from '../services/seats';
 import { hashToken, readToken } from '../services/tokens';
 
@@ -39,6 +40,13 @@ export function invitationsRouter({ config, sequelize }: { config: Config; seque
       );
     }
     if (invitation.expiresAt.getTime() <= Date.now()) {
+      if (await replacedByNewer(invitation)) {
+        throw new HttpError(
+          410,
+          'INVITATION_REPLACED',
+          `This invitation was replaced by a newer one sent to ${emailHint(invitation.email)}; use the link in the latest e-mail from ${teacherName}.`,
+        );
+      }
       throw new HttpError(410, 'INVITATION_EXPIRED', `This invitation expired on ${day(invitation.expiresAt)}. Ask ${teacherName} to send you a new one.`);
     }
     return { invitation, lesson, teacherName };

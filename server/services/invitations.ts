@@ -63,6 +63,15 @@ async function claim(lessonId: number, email: string, expiresAt: Date, again = t
   }
 }
 
+/**
+ * Whether a later invitation to the same address for the same lesson exists (sent, or being sent):
+ * a resend ends the older links early, so such a link was replaced rather than left to expire.
+ */
+export async function replacedByNewer(invitation: Invitation): Promise<boolean> {
+  const newer = await Invitation.count({ where: { lessonId: invitation.lessonId, email: invitation.email, id: { [Op.gt]: invitation.id } } });
+  return newer > 0;
+}
+
 /** Marks an existing account as invited to the lesson; a place it already has (made a moment ago by a second request) is kept. */
 export async function enrollInvited(lessonId: number, userId: number): Promise<void> {
   await Enrollment.create({ lessonId, userId, status: 'invited' }).catch((err: unknown) => {

@@ -52,8 +52,8 @@ test('inviting the same address again later still sends a new link and ends the 
   const second = await inviteToken(ines, lesson.id, 'mina@harborlane.test');
   const third = await inviteToken(ines, lesson.id, 'mina@harborlane.test');
   expect(await mailsTo('mina@harborlane.test', 'invitation')).toHaveLength(3);
-  expect((await request(t.app).get(`/api/invitations/${first.token}`)).body.error.code).toBe('INVITATION_EXPIRED');
-  expect((await request(t.app).get(`/api/invitations/${second.token}`)).body.error.code).toBe('INVITATION_EXPIRED');
+  expect((await request(t.app).get(`/api/invitations/${first.token}`)).body.error.code).toBe('INVITATION_REPLACED');
+  expect((await request(t.app).get(`/api/invitations/${second.token}`)).body.error.code).toBe('INVITATION_REPLACED');
   expect((await request(t.app).get(`/api/invitations/${third.token}`)).status).toBe(200);
 });
 

@@ -152,8 +152,8 @@ test('expired, altered and superseded links are refused with a clear message', a
   const first = await inviteToken(ines, lesson.id, 'mina@harborlane.test');
   const second = await inviteToken(ines, lesson.id, 'mina@harborlane.test');
   const mina = await signedIn(t.app, 'mina@harborlane.test');
-  // Inviting again ends the older link.
-  expect((await mina.post(`/api/invitations/${first.token}/accept`)).body.error.code).toBe('INVITATION_EXPIRED');
+  // Inviting again ends the older link, and says it was replaced.
+  expect((await mina.post(`/api/invitations/${first.token}/accept`)).body.error.code).toBe('INVITATION_REPLACED');
 
   const [id, exp, nonce, sig] = second.token.split('.');
   const altered = [id, String(Number(exp) + 86400), nonce, sig].join('.');
