@@ -24,6 +24,7 @@ import { SEATS, seatTo, type Direction, type Seat } from '../seats';
 import { fullSet, type TileKind } from '../tiles';
 import { bestAway } from './away';
 import { createBot, type BotStrategyId } from './bots';
+import { completionOdds } from './odds';
 import type { Pattern } from './pattern';
 
 /** The strategies a tournament compares, from the weakest expected to the strongest. */
@@ -62,22 +63,28 @@ export interface MeasureContext {
 
 export type Measure = (rack: TileKind[], list: readonly Pattern[], context: MeasureContext) => SeatFigure;
 
-/** The finishing-odds function the odds measure is built on. */
-export type CompletionOdds = (
-  rack: TileKind[],
-  list: Pattern[],
-  options: { unseen?: TileKind[]; drawsLeft?: number; samples?: number; seed?: string },
+/** The finishing-odds function the odds measure is built on (completionOdds, or a stand-in in tests). */
+export type CompletionOddsFn = (
+  rack: readonly TileKind[],
+  list: readonly Pattern[],
+  options: { unseen?: readonly TileKind[]; drawsLeft?: number; samples?: number; seed?: string },
 ) => { patterns: { id: string; odds: number }[]; families: { family: string; odds: number }[] };
 
-/** Tiles away alone: the fallback when no finishing odds are at hand. */
+/** Tiles away alone: the fallback when finishing odds are not wanted. */
 export const awayMeasure: Measure = (rack, list) => ({ odds: null, away: bestAway(rack, list) });
 
+export interface OddsMeasureOptions {
+  /** Play-outs per rack; completionOdds's default when absent. */
+  samples?: number;
+  /** Draws the seat has left; completionOdds's default when absent. */
+  drawsLeft?: number;
+}
+
 /** Finishing odds of the best pattern (the highest odds of any pattern of the list), tiles away beside. */
-export function oddsMeasure(completionOdds: CompletionOdds, options: { samples?: number; drawsLeft?: number } = {}): Measure {
+export function oddsMeasure(options: OddsMeasureOptions = {}, odds: CompletionOddsFn = completionOdds): Measure {
   return (rack, list, { unseen, seed }) => {
-    const result = completionOdds(rack, [...list], { unseen, seed, samples: options.samples, drawsLeft: options.drawsLeft });
-    const odds = result.patterns.reduce((best, p) => Math.max(best, p.odds), 0);
-    return { odds, away: bestAway(rack, list) };
+    const result = odds(rack, list, { unseen, seed, samples: options.samples, drawsLeft: options.drawsLeft });
+    return { odds: result.patterns.reduce((best, p) => Math.max(best, p.odds), 0), away: bestAway(rack, list) };
   };
 }
 

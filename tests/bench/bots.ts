@@ -14,6 +14,7 @@
  *
  * Deals are independent, so they are split over --workers child processes (2 by default, for
  * the two cores; 1 plays them in this process); the figures are the same for any count.
+ * --measure away judges on tiles away alone, without finishing odds.
  */
 import cliProgress from 'cli-progress';
 import { fork } from 'node:child_process';
@@ -30,7 +31,6 @@ import {
   runTournament,
   sameOpponents,
   summarize,
-  type CompletionOdds,
   type DealResult,
   type Interval,
   type Measure,
@@ -38,6 +38,7 @@ import {
   type Rotation,
   type TournamentSummary,
 } from '../../shared/analysis/tournament';
+import { ODDS_DEFAULTS } from '../../shared/analysis/odds';
 import { SEATS } from '../../shared/seats';
 import { readPatternListJson } from '../../server/teaching/pattern-list-file';
 
@@ -84,29 +85,18 @@ function parseOpponents(text: string): Opponents {
 }
 const opponents = parseOpponents(argValue('opponents', 'multiples'));
 
-const ODDS_FILE = new URL('../../shared/analysis/odds.ts', import.meta.url);
 const TEACHER_DEFAULT = 'tests/fixtures/teacher-list.json';
 const teacherPath = argValue('teacher', TEACHER_DEFAULT);
 const TEACHER_FILE = teacherPath === TEACHER_DEFAULT ? fileURLToPath(new URL('../fixtures/teacher-list.json', import.meta.url)) : resolve(teacherPath);
 
-/** The odds measure when finishing odds exist in this tree; else tiles away alone, said out loud. */
-async function chooseMeasure(quiet: boolean): Promise<{ measure: Measure; words: string }> {
-  if (measureChoice === 'odds') {
-    if (existsSync(ODDS_FILE)) {
-      const module = (await import(ODDS_FILE.href)) as { completionOdds?: CompletionOdds };
-      if (typeof module.completionOdds === 'function') {
-        const how = [samples ? `${samples} samples` : 'its default samples', drawsLeft ? `${drawsLeft} draws` : 'its default draws'].join(', ');
-        return {
-          measure: oddsMeasure(module.completionOdds, { samples, drawsLeft }),
-          words: `finishing odds of the best pattern (completionOdds, ${how}, over the tiles the seat has not seen), tiles away beside`,
-        };
-      }
-      if (!quiet) console.log('Note: shared/analysis/odds.ts exports no completionOdds; falling back to tiles away.');
-    } else {
-      if (!quiet) console.log('Note: shared/analysis/odds.ts is not in this tree yet; falling back to tiles away (--measure away).');
-    }
-  }
-  return { measure: awayMeasure, words: 'tiles away from the closest pattern (no finishing odds)' };
+/** Finishing odds by default; tiles away alone behind --measure away. */
+function chooseMeasure(): { measure: Measure; words: string } {
+  if (measureChoice === 'away') return { measure: awayMeasure, words: 'tiles away from the closest pattern (no finishing odds: --measure away)' };
+  const how = [`${samples ?? ODDS_DEFAULTS.samples} samples`, `${drawsLeft ?? ODDS_DEFAULTS.drawsLeft} draws left`].join(', ');
+  return {
+    measure: oddsMeasure({ samples, drawsLeft }),
+    words: `odds of finishing the best pattern of the list (completionOdds, ${how}, over the tiles the seat has not seen: the full set less its rack), tiles away beside`,
+  };
 }
 
 interface NamedList {
@@ -202,8 +192,8 @@ interface Job {
 type WorkerMessage = { deal: DealResult } | { done: true } | { error: string };
 
 /** A child process: plays the deals it is sent, one message per deal, with the measure the same flags choose. */
-async function runWorker() {
-  const { measure } = await chooseMeasure(true);
+function runWorker() {
+  const { measure } = chooseMeasure();
   process.once('message', (job: Job) => {
     try {
       for (const index of job.indexes) {
@@ -237,7 +227,7 @@ function playInWorkers(patterns: Pattern[], onDeal: (done: number) => void): Pro
 }
 
 async function main() {
-  const { measure, words } = await chooseMeasure(false);
+  const { measure, words } = chooseMeasure();
   const lists: NamedList[] = [];
   if (listChoice !== 'teacher') lists.push({ key: 'starter', name: 'Starter list', patterns: starterPatterns });
   if (listChoice !== 'starter') {
@@ -275,5 +265,5 @@ async function main() {
   }
 }
 
-if (process.argv.includes('--worker')) await runWorker();
+if (process.argv.includes('--worker')) runWorker();
 else await main();

@@ -16,7 +16,7 @@ import {
   summarize,
   t975,
   unseenBy,
-  type CompletionOdds,
+  type CompletionOddsFn,
   type DealResult,
   type Opponents,
   type SeatFigure,
@@ -104,11 +104,11 @@ test('the measured seat has seen only its own rack: unseen is the full set minus
 
 test('the odds measure takes the best pattern’s odds, on the seat’s unseen tiles, with one seed per deal and seat', () => {
   const calls: { rack: TileKind[]; unseen: number; seed: string | undefined }[] = [];
-  const fake: CompletionOdds = (rack, list, options) => {
-    calls.push({ rack, unseen: options.unseen!.length, seed: options.seed });
+  const fake: CompletionOddsFn = (rack, list, options) => {
+    calls.push({ rack: [...rack], unseen: options.unseen!.length, seed: options.seed });
     return { patterns: list.map((p, i) => ({ id: p.id, odds: i === 2 ? 0.4 : 0.1 })), families: [] };
   };
-  const deal = playDeal({ prefix: 'odds', index: 3, list: starterPatterns, measure: oddsMeasure(fake), opponents: sameOpponents('multiples'), rotation: 'every-seat' });
+  const deal = playDeal({ prefix: 'odds', index: 3, list: starterPatterns, measure: oddsMeasure({}, fake), opponents: sameOpponents('multiples'), rotation: 'every-seat' });
   expect(deal.runs.every((r) => r.figure.odds === 0.4)).toBe(true);
   for (const call of calls) expect(call.unseen).toBe(SET_SIZE - call.rack.length);
   for (const seat of SEATS) {
