@@ -51,6 +51,14 @@ function SignInHere() {
   );
 }
 
+/** What happened to a link, in a heading; the server's message below it says what to do. */
+const REFUSAL_TITLES: Record<string, string> = {
+  INVITATION_REPLACED: 'This invitation was replaced',
+  INVITATION_EXPIRED: 'This invitation has expired',
+  INVITATION_USED: 'This invitation was already used',
+  INVITATION_INVALID: 'This invitation link does not work',
+};
+
 export function InvitationPage() {
   const token = useParams().token!;
   const navigate = useNavigate();
@@ -59,9 +67,10 @@ export function InvitationPage() {
   const accept = useAcceptInvitation(token);
   if (isPending || invitation.isPending) return <p role="status">Loading…</p>;
   if (invitation.error) {
+    const code = invitation.error instanceof ApiError ? invitation.error.code : '';
     return (
       <Card className="mx-auto max-w-xl">
-        <h1 className="mb-4 text-title font-semibold">This invitation cannot be used</h1>
+        <h1 className="mb-4 text-title font-semibold">{REFUSAL_TITLES[code] ?? 'This invitation cannot be used'}</h1>
         <FormMessage error>{invitation.error.message}</FormMessage>
         {me && (
           <p className="mt-4">

@@ -80,7 +80,7 @@ test('an expired invitation says so and what to do', async () => {
     'GET /api/invitations/1.2.3.4': { status: 410, body: { error: { code: 'INVITATION_EXPIRED', message: 'This invitation expired on Tue, 14 May 2030. Ask Ines Okafor to send you a new one.' } } },
   });
   renderAt('/invitations/1.2.3.4');
-  expect(await screen.findByRole('heading', { name: 'This invitation cannot be used' })).toBeTruthy();
+  expect(await screen.findByRole('heading', { name: 'This invitation has expired' })).toBeTruthy();
   expect(screen.getByRole('alert').textContent).toMatch(/Ask Ines Okafor to send you a new one/);
 });
 
