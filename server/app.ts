@@ -8,7 +8,8 @@ import type { Logger } from 'pino';
 import { absoluteLifetime, createSession } from './auth/session';
 import { createUserSessions } from './auth/user-sessions';
 import { log } from './log';
-import { refuseControlCharacters } from './security/control-characters';
+import { refuseControlCharacters, refuseControlInBodies } from './security/control-characters';
+import { setDealSecret } from './services/deal-seed';
 import { requireOwnOrigin } from './security/origin';
 import type { Config } from './config';
 import { errorHandler, notFoundApi } from './errors';
@@ -56,6 +57,7 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   const onTableChange = new Set<(master: TableMaster, fromPeer?: boolean) => void>();
   // One owner per table, shared by the REST routes and the sockets.
   const events = createEventWriter(sequelize);
+  setDealSecret(config.linkSecret);
   const registry = new TableRegistry({ botDelayMs: config.botDelayMs, seatGraceMs: config.seatGraceMs, events, changed: (master, fromPeer) => onTableChange.forEach((fn) => fn(master, fromPeer)) });
 
   const teaching = teachingRoutes({ config, sequelize, registry, tableChanged: (master) => onTableChange.forEach((fn) => fn(master)) });
@@ -67,6 +69,7 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   api.use('/payments/webhook', teaching.webhook);
   api.use(requireOwnOrigin(config));
   api.use(express.json({ limit: '100kb' }));
+  api.use(refuseControlInBodies);
   api.use(session.middleware);
   api.use(passport.initialize());
   api.use(passport.session());

@@ -13,6 +13,7 @@ import type { SessionData } from 'express-session';
 import { pastAbsoluteLifetime } from '../auth/session';
 import { isOwnOrigin } from '../security/origin';
 import { textOnlyParser } from './text-encoder';
+import { controlCharacterAt } from '../security/control-characters';
 
 interface SocketData {
   userId: number;
@@ -225,6 +226,11 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
         const ack = (typeof args[args.length - 1] === 'function' ? args.pop() : () => undefined) as (a: Ack) => void;
         if (closing) {
           ack({ ok: false, code: 'SHUTTING_DOWN', message: 'Rackside is restarting. Your table will be back in a moment; send that again then.' });
+          return;
+        }
+        const at = controlCharacterAt(args[0]);
+        if (at) {
+          ack({ ok: false, code: 'BAD_INPUT', message: `"${at}" holds a control character (such as NUL), which no Rackside text may hold. Remove it and send again.` });
           return;
         }
         const parsed = clientEventSchemas[event].safeParse(args[0] ?? {});

@@ -561,8 +561,9 @@ export class TableMaster {
       if (!seat || viewer.as !== 'player') throw new TableError('NOT_SEATED', 'Take a seat at this table to play.');
       const live = this.requireExchange();
       // A log grows only as far as real play takes it: a whole exchange is a few dozen moves a seat.
-      if (live.state.log.reduce((n, e) => n + ('seat' in e && e.seat === seat ? 1 : 0), 0) >= maxPerExchange) {
-        throw new TableError('TOO_MANY_MOVES', `Your seat has made ${maxPerExchange} moves in this exchange, far more than a Charleston needs. Commit your pass and let the table go on.`);
+      // Past the budget only take-backs are refused, so a seat can always still commit its choice.
+      if (action.type === 'withdraw' && live.state.log.reduce((n, e) => n + ('seat' in e && e.seat === seat ? 1 : 0), 0) >= maxPerExchange) {
+        throw new TableError('TOO_MANY_MOVES', `Your seat has made ${maxPerExchange} moves in this exchange, far more than a Charleston needs, so choices can no longer be taken back. Commit your pass and let the table go on.`);
       }
       // Only a move to another step makes a choice stale: other seats committing meanwhile does not.
       if (version !== undefined && version < this.stepVersion()) {

@@ -36,3 +36,29 @@ export const refuseControlCharacters: RequestHandler = (req, _res, next) => {
   }
   next();
 };
+
+/** Control characters that no text a person types holds: C0 except tab, line feed and carriage return, and DEL. */
+const TYPED_CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
+
+/**
+ * Where in a parsed JSON body or socket payload a string holds such a character (a path like
+ * "options.patternListId"), or null. Names, notes and ids alike: SQLite stops a string at NUL.
+ */
+export function controlCharacterAt(value: unknown, path = '', depth = 0): string | null {
+  if (typeof value === 'string') return TYPED_CONTROL.test(value) ? path || 'value' : null;
+  if (depth > 32 || !value || typeof value !== 'object') return null;
+  for (const [key, inner] of Object.entries(value)) {
+    const at = path ? `${path}.${key}` : key;
+    if (TYPED_CONTROL.test(key)) return at;
+    const found = controlCharacterAt(inner, at, depth + 1);
+    if (found) return found;
+  }
+  return null;
+}
+
+/** Refuses a JSON body with a control character in any of its strings, naming the field. */
+export const refuseControlInBodies: RequestHandler = (req, _res, next) => {
+  const at = controlCharacterAt(req.body);
+  if (at) throw new HttpError(400, 'BAD_INPUT', `"${at}" holds a control character (such as NUL), which no Rackside text may hold. Remove it and send again.`, { [at]: 'Remove the control character from this value.' });
+  next();
+};

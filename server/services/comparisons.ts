@@ -46,15 +46,19 @@ const round = (n: number) => Math.round(n * 100) / 100;
 export async function dealsStillToPlay(viewerId: number, hostIds: readonly number[]): Promise<Set<string>> {
   const open = new Set<string>();
   if (!hostIds.length) return open;
-  const tables = await TableRow.findAll({ where: { hostId: { [Op.in]: [...new Set(hostIds)] } }, attributes: ['id', 'seats', 'options', 'status'], limit: 500 });
+  const tables = await TableRow.findAll({ where: { hostId: { [Op.in]: [...new Set(hostIds)] } }, attributes: ['id', 'seats', 'options', 'status', 'currentExchangeId'], limit: 500 });
   const mine = tables.filter((t) => t.options.seed && SEATS.some((s) => t.seats[s]?.kind === 'user' && (t.seats[s] as { userId: number }).userId === viewerId));
   if (!mine.length) return open;
   const counts = (await ExchangeRow.count({ where: { tableId: { [Op.in]: mine.map((t) => t.id) } }, group: ['tableId'] })) as unknown as { tableId: string; count: number }[];
   const dealt = new Map(counts.map((c) => [c.tableId, Number(c.count)]));
+  // A deal under way is read as stored; the next deal of any other table is worked out as it will be dealt.
+  const current = mine.filter((t) => t.status === 'playing' && t.currentExchangeId).map((t) => t.currentExchangeId!);
+  const underWay = new Map((current.length ? await ExchangeRow.findAll({ where: { id: { [Op.in]: current } }, attributes: ['id', 'options'] }) : []).map((e) => [e.id, e.options]));
   for (const t of mine) {
-    const rounds = dealt.get(t.id) ?? 0;
-    const round = t.status === 'playing' ? Math.max(0, rounds - 1) : rounds;
-    open.add(dealKey({ seed: dealSeed(dealScope(t), t.options.seed!, round), jokers: t.options.jokers, racks: t.options.racks }, t.options.patternListId ?? 'starter'));
+    const listId = t.options.patternListId ?? 'starter';
+    const stored = t.status === 'playing' && t.currentExchangeId ? underWay.get(t.currentExchangeId) : undefined;
+    if (stored) open.add(dealKey(stored, listId));
+    else open.add(dealKey({ seed: dealSeed(dealScope(t), t.options.seed!, dealt.get(t.id) ?? 0), jokers: t.options.jokers, racks: t.options.racks }, listId));
   }
   return open;
 }

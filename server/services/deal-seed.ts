@@ -5,7 +5,7 @@
  * elsewhere deals other racks at anybody else's table, and a table dealing again never repeats a
  * deal whose replay is already out.
  */
-import { createHash, randomBytes } from 'node:crypto';
+import { createHmac, randomBytes } from 'node:crypto';
 import type { TableRow } from '../db/models';
 
 /** Where a seed name holds: the drill or lesson that gave it to its tables, else the table itself. */
@@ -13,9 +13,20 @@ export function dealScope(table: Pick<TableRow, 'id' | 'options'>): string {
   return table.options.dealScope ?? (table.options.drillId ? `drill:${table.options.drillId}` : `table:${table.id}`);
 }
 
+/**
+ * The key that makes derived seeds unguessable: without it, a seed name, a table id and a count
+ * of deals (all of which a player may know) would give away the table's next deal. Set once per
+ * process from LINK_SECRET (the same on every process); the default serves throwaway tests only.
+ */
+let secret = 'rackside-deal-key-for-tests';
+
+export function setDealSecret(key: string) {
+  secret = key;
+}
+
 /** The engine seed for deal number `round` (0 for the first) of a table, from its seed name. */
 export function dealSeed(scope: string, seedName: string, round: number): string {
-  const digest = createHash('sha256').update(JSON.stringify(['rackside-deal', scope, seedName, round])).digest('base64url');
+  const digest = createHmac('sha256', secret).update(JSON.stringify(['rackside-deal', scope, seedName, round])).digest('base64url');
   return `deal-${digest.slice(0, 32)}`;
 }
 

@@ -89,3 +89,20 @@ test('a control character in the query string (?seed=%00 and any other) answers 
   expect((await admin.get('/api/mail').query('to=%00@x.test')).status).toBe(400);
   expect((await admin.get('/api/comparisons').query('seed=harbor-lane-week-05')).status).not.toBe(400);
 });
+
+test('a control character in any string of a JSON body is refused with 400, naming the field, before any route reads it', async () => {
+  const t = await makeApp();
+  await createUser('ines@harborlane.test', 'teacher');
+  const ines = await signedIn(t.app, 'ines@harborlane.test');
+  try {
+    const table = await ines.post('/api/tables').send({ name: 't', options: { patternListId: 'a\u0000b' } });
+    expect(table.status).toBe(400);
+    expect(table.body.error.fields).toEqual({ 'options.patternListId': expect.any(String) });
+    expect((await ines.post('/api/tables').send({ name: 't', drillId: 'a\u0000b' })).status).toBe(400);
+    expect((await ines.post('/api/tables').send({ name: 'nul\u0000table' })).status).toBe(400);
+    // Line breaks and tabs are text people type: still welcome where a field takes them.
+    expect((await ines.post('/api/tables').send({ name: 'Tuesday\ttable' })).status).not.toBe(400);
+  } finally {
+    await t.dispose();
+  }
+});

@@ -3,6 +3,7 @@
  * deal only at the table (or drill, or lesson) it was given to, a table never deals the same seed
  * twice, and a replay is withheld while its reader still has that deal to play.
  */
+import { createHash } from 'node:crypto';
 import request from 'supertest';
 import { afterEach, beforeEach, expect, test } from 'vitest';
 import { createExchange, rackOf, replay } from '../../shared/exchange';
@@ -93,6 +94,10 @@ test('dealing again at a table with a fixed seed deals a new deal, so the finish
   expect(kinds(rackOf(createExchange(old.options), 'east'))).toBe(kinds(rackOf(replay(old.options, []), 'east')));
   expect(kinds(rackOf(createExchange(old.options), 'east'))).not.toBe(kinds(second.myRack));
   expect(second.options.seed).toBe('harbor-lane-week-01');
+  // Nor can a seat work the new deal out from what it has seen (the seed name, the table id, the count
+  // of deals): the derivation is keyed with a server secret.
+  const guess = `deal-${createHash('sha256').update(JSON.stringify(['rackside-deal', `table:${table.id}`, 'harbor-lane-week-01', 1])).digest('base64url').slice(0, 32)}`;
+  expect(kinds(rackOf(createExchange({ ...old.options, seed: guess }), 'east'))).not.toBe(kinds(second.myRack));
 });
 
 test('a seed name is no key to another table’s deal: the same name elsewhere deals other racks, and a seed comparison never confirms a seed', async () => {

@@ -47,15 +47,30 @@ test('a seat sending more moves than anyone plays is refused with a clear error,
 test('a seat has a budget of moves per exchange; past it, moves are refused and the log stops growing', async () => {
   const { host, clients: cs } = await dealt({ rateLimits: { ...testConfig().rateLimits, actions: { max: 1000, windowMs: 60_000 }, actionsPerExchange: 12 } });
   const acks = await toggles(host, 30);
-  expect(acks.filter((a) => a.ok)).toHaveLength(12);
-  const over = acks.filter((a) => !a.ok);
-  expect(over.length).toBe(18);
-  expect(over.every((a) => a.code === 'TOO_MANY_MOVES')).toBe(true);
-  expect(await ExchangeEventRow.count({ where: { exchangeId: host.state.exchangeId!, type: 'act' } })).toBe(12);
+  // Twelve moves, then the budget is spent: the next pass still commits (a seat is never locked out of
+  // choosing), and every take-back after it is refused, so the log stops growing.
+  expect(acks.filter((a) => a.ok)).toHaveLength(13);
+  expect(acks.slice(0, 13).every((a) => a.ok)).toBe(true);
+  const over = acks.slice(13);
+  expect(over.filter((a) => a.code === 'TOO_MANY_MOVES').length).toBeGreaterThan(0);
+  expect(over.every((a) => a.code === 'TOO_MANY_MOVES' || a.code === 'ALREADY_COMMITTED')).toBe(true);
+  expect(await ExchangeEventRow.count({ where: { exchangeId: host.state.exchangeId!, type: 'act' } })).toBe(13);
+  expect((await host.until((s) => s.view!.seats.east.committed)).view!.seats.east.committed).toBe(true);
+  expect(await host.emit('exchange:act', { action: { type: 'withdraw' } })).toMatchObject({ ok: false, code: 'TOO_MANY_MOVES' });
   // The other seats still play: the budget is each seat's own.
   const south = cs[1];
   const tiles = south.state.myRack.filter((t) => t.kind !== 'joker').slice(0, 3).map((t) => t.id);
   expect((await south.emit('exchange:act', { action: { type: 'pass', tiles } })).ok).toBe(true);
+});
+
+test('a control character in a socket payload is refused as bad input, naming the field', async () => {
+  server = await liveServer();
+  const { host } = await fullTable(server);
+  clients.push(host);
+  expect(await host.emit('table:join', { tableId: '\u0000', as: 'player' })).toMatchObject({ ok: false, code: 'BAD_INPUT' });
+  const chat = await host.emit('chat:send', { text: 'hello\u0000there' });
+  expect(chat).toMatchObject({ ok: false, code: 'BAD_INPUT' });
+  expect(chat.message).toMatch(/"text" holds a control character/);
 });
 
 test('message names every object has, and unknown ones, are answered UNKNOWN_EVENT', async () => {
