@@ -45,13 +45,22 @@ function Sticks({ n, colour }: { n: number; colour: string }) {
   );
 }
 
-function SlashedNumeral({ n, colour }: { n: number; colour: string }) {
+/** A bold numeral standing clear, with a fissure (a zigzag) of our own beside it, never across it. */
+function CrackedNumeral({ n, colour }: { n: number; colour: string }) {
   return (
     <g>
-      <line x1={16} y1={72} x2={48} y2={34} stroke={colour} strokeWidth={4} strokeLinecap="round" opacity={0.45} />
-      <text x={32} y={66} textAnchor="middle" fontSize={30} fontWeight={800} fill={colour}>
+      <text x={25} y={67} textAnchor="middle" fontSize={32} fontWeight={800} fill={colour} fontFamily="Work Sans, system-ui, sans-serif">
         {n}
       </text>
+      <polyline
+        data-mark="crack"
+        points="47,36 42,44 50,51 42,58 50,65 45,73"
+        fill="none"
+        stroke={colour}
+        strokeWidth={3.2}
+        strokeLinecap="round"
+        strokeLinejoin="round"
+      />
     </g>
   );
 }
@@ -111,7 +120,7 @@ function face(kind: TileKind): { index: string; sub?: string; colour: string; ma
   if (suit) {
     const n = rankOf(kind)!;
     const colour = SUIT_COLOURS[suit];
-    const mark = suit === 'dot' ? <Rings n={n} colour={colour} /> : suit === 'bam' ? <Sticks n={n} colour={colour} /> : <SlashedNumeral n={n} colour={colour} />;
+    const mark = suit === 'dot' ? <Rings n={n} colour={colour} /> : suit === 'bam' ? <Sticks n={n} colour={colour} /> : <CrackedNumeral n={n} colour={colour} />;
     return { index: String(n), sub: SUIT_LETTER[suit], colour, mark };
   }
   if (kind.startsWith('wind-')) return { index: WIND_LETTER[kind as WindKind], colour: TILE_INK, mark: <Compass kind={kind as WindKind} /> };

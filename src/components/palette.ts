@@ -1,13 +1,14 @@
 import { MATCHING_DRAGON, type DragonKind, type Suit } from '../../shared/tiles';
 
 /**
- * Suit colours, started from Okabe and Ito's colour-universal-design set and darkened until
- * each reaches 3:1 against the tile face; tests/client/palette.test.tsx checks both claims.
+ * Rackside's own suit colours: raspberry bams, cobalt cracks, umber dots. Chosen to stay far apart
+ * under simulated protanopia, deuteranopia and tritanopia and to read as text (4.5:1) on the tile
+ * face; tests/client/palette.test.tsx checks every claim.
  */
 export const SUIT_COLOURS: Readonly<Record<Suit, string>> = {
-  bam: '#00806a',
-  crack: '#c25400',
-  dot: '#3b2f8f',
+  bam: '#c2336a',
+  crack: '#1565c0',
+  dot: '#6b4a00',
 };
 
 export const TILE_FACE = '#fffdf7';
