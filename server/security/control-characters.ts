@@ -38,6 +38,7 @@ export const refuseControlCharacters: RequestHandler = (req, _res, next) => {
 };
 
 /** Control characters that no text a person types holds: C0 except tab, line feed and carriage return, and DEL. */
+// eslint-disable-next-line no-control-regex -- finding these characters is the point
 const TYPED_CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
 
 /**
