@@ -4,7 +4,7 @@ import { expect, test } from 'vitest';
 import { advisePass, countsOf, DEFENCE, passChoices, starterPatterns, tilesAway, type PassAdvice } from '../../../shared/analysis';
 import { PHASES } from '../../../shared/exchange';
 import { fullSet, TILE_KINDS, type TileKind } from '../../../shared/tiles';
-import { rack } from './helpers';
+import { rack, testPattern } from './helpers';
 
 const distinct13: TileKind[] = ['bam1', 'bam5', 'bam9', 'crack2', 'crack6', 'dot3', 'dot7', 'wind-n', 'wind-e', 'dragon-red', 'dragon-green', 'flower', 'dot9'];
 const distinct14: TileKind[] = [...distinct13, 'crack9'];
@@ -101,8 +101,17 @@ test('the best advice never costs more of the closest pattern than it must', () 
   );
 });
 
-// even-01 in dots with one spare north wind: 1 away.
-const evenClimb = starterPatterns.find((p) => p.id === 'even-01')!;
+// Kong 2, pung 4, pung 6, kong 8 in one suit; in dots with one spare north wind: 1 away.
+const evenClimb = testPattern(
+  'even-climb',
+  [
+    { size: 4, suit: 'A', rank: 2 },
+    { size: 3, suit: 'A', rank: 4 },
+    { size: 3, suit: 'A', rank: 6 },
+    { size: 4, suit: 'A', rank: 8 },
+  ],
+  { name: 'Even climb in one suit' },
+);
 const nearlyDone = [...rack(['dot2', 4], ['dot4', 3], ['dot6', 3], ['dot8', 3]), 'wind-n' as TileKind];
 
 test('a rack one tile away passes its spare tile', () => {
@@ -116,7 +125,7 @@ test('on a blind pass a rack one tile away sends its spare and forwards two blin
   expect(best).toMatchObject({ tiles: ['wind-n'], blind: 2 });
   expect(best.reasons).toContain('keeps every tile "Even climb in one suit" uses (1 away)');
   expect(best.reasons).toContain('forwards two arriving tiles blind, so you keep more of your own');
-  expect(best.toward).toEqual({ id: 'even-01', name: 'Even climb in one suit', away: 1 });
+  expect(best.toward).toEqual({ id: 'even-climb', name: 'Even climb in one suit', away: 1 });
 });
 
 test('a complete rack forwards all three blind when it may', () => {

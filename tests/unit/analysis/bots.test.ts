@@ -24,7 +24,7 @@ import {
 } from '../../../shared/exchange';
 import { SEATS, type Seat } from '../../../shared/seats';
 import type { TileKind } from '../../../shared/tiles';
-import { rack } from './helpers';
+import { rack, testPattern } from './helpers';
 
 const ids = BOT_STRATEGIES.map((s) => s.id);
 
@@ -138,23 +138,31 @@ function viewWith(kinds: TileKind[], phase: Phase, extra: Partial<ExchangeView> 
   };
 }
 
-const complete = rack(['dot2', 4], ['dot4', 3], ['dot6', 3], ['dot8', 3]); // even-01 less one 8: 1 away on 13 tiles
+// Kong 2, pung 4, pung 6, kong 8 in one suit, beside the starter list: `complete` is it less one 8, 1 away on 13 tiles.
+const evenClimb = testPattern('even-climb', [
+  { size: 4, suit: 'A', rank: 2 },
+  { size: 3, suit: 'A', rank: 4 },
+  { size: 3, suit: 'A', rank: 6 },
+  { size: 4, suit: 'A', rank: 8 },
+]);
+const withClimb = [...starterPatterns, evenClimb];
+const complete = rack(['dot2', 4], ['dot4', 3], ['dot6', 3], ['dot8', 3]);
 const scattered: TileKind[] = ['bam1', 'bam5', 'bam9', 'crack2', 'crack6', 'dot3', 'dot7', 'wind-n', 'wind-e', 'dragon-red', 'flower', 'dot9', 'crack9'];
 
 test('the steady bots vote to stop when their best pattern is close, and to go on when it is not', () => {
-  expect(Math.min(...starterPatterns.map((p) => tilesAway(complete, p)))).toBeLessThanOrEqual(STOP_WHEN_AWAY);
-  expect(Math.min(...starterPatterns.map((p) => tilesAway(scattered, p)))).toBeGreaterThan(STOP_WHEN_AWAY);
+  expect(Math.min(...withClimb.map((p) => tilesAway(complete, p)))).toBeLessThanOrEqual(STOP_WHEN_AWAY);
+  expect(Math.min(...withClimb.map((p) => tilesAway(scattered, p)))).toBeGreaterThan(STOP_WHEN_AWAY);
   for (const id of ['multiples', 'advised'] as const) {
-    expect(chooseBotAction(id, viewWith(complete, 'vote'), starterPatterns)).toEqual({ type: 'vote', stop: true });
-    expect(chooseBotAction(id, viewWith(scattered, 'vote'), starterPatterns)).toEqual({ type: 'vote', stop: false });
+    expect(chooseBotAction(id, viewWith(complete, 'vote'), withClimb)).toEqual({ type: 'vote', stop: true });
+    expect(chooseBotAction(id, viewWith(scattered, 'vote'), withClimb)).toEqual({ type: 'vote', stop: false });
   }
 });
 
 test('the advised bot asks for as many courtesy tiles as it has spare, up to three', () => {
-  expect(chooseBotAction('advised', viewWith(complete, 'courtesy-ask'), starterPatterns)).toEqual({ type: 'courtesy-ask', count: 0 });
+  expect(chooseBotAction('advised', viewWith(complete, 'courtesy-ask'), withClimb)).toEqual({ type: 'courtesy-ask', count: 0 });
   const oneSpare = [...complete.slice(1), 'wind-n' as TileKind];
-  expect(chooseBotAction('advised', viewWith(oneSpare, 'courtesy-ask'), starterPatterns)).toEqual({ type: 'courtesy-ask', count: 1 });
-  expect(chooseBotAction('advised', viewWith(scattered, 'courtesy-ask'), starterPatterns)).toEqual({ type: 'courtesy-ask', count: 3 });
+  expect(chooseBotAction('advised', viewWith(oneSpare, 'courtesy-ask'), withClimb)).toEqual({ type: 'courtesy-ask', count: 1 });
+  expect(chooseBotAction('advised', viewWith(scattered, 'courtesy-ask'), withClimb)).toEqual({ type: 'courtesy-ask', count: 3 });
 });
 
 test('the multiples bot asks for nothing when every tile is a pair, a pung or a flower', () => {
@@ -185,7 +193,7 @@ test('the multiples bot passes blind rather than break a pair, where blind is al
 });
 
 test('the advised bot plays the first advice', () => {
-  const action = chooseBotAction('advised', viewWith([...complete, 'wind-n'], 'first-left', { passSize: 3, blindAllowed: true }), starterPatterns);
+  const action = chooseBotAction('advised', viewWith([...complete, 'wind-n'], 'first-left', { passSize: 3, blindAllowed: true }), withClimb);
   expect(action).toEqual({ type: 'pass', tiles: ['t14'], blind: 2 });
 });
 

@@ -23,32 +23,68 @@ test('the starter list has 40 or more patterns with unique ids and names', () =>
   expect(new Set(starterPatterns.map((p) => p.name)).size).toBe(starterPatterns.length);
 });
 
-test('the starter list covers the families the issue asks for, each described, each with two or more patterns', () => {
-  const families = new Set(starterPatterns.map((p) => p.family));
-  for (const family of ['even', 'odd', 'ladder', 'braid', 'mirror', 'compass', 'garden', 'crowd', 'quiet']) expect(families).toContain(family);
-  expect([...families].sort()).toEqual(Object.keys(STARTER_FAMILIES).sort());
+test('every starter family is described, has two or more patterns, and its patterns sit together in the list', () => {
+  const families = [...new Set(starterPatterns.map((p) => p.family))];
+  expect(families).toEqual(Object.keys(STARTER_FAMILIES));
   for (const family of families) expect(starterPatterns.filter((p) => p.family === family).length).toBeGreaterThanOrEqual(2);
+  const order = starterPatterns.map((p) => families.indexOf(p.family));
+  expect(order).toEqual([...order].sort((a, b) => a - b));
 });
 
-test('each starter id starts with its family', () => {
-  for (const p of starterPatterns) expect(p.id.startsWith(`${p.family}-`)).toBe(true);
+test('each starter id is its family and its place in the family', () => {
+  for (const family of Object.keys(STARTER_FAMILIES)) {
+    expect(starterPatterns.filter((p) => p.family === family).map((p) => p.id)).toEqual(
+      starterPatterns.filter((p) => p.family === family).map((_, i) => `${family}-${i + 1}`),
+    );
+  }
 });
 
-test('the crowd family really needs jokers: each has a group of five or more of one number or dragon', () => {
-  const crowd = starterPatterns.filter((p) => p.family === 'crowd');
-  expect(crowd.length).toBeGreaterThan(0);
-  for (const p of crowd) {
+/** Each capability the starter list keeps, as a test of its groups. */
+const runs = (p: Pattern) => p.groups.some((g) => 'rank' in g && typeof g.rank === 'object' && g.rank.offset > 0);
+const suitLetters = (p: Pattern) => new Set(p.groups.flatMap((g) => ('suit' in g && !('dragon' in g) ? [g.suit] : [])));
+const matching = (p: Pattern) =>
+  p.groups.some((g, i) => 'rank' in g && p.groups.some((h, j) => j !== i && 'rank' in h && JSON.stringify(h.rank) === JSON.stringify(g.rank) && h.suit !== g.suit));
+const honours = (p: Pattern) => p.groups.filter((g) => 'dragon' in g || ('tile' in g && /^(wind|dragon)-/.test(g.tile))).reduce((n, g) => n + g.size, 0);
+const flowersIn = (p: Pattern) => p.groups.filter((g) => 'tile' in g && g.tile === 'flower').reduce((n, g) => n + g.size, 0);
+
+test('the starter list keeps runs, numbers matched across suits, winds and dragons, flowers, quints, singles and pairs, and sealed hands', () => {
+  const count = (test: (p: Pattern) => boolean) => starterPatterns.filter(test).length;
+  expect(count((p) => runs(p) && suitLetters(p).size === 1)).toBeGreaterThanOrEqual(3);
+  expect(count((p) => runs(p) && suitLetters(p).size >= 2)).toBeGreaterThanOrEqual(3);
+  expect(count(matching)).toBeGreaterThanOrEqual(3);
+  expect(count((p) => honours(p) >= 10)).toBeGreaterThanOrEqual(3);
+  expect(count((p) => flowersIn(p) >= 4)).toBeGreaterThanOrEqual(4);
+  expect(count((p) => p.groups.every((g) => g.size < JOKER_MIN_GROUP))).toBeGreaterThanOrEqual(3);
+  expect(count((p) => p.sealed)).toBeGreaterThanOrEqual(4);
+  expect(count((p) => p.sealed && p.groups.some((g) => g.size >= JOKER_MIN_GROUP))).toBeGreaterThanOrEqual(1);
+});
+
+test('the cargo family really needs jokers: each has a group of five or more of one number, dragon or wind (a set holds four of each; jokers fill groups of three or more: common practice, no published source)', () => {
+  const cargo = starterPatterns.filter((p) => p.family === 'cargo');
+  expect(cargo.length).toBeGreaterThan(0);
+  for (const p of cargo) {
     expect(p.groups.some((g) => g.size >= 5 && !('tile' in g && g.tile === 'flower'))).toBe(true);
   }
 });
 
-test('the quiet family is concealed and made only of singles and pairs', () => {
-  const quiet = starterPatterns.filter((p) => p.family === 'quiet');
-  expect(quiet.length).toBeGreaterThan(0);
-  for (const p of quiet) {
+test('the pebbles family is sealed and made only of singles and pairs', () => {
+  const pebbles = starterPatterns.filter((p) => p.family === 'pebbles');
+  expect(pebbles.length).toBeGreaterThan(0);
+  for (const p of pebbles) {
     expect(p.sealed).toBe(true);
     expect(p.groups.every((g) => g.size < JOKER_MIN_GROUP)).toBe(true);
   }
+});
+
+test('starter values are on Rackside\'s own scale: 10 to 100 in steps of 5, the sealed hands of pairs worth more than any hand of pungs that takes calls', () => {
+  for (const p of starterPatterns) {
+    expect(p.value).toBeGreaterThanOrEqual(10);
+    expect(p.value).toBeLessThanOrEqual(100);
+    expect(p.value % 5).toBe(0);
+  }
+  const pebbles = starterPatterns.filter((p) => p.family === 'pebbles').map((p) => p.value);
+  const open = starterPatterns.filter((p) => !p.sealed && p.groups.every((g) => g.size >= 2 && g.size <= 4)).map((p) => p.value);
+  expect(Math.min(...pebbles)).toBeGreaterThan(Math.min(...open));
 });
 
 const base = (groups: Pattern['groups']): Pattern => testPattern('bad-01', groups);
