@@ -85,6 +85,9 @@ export class ConfigError extends Error {
  * constant) or end every session and link at each restart, so a missing secret stops the start.
  * The webhook secret is needed only where payments can be taken at all.
  */
+/** Shorter secrets are refused in production: 16 characters of hex are 64 bits. */
+const MIN_SECRET_LENGTH = 16;
+
 function missingSecrets(env: NodeJS.ProcessEnv, production: boolean, localFakes: boolean): string[] {
   const realKey = Boolean(env.STRIPE_SECRET_KEY) && env.STRIPE_SECRET_KEY !== LOCAL_STRIPE_KEY;
   if (!production && !realKey) return [];
@@ -103,6 +106,13 @@ function missingSecrets(env: NodeJS.ProcessEnv, production: boolean, localFakes:
   }
   if (!env.LINK_SECRET && !env.INVITE_SECRET) {
     problems.push(`LINK_SECRET is not set, and ${why}: invitation and password-reset links would stop working at every restart. Set it to a long random value, the same on every process.`);
+  }
+  // A secret someone could guess signs nothing: sessions, links and deals all rest on these.
+  for (const name of ['SESSION_SECRET', 'LINK_SECRET'] as const) {
+    const value = env[name];
+    if (value && value.length < MIN_SECRET_LENGTH) {
+      problems.push(`${name} is only ${value.length} characters long, and ${why}. Use at least ${MIN_SECRET_LENGTH} random characters (for example the output of "openssl rand -hex 32").`);
+    }
   }
   return problems;
 }

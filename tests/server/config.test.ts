@@ -9,6 +9,11 @@ import { afterEach, expect, test } from 'vitest';
 import { LOCAL_STRIPE_KEY, LOCAL_WEBHOOK_SECRET, loadConfig } from '../../server/config';
 import { makeApp, type TestApp } from './helpers';
 
+/** Secrets long enough to be accepted in production. */
+const S = 'session-secret-0123456789';
+const L = 'link-secret-0123456789abc';
+const I = 'invite-secret-0123456789';
+
 const REAL_KEY = 'sk_test_51RacksideNotAKeyAtAll';
 const SECRETS = { SESSION_SECRET: 'a-long-session-secret', LINK_SECRET: 'a-long-link-secret', STRIPE_WEBHOOK_SECRET: 'whsec_set_by_the_organiser' };
 
@@ -22,9 +27,9 @@ test('in development, with nothing set, the local stand-ins are used', () => {
 });
 
 test('a real payment key without its webhook secret stops the start, naming the variable', () => {
-  expect(() => loadConfig({ STRIPE_SECRET_KEY: REAL_KEY, SESSION_SECRET: 's', LINK_SECRET: 'l' })).toThrow(/STRIPE_WEBHOOK_SECRET is not set/);
+  expect(() => loadConfig({ STRIPE_SECRET_KEY: REAL_KEY, SESSION_SECRET: S, LINK_SECRET: L })).toThrow(/STRIPE_WEBHOOK_SECRET is not set/);
   // The public stand-in, given on purpose, is no secret either.
-  expect(() => loadConfig({ STRIPE_SECRET_KEY: REAL_KEY, SESSION_SECRET: 's', LINK_SECRET: 'l', STRIPE_WEBHOOK_SECRET: LOCAL_WEBHOOK_SECRET })).toThrow(
+  expect(() => loadConfig({ STRIPE_SECRET_KEY: REAL_KEY, SESSION_SECRET: S, LINK_SECRET: L, STRIPE_WEBHOOK_SECRET: LOCAL_WEBHOOK_SECRET })).toThrow(
     /STRIPE_WEBHOOK_SECRET is the public local stand-in/,
   );
   // With a real key every secret must be set: each missing one is named, in one message.
@@ -44,16 +49,16 @@ test('a real payment key without its webhook secret stops the start, naming the 
 
 test('in production a missing secret stops the start, naming each one', () => {
   expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET is not set[\s\S]*LINK_SECRET is not set/);
-  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 's' })).toThrow(/LINK_SECRET/);
-  expect(() => loadConfig({ NODE_ENV: 'production', LINK_SECRET: 'l' })).toThrow(/SESSION_SECRET/);
+  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: S })).toThrow(/LINK_SECRET/);
+  expect(() => loadConfig({ NODE_ENV: 'production', LINK_SECRET: L })).toThrow(/SESSION_SECRET/);
   // Payments off (no key, no local stand-in): there is no webhook to sign, so no secret for it.
-  const off = loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 's', LINK_SECRET: 'l' });
-  expect(off).toMatchObject({ production: true, sessionSecret: 's', linkSecret: 'l', stripeSecretKey: LOCAL_STRIPE_KEY, localFakes: false });
+  const off = loadConfig({ NODE_ENV: 'production', SESSION_SECRET: S, LINK_SECRET: L });
+  expect(off).toMatchObject({ production: true, sessionSecret: S, linkSecret: L, stripeSecretKey: LOCAL_STRIPE_KEY, localFakes: false });
   // The older name of the link secret still counts.
-  expect(loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 's', INVITE_SECRET: 'i' }).linkSecret).toBe('i');
+  expect(loadConfig({ NODE_ENV: 'production', SESSION_SECRET: S, INVITE_SECRET: I }).linkSecret).toBe(I);
   // Payments by the local stand-in in production would take webhooks signed with a public secret.
-  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 's', LINK_SECRET: 'l', LOCAL_FAKES: 'true' })).toThrow(/STRIPE_WEBHOOK_SECRET/);
-  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 's', LINK_SECRET: 'l', STRIPE_SECRET_KEY: REAL_KEY })).toThrow(/STRIPE_WEBHOOK_SECRET/);
+  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: S, LINK_SECRET: L, LOCAL_FAKES: 'true' })).toThrow(/STRIPE_WEBHOOK_SECRET/);
+  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: S, LINK_SECRET: L, STRIPE_SECRET_KEY: REAL_KEY })).toThrow(/STRIPE_WEBHOOK_SECRET/);
   expect(loadConfig({ NODE_ENV: 'production', STRIPE_SECRET_KEY: REAL_KEY, ...SECRETS }).stripeWebhookSecret).toBe(SECRETS.STRIPE_WEBHOOK_SECRET);
 });
 
@@ -85,7 +90,7 @@ test('the server does not start in production without its secrets, and says whic
   expect(production.stderr).toContain('SESSION_SECRET');
   expect(production.stderr).toContain('LINK_SECRET');
 
-  const realKey = await startWith({ STRIPE_SECRET_KEY: REAL_KEY, SESSION_SECRET: 's', LINK_SECRET: 'l' });
+  const realKey = await startWith({ STRIPE_SECRET_KEY: REAL_KEY, SESSION_SECRET: S, LINK_SECRET: L });
   expect(realKey.started).toBe(false);
   expect(realKey.code).not.toBe(0);
   expect(realKey.stderr).toMatch(/STRIPE_WEBHOOK_SECRET is not set/);
@@ -105,4 +110,11 @@ test('with payments off, no webhook is taken, not even one signed with the local
   const res = await request(app.app).post('/api/payments/webhook').set('Content-Type', 'application/json').set('Stripe-Signature', signature).send(body);
   expect(res.status).toBe(503);
   expect(res.body.error.code).toBe('PAYMENTS_OFF');
+});
+
+test('in production a secret too short to be safe stops the start, naming it', () => {
+  const long = 'a'.repeat(32);
+  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x', LINK_SECRET: long })).toThrow(/SESSION_SECRET is only 1 characters long/);
+  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: long, LINK_SECRET: 'short' })).toThrow(/LINK_SECRET is only 5 characters long/);
+  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: long, LINK_SECRET: long, LOCAL_FAKES: 'false' })).not.toThrow();
 });
