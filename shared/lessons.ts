@@ -127,7 +127,12 @@ export interface LessonDto {
   timeZone: string;
   durationMinutes: number;
   seats: number;
+  /** Seats spoken for: every accepted student of a free lesson; in a priced one every paid student plus every student holding one. */
   seatsTaken: number;
+  /** Of `seatsTaken`, those only held while a student is on the payment page (a student counts once); 0 in a free lesson. */
+  seatsHeld: number;
+  /** When the last of those holds ends, if any seat is held. */
+  holdEndsAt: string | null;
   priceCents: number;
   currency: Currency;
   drillIds: string[];

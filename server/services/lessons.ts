@@ -4,7 +4,7 @@ import { Op } from 'sequelize';
 import type { EnrollmentDto, InvitationDto, LessonDetailDto, LessonDto } from '../../shared/lessons';
 import { Enrollment, Invitation, Lesson, User } from '../db/models';
 import { HttpError } from '../errors';
-import { seatsTaken } from './seats';
+import { seatCounts } from './seats';
 
 export type LessonRole = 'teacher' | 'student';
 
@@ -35,6 +35,7 @@ export function requireLessonTeacher(role: LessonRole) {
 
 export async function lessonDto(lesson: Lesson, viewerId: number, status: Enrollment['status'] | null, teacherName?: string): Promise<LessonDto> {
   const name = teacherName ?? (await User.findByPk(lesson.teacherId))?.displayName ?? 'Unknown teacher';
+  const seats = await seatCounts(lesson);
   return {
     id: lesson.id,
     title: lesson.title,
@@ -45,7 +46,9 @@ export async function lessonDto(lesson: Lesson, viewerId: number, status: Enroll
     timeZone: lesson.timeZone,
     durationMinutes: lesson.durationMinutes,
     seats: lesson.seats,
-    seatsTaken: await seatsTaken(lesson),
+    seatsTaken: seats.taken,
+    seatsHeld: seats.held,
+    holdEndsAt: seats.holdEndsAt?.toISOString() ?? null,
     priceCents: lesson.priceCents,
     currency: lesson.currency,
     drillIds: lesson.drillIds,

@@ -65,6 +65,23 @@ export async function seatsTaken(lesson: Lesson, t?: Transaction, exceptUserId?:
   return paid.filter((id) => id !== exceptUserId).length + holding;
 }
 
+/**
+ * The seats of a lesson as people read them: how many are taken (as `seatsTaken` counts them), how
+ * many of those are only held by a checkout still open (a student counts once, and a student who
+ * paid is not held), and when the last of those holds ends.
+ */
+export async function seatCounts(lesson: Lesson): Promise<{ taken: number; held: number; holdEndsAt: Date | null }> {
+  if (lesson.priceCents === 0) return { taken: await seatsTaken(lesson), held: 0, holdEndsAt: null };
+  const paid = (await Enrollment.findAll({ attributes: ['userId'], where: { lessonId: lesson.id, status: 'paid' } })).map((e) => e.userId);
+  const holds = await Payment.findAll({
+    attributes: ['userId', 'holdUntil'],
+    where: { lessonId: lesson.id, status: 'pending', holdUntil: { [Op.gt]: new Date() }, ...(paid.length ? { userId: { [Op.notIn]: paid } } : {}) },
+  });
+  const holders = new Set(holds.map((h) => h.userId));
+  const last = holds.reduce<Date | null>((latest, h) => (!latest || h.holdUntil > latest ? h.holdUntil : latest), null);
+  return { taken: paid.length + holders.size, held: holders.size, holdEndsAt: last };
+}
+
 /** Students who hold a seat (and so go to the lesson room). */
 export function seatedStatuses(lesson: Lesson): ('enrolled' | 'paid')[] {
   return lesson.priceCents === 0 ? ['enrolled', 'paid'] : ['paid'];

@@ -8,7 +8,7 @@ import { Button } from '../components/Button';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { InviteForm } from '../components/InviteForm';
-import { lessonPrice } from '../components/LessonList';
+import { lessonPrice, seatWords } from '../components/LessonList';
 import { LessonRoom } from '../components/LessonRoom';
 import { lessonTimes } from '../components/lessonTime';
 
@@ -49,7 +49,7 @@ export function LessonPage() {
         <p className="text-lead">{there}</p>
         {here && <p className="text-ink-soft">{here}</p>}
         <p>
-          {l.durationMinutes} minutes with {l.teacherName} · {lessonPrice(l)} · {l.seatsTaken} of {l.seats} seats taken
+          {l.durationMinutes} minutes with {l.teacherName} · {lessonPrice(l)} · {seatWords(l)}
         </p>
         {l.description && <p className="mt-3 whitespace-pre-line">{l.description}</p>}
         {teaches && (

@@ -15,6 +15,8 @@ const lesson = {
   durationMinutes: 60,
   seats: 4,
   seatsTaken: 1,
+  seatsHeld: 0,
+  holdEndsAt: null,
   priceCents: 1500,
   currency: 'usd',
   drillIds: [],
