@@ -1,4 +1,5 @@
 /** Lists written before `value` and `sealed` (version 1 files, stored rows, an open editor page) keep working. */
+import { readFileSync } from 'node:fs';
 import { QueryTypes } from 'sequelize';
 import { afterEach, beforeEach, expect, test } from 'vitest';
 import { openDatabase } from '../../server/db';
@@ -107,4 +108,16 @@ test('a list stored in the old names is served, copied, exported and saved in to
   const saved = await t.ines.put('/api/pattern-lists/left-behind').send({ name: 'Left behind', patterns: [{ ...firstFormat, points: 40 }] });
   expect(saved.status).toBe(200);
   expect((await PatternListRow.findByPk('left-behind'))!.patterns).toEqual([{ ...current, value: 40 }]);
+});
+
+test('the teacher\'s list in tests/fixtures imports through the route as it stands, and comes back out the same', async () => {
+  const text = readFileSync(new URL('../fixtures/teacher-list.json', import.meta.url), 'utf8');
+  const file = JSON.parse(text) as { version: number; name: string; patterns: Pattern[] };
+  expect(file.version).toBe(2);
+  const res = await upload(t.ines, '/api/pattern-lists/import', text, 'teacher-list.json');
+  expect(res.status).toBe(201);
+  expect(res.body.list).toMatchObject({ name: file.name, patternCount: file.patterns.length });
+  expect(res.body.list.patterns).toEqual(file.patterns);
+  const out = JSON.parse((await t.ines.get(`/api/pattern-lists/${res.body.list.id}/export`)).text);
+  expect(out.patterns).toEqual(file.patterns);
 });
