@@ -29,7 +29,7 @@ function BotPicker({ seat, busy, onBot }: { seat: Seat; busy: boolean; onBot: Pr
           ))}
         </select>
       </label>
-      <Button onClick={() => onBot(seat, strategy)} disabled={busy}>
+      <Button onClick={() => onBot(seat, strategy)} disabled={busy} aria-label={`Seat a bot at ${seat}`}>
         Seat a bot
       </Button>
     </div>

@@ -119,9 +119,21 @@ export function Rack({ label, tiles, picked = [], received = [], sending = [], c
             onFocus={() => setFocus(index)}
             onClick={() => pick(tile)}
             onKeyDown={(e) => onKeyDown(e, index)}
-            className={`group flex min-h-6 min-w-6 flex-col items-center rounded-lg border-2 p-0.5 transition-transform duration-150 ${isSending ? 'border-dashed border-ink-soft' : 'border-transparent'} ${isPicked ? '-translate-y-2 bg-picked/10 ring-3 ring-picked' : ''} ${isReceived && !isPicked ? 'tile-arrive bg-received-soft ring-2 ring-received' : ''}`}
+            className={`group flex min-h-6 min-w-6 flex-col items-center rounded-lg border-2 p-0.5 transition-transform duration-150 ${isSending ? 'border-dashed border-ink-soft' : 'border-transparent'} ${isPicked ? '-translate-y-3 bg-picked-soft shadow-[0_0.5rem_0.75rem_-0.25rem_rgb(27_36_48/0.45)]' : ''} ${isReceived && !isPicked ? 'tile-arrive bg-received-soft ring-2 ring-received' : ''}`}
           >
-            <Tile kind={tile.kind} decorative className={width} />
+            {/* Picked: the tile is lifted and wears a check mark; the focus ring (an outline with a gap) is another shape and colour. */}
+            <span className="relative block">
+              <Tile kind={tile.kind} decorative className={width} />
+              {isPicked && (
+                <span
+                  aria-hidden="true"
+                  data-testid="picked-check"
+                  className="absolute -right-1.5 -top-1.5 flex size-[1.375em] items-center justify-center rounded-full border-2 border-card bg-picked text-xs font-bold leading-none text-white"
+                >
+                  ✓
+                </span>
+              )}
+            </span>
             <span aria-hidden="true" className={`mt-0.5 h-5 text-xs font-semibold leading-5 ${isPicked ? 'text-picked' : isReceived ? 'text-received' : 'text-ink-soft'}`}>
               {tag && (isPicked ? `✓ ${tag}` : isSending ? `➜ ${tag}` : `● ${tag}`)}
             </span>

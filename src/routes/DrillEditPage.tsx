@@ -77,6 +77,7 @@ function DrillForm({ drill }: { drill?: DrillDto }) {
       <form noValidate onSubmit={onSubmit} className="flex flex-col gap-6" aria-label={drill ? 'Edit the drill' : 'New drill'}>
         {problem && <FormMessage error>{problem}</FormMessage>}
         <Card className="flex flex-col gap-4">
+          <h2 className="text-lead font-semibold">The drill and its deal</h2>
           <TextField label="Drill name" value={draft.name} onChange={(e) => set({ name: e.target.value })} error={errors.name} />
           <div className="flex flex-col gap-1">
             <label htmlFor={ids.description} className="font-medium">
@@ -151,7 +152,8 @@ function DrillForm({ drill }: { drill?: DrillDto }) {
             )}
           </div>
         </Card>
-        <Card>
+        <Card className="flex flex-col gap-3">
+          <h2 className="text-lead font-semibold">Racks at the deal</h2>
           <RackPresetPicker racks={draft.racks} jokers={draft.jokers} onChange={(racks) => set({ racks })} errors={errors} />
         </Card>
         {saved && <FormMessage>{saved}</FormMessage>}

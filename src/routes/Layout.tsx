@@ -1,5 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { useEffect, useRef } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link, NavLink, Outlet, useLocation, useMatches, useNavigate } from 'react-router-dom';
 import { meQuery, useMe, useSignOut } from '../api/auth';
 import { onSessionEnded, useSignedOutNotice } from '../api/sessionEnd';
@@ -100,72 +100,99 @@ export function Layout() {
   // The table and replay pages use the whole width of a laptop, so a rack fits on one line.
   const wide = useMatches().some((m) => (m.handle as { wide?: boolean } | undefined)?.wide);
   const width = wide ? 'max-w-[90rem]' : 'max-w-5xl';
+  // On a phone the links fold behind a menu button; the menu stays open only on the page where it was opened.
+  const { pathname } = location;
+  const [openAt, setOpenAt] = useState<string | null>(null);
+  const menuOpen = openAt === pathname;
+  const menuButton = useRef<HTMLButtonElement>(null);
   return (
     <div className="flex min-h-screen flex-col">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-4 focus:top-4 focus:z-10 focus:bg-card focus:p-3">
         Skip to the page
       </a>
       <header className="border-b-2 border-ink/10 bg-card">
-        <div className={`mx-auto flex ${width} flex-wrap items-center gap-4 px-4 py-3`}>
-          <Link to="/" className="text-2xl font-semibold text-ink no-underline">
+        <div className={`mx-auto flex ${width} flex-wrap items-center gap-x-4 gap-y-2 px-4 py-2 sm:py-3`}>
+          <Link to="/" className="text-xl font-semibold text-ink no-underline sm:text-2xl">
             <span aria-hidden="true" className="mr-2 inline-block rounded-md bg-accent px-2 text-accent-ink">R</span>
             Rackside
           </Link>
-          <nav aria-label="Main" className="flex flex-wrap gap-1">
-            <NavLink to="/" end className={navClass}>
-              Home
-            </NavLink>
-            {me && (
-              <NavLink to="/history" className={navClass}>
-                My exchanges
+          <button
+            ref={menuButton}
+            type="button"
+            aria-expanded={menuOpen}
+            aria-controls="site-menu"
+            onClick={() => setOpenAt(menuOpen ? null : pathname)}
+            className="ml-auto flex min-h-11 items-center gap-2 rounded-md border-2 border-ink-soft bg-card px-3 font-semibold sm:hidden"
+          >
+            <span aria-hidden="true">{menuOpen ? '✕' : '☰'}</span>
+            Menu
+          </button>
+          <div
+            id="site-menu"
+            onKeyDown={(e) => {
+              if (e.key === 'Escape' && menuOpen) {
+                setOpenAt(null);
+                menuButton.current?.focus();
+              }
+            }}
+            className={`${menuOpen ? 'flex' : 'hidden'} w-full flex-col gap-3 pb-2 sm:flex sm:w-auto sm:flex-1 sm:flex-row sm:flex-wrap sm:items-center sm:gap-4 sm:pb-0`}
+          >
+            <nav aria-label="Main" className="flex flex-col gap-1 sm:flex-row sm:flex-wrap">
+              <NavLink to="/" end className={navClass}>
+                Home
               </NavLink>
-            )}
-            {me && (
-              <NavLink to="/progress" end className={navClass}>
-                My progress
-              </NavLink>
-            )}
-            {(me?.role === 'teacher' || me?.role === 'admin') && (
-              <>
-                <NavLink to="/drills" className={navClass}>
-                  Drills
+              {me && (
+                <NavLink to="/history" className={navClass}>
+                  My exchanges
                 </NavLink>
-                <NavLink to="/pattern-lists" className={navClass}>
-                  Pattern lists
+              )}
+              {me && (
+                <NavLink to="/progress" end className={navClass}>
+                  My progress
                 </NavLink>
-              </>
-            )}
-            {me && (
-              <NavLink to="/lessons" className={navClass}>
-                Lessons
-              </NavLink>
-            )}
-            {(me?.role === 'teacher' || me?.role === 'admin') && (
-              <NavLink to="/mail" className={navClass}>
-                Mail
-              </NavLink>
-            )}
-            {me?.role === 'admin' && (
-              <NavLink to="/admin/users" className={navClass}>
-                People
-              </NavLink>
-            )}
-          </nav>
-          <div className="ml-auto flex flex-wrap items-center gap-3">
-            <TextSizePicker />
-            {me ? (
-              <Button
-                kind="plain"
-                onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}
-                disabled={signOut.isPending}
-              >
-                Sign out
-              </Button>
-            ) : (
-              <Link to={signInPath(`${location.pathname}${location.search}`)} className="font-semibold">
-                Sign in
-              </Link>
-            )}
+              )}
+              {(me?.role === 'teacher' || me?.role === 'admin') && (
+                <>
+                  <NavLink to="/drills" className={navClass}>
+                    Drills
+                  </NavLink>
+                  <NavLink to="/pattern-lists" className={navClass}>
+                    Pattern lists
+                  </NavLink>
+                </>
+              )}
+              {me && (
+                <NavLink to="/lessons" className={navClass}>
+                  Lessons
+                </NavLink>
+              )}
+              {(me?.role === 'teacher' || me?.role === 'admin') && (
+                <NavLink to="/mail" className={navClass}>
+                  Mail
+                </NavLink>
+              )}
+              {me?.role === 'admin' && (
+                <NavLink to="/admin/users" className={navClass}>
+                  People
+                </NavLink>
+              )}
+            </nav>
+            <div className="flex flex-wrap items-center gap-3 sm:ml-auto">
+              <TextSizePicker />
+              {me ? (
+                <Button
+                  kind="plain"
+                  onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}
+                  disabled={signOut.isPending}
+                >
+                  Sign out
+                </Button>
+              ) : (
+                <Link to={signInPath(`${location.pathname}${location.search}`)} className="font-semibold">
+                  Sign in
+                </Link>
+              )}
+            </div>
           </div>
         </div>
       </header>

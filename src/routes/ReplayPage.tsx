@@ -136,11 +136,16 @@ function Replay({ dto }: { dto: ExchangeReplayDto }) {
         <p className="text-sm text-ink-soft">The left and right arrow keys step too; Home and End jump.</p>
       </div>
       <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
-        <div className="grid min-w-0 grid-cols-1 gap-3 md:grid-cols-2">
-          {SEATS.map((s) => (
-            <SeatPanel key={s} step={step} seat={s} name={names[s]} patterns={dto.patternList.patterns} />
-          ))}
-        </div>
+        <section aria-labelledby="racks-title" className="flex min-w-0 flex-col gap-2">
+          <h2 id="racks-title" className="text-lead font-semibold">
+            Every rack at this step
+          </h2>
+          <div className="grid min-w-0 grid-cols-1 gap-3 md:grid-cols-2">
+            {SEATS.map((s) => (
+              <SeatPanel key={s} step={step} seat={s} name={names[s]} patterns={dto.patternList.patterns} />
+            ))}
+          </div>
+        </section>
         <aside className="flex min-w-0 flex-col gap-4" aria-label="This step">
           {step.pass ? <MoveDiagram pass={step.pass} names={names} /> : <p className="text-ink-soft">No tiles moved in this step.</p>}
           <section aria-labelledby="notes-title" className="rounded-card border border-line/60 bg-card p-3">

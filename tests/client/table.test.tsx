@@ -41,7 +41,7 @@ test('in the lobby a player sits at an empty seat; the host seats a bot and star
   expect(lastSend()).toEqual(['table:sit', { seat: 'north' }]);
   expect((screen.getByRole('button', { name: 'Deal and start the Charleston' }) as HTMLButtonElement).disabled).toBe(true);
   await userEvent.selectOptions(screen.getByLabelText('Bot for north'), 'multiples');
-  await userEvent.click(screen.getByRole('button', { name: 'Seat a bot' }));
+  await userEvent.click(screen.getByRole('button', { name: 'Seat a bot at north' }));
   expect(lastSend()).toEqual(['table:bot', { seat: 'north', strategy: 'multiples' }]);
 });
 
