@@ -24,6 +24,29 @@ export interface LessonDeps {
   tableChanged: (master: TableMaster) => void;
 }
 
+const SHOWN_MAX = 40;
+
+/** An address as typed, trimmed, short enough to quote in a message. */
+function quoted(raw: unknown): string | null {
+  if (typeof raw !== 'string' || !raw.trim()) return null;
+  const text = raw.trim();
+  return text.length > SHOWN_MAX ? `${text.slice(0, SHOWN_MAX)}…` : text;
+}
+
+/** "ruth@harborlane is not an e-mail address…": each wrong address's message names it, as typed. */
+function namingAddresses(error: HttpError, emails: unknown): HttpError {
+  if (!error.fields || !Array.isArray(emails)) return error;
+  const fields: Record<string, string> = {};
+  for (const [key, message] of Object.entries(error.fields)) {
+    const index = /^emails\.(\d+)$/.exec(key);
+    const address = index ? quoted(emails[Number(index[1])]) : null;
+    if (!address) fields[key] = message;
+    else if (/does not look like an e-mail address/.test(message)) fields[key] = `${address} is not an e-mail address (name@example.test): correct it or take it out.`;
+    else fields[key] = `${address}: ${message}`;
+  }
+  return new HttpError(error.status, error.code, error.message, fields);
+}
+
 export function lessonsRouter({ config, sequelize, mailer, registry, tableChanged }: LessonDeps) {
   const router = Router();
   router.use(requireUser);
@@ -95,7 +118,7 @@ export function lessonsRouter({ config, sequelize, mailer, registry, tableChange
     const { lesson, role } = await lessonFor(req, req.params.id);
     requireLessonTeacher(role);
     const parsed = invitationsInputSchema.safeParse(req.body ?? {});
-    if (!parsed.success) throw badInput(parsed.error);
+    if (!parsed.success) throw namingAddresses(badInput(parsed.error), (req.body as { emails?: unknown } | undefined)?.emails);
     const ends = lessonEnd(lesson);
     if (ends.getTime() <= Date.now()) throw new HttpError(409, 'LESSON_OVER', 'This lesson has already ended, so nobody can be invited to it.');
     const teacher = (await User.findByPk(lesson.teacherId))!;

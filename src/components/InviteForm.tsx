@@ -10,7 +10,9 @@ export function InviteForm({ lessonId }: { lessonId: string }) {
   const [text, setText] = useState('');
   const [results, setResults] = useState<InviteResult[]>([]);
   const error = invite.error instanceof ApiError ? invite.error : null;
-  const fieldError = error ? Object.values(error.fields)[0] : undefined;
+  // One message per wrong address ("ruth@harborlane is not an e-mail address"), in the order typed.
+  const fieldErrors = error ? Object.entries(error.fields).sort(([a], [b]) => a.localeCompare(b, 'en', { numeric: true })).map(([, message]) => message) : [];
+  const fieldError = fieldErrors.length > 0;
 
   // isPending disables the button only from the next render on: a second click before that must not send again.
   const sending = useRef(false);
@@ -51,11 +53,21 @@ export function InviteForm({ lessonId }: { lessonId: string }) {
         aria-invalid={fieldError ? true : undefined}
         className={`rounded-lg border-2 bg-card px-3 py-2 text-body ${fieldError ? 'border-danger' : 'border-line'}`}
       />
-      {fieldError && (
+      {fieldErrors.length === 1 && (
         <p id="invite-error" className="font-medium text-danger">
           <span aria-hidden="true">✕ </span>
-          {fieldError}
+          {fieldErrors[0]}
         </p>
+      )}
+      {fieldErrors.length > 1 && (
+        <ul id="invite-error" className="font-medium text-danger">
+          {fieldErrors.map((message) => (
+            <li key={message}>
+              <span aria-hidden="true">✕ </span>
+              {message}
+            </li>
+          ))}
+        </ul>
       )}
       {error && !fieldError && <FormMessage error>{error.message}</FormMessage>}
       {results.length > 0 && (

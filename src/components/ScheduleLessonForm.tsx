@@ -6,7 +6,7 @@ import { useDrills } from '../api/drills';
 import { useScheduleLesson } from '../api/lessons';
 import { Button } from './Button';
 import { FormMessage } from './FormMessage';
-import { myTimeZone, timeZones } from './lessonTime';
+import { myTimeZone, timeZones, zoneLabel } from './lessonTime';
 import { SelectField } from './SelectField';
 import { TextField } from './TextField';
 
@@ -80,9 +80,10 @@ export function ScheduleLessonForm() {
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Starts at" type="datetime-local" value={startsAtLocal} onChange={(e) => setStartsAtLocal(e.target.value)} error={errors.startsAtLocal} required />
         <SelectField label="Time zone" hint="The zone the start time is in." value={timeZone} onChange={(e) => setTimeZone(e.target.value)} error={errors.timeZone}>
-          {timeZones().map((zone) => (
+          {/* The browser's own zone may be a name the list spells another way: keep it choosable. */}
+          {[...(timeZones().includes(timeZone) ? [] : [timeZone]), ...timeZones()].map((zone) => (
             <option key={zone} value={zone}>
-              {zone.replace(/_/g, ' ')}
+              {zoneLabel(zone)}
             </option>
           ))}
         </SelectField>

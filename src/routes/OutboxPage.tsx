@@ -6,6 +6,9 @@ import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { TeacherOnly } from '../components/TeacherOnly';
 
+/** When a message was sent, on the reader's own clock and in their own way of writing dates. */
+const sentAt = (iso: string) => new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' }).format(new Date(iso));
+
 const KIND_WORDS: Record<string, string> = { invitation: 'Invitation', 'password-reset': 'Password reset', receipt: 'Receipt', refund: 'Refund' };
 
 function MailBody({ id }: { id: number }) {
@@ -18,7 +21,7 @@ function MailBody({ id }: { id: number }) {
         {mail.data.subject}
       </h2>
       <p>
-        To {mail.data.to} · from {mail.data.from} · {new Date(mail.data.receivedAt).toLocaleString()}
+        To {mail.data.to} · from {mail.data.from} · sent <time dateTime={mail.data.receivedAt}>{sentAt(mail.data.receivedAt)}</time>
       </p>
       {/* The plain-text part, with its links made clickable: the HTML part is never rendered here. */}
       <div className="whitespace-pre-wrap break-words rounded-lg border-2 border-line/60 bg-paper p-4">
@@ -50,6 +53,9 @@ export function OutboxPage() {
                   <span className="block">{m.subject}</span>
                   <span className="block font-normal">
                     {KIND_WORDS[m.kind ?? ''] ?? 'Message'} to {m.to}
+                  </span>
+                  <span className="block font-normal">
+                    Sent <time dateTime={m.receivedAt}>{sentAt(m.receivedAt)}</time>
                   </span>
                 </Button>
               </li>

@@ -56,3 +56,15 @@ test('a link that ran out of time with no newer one says it expired; a used one 
   // The older link, ended by the newer one, still says it was replaced.
   expect((await request(t.app).get(`/api/invitations/${only.token}`)).body.error.code).toBe('INVITATION_REPLACED');
 });
+
+test('the invite form names each address that is not one, as it was typed', async () => {
+  const ines = await signedIn(t.app, 'ines@harborlane.test');
+  const lesson = await createLesson(ines);
+  const res = await ines.post(`/api/lessons/${lesson.id}/invitations`).send({ emails: ['mina@harborlane.test', ' Ruth@HarborLane ', 'x'.repeat(300)] });
+  expect(res.status).toBe(400);
+  const fields = res.body.error.fields as Record<string, string>;
+  expect(fields['emails.1']).toMatch(/^Ruth@HarborLane is not an e-mail address/);
+  expect(fields['emails.2']).toMatch(/^x{40}…/);
+  expect(fields['emails.2'].length).toBeLessThan(160);
+  expect(fields['emails.0']).toBeUndefined();
+});
