@@ -2,7 +2,9 @@ import { noEventWriter } from '../db/event-writer';
 import { randomBytes, randomUUID } from 'node:crypto';
 import { Router, type Request } from 'express';
 import { Op } from 'sequelize';
+import { z } from 'zod';
 import { createTableSchema } from '../../shared/protocol';
+import { BOT_STRATEGIES } from '../../shared/analysis/bots';
 import { SEATS } from '../../shared/seats';
 import { requireUser } from '../auth/guards';
 import { TableRow } from '../db/models';
@@ -12,6 +14,9 @@ import { defaultTableOptions, TableMaster } from '../realtime/table-master';
 import { drillNotFound, drillTableOptions, findOwnDrill, listNotYours } from '../teaching/drills';
 import { mayUseList, patternsForTable } from '../teaching/pattern-source';
 import type { StoredTableOptions } from '../db/models';
+
+/** The bot a practice table seats: the one that passes as the advice would. */
+const PRACTICE_BOT = 'advised';
 
 const noHooks = { changed: () => undefined, botDelayMs: 0, events: noEventWriter };
 
@@ -78,6 +83,35 @@ export function tablesRouter(registry: TableRegistry) {
       currentExchangeId: null,
     });
     res.status(201).json({ table: await dtoOf(row, req.user!.id) });
+  });
+
+  /**
+   * One click to practise alone: a private table with the player in east and a Coach bot in each
+   * other seat, ready for the player to deal. It takes no fields.
+   */
+  router.post('/practice', async (req, res) => {
+    const parsed = z.object({}, { error: 'Send an empty object.' }).strict('A practice table takes no fields.').safeParse(req.body ?? {});
+    if (!parsed.success) throw badInput(parsed.error);
+    const bot = BOT_STRATEGIES.find((s) => s.id === PRACTICE_BOT)!;
+    const user = req.user!;
+    const row = await TableRow.create({
+      id: randomUUID(),
+      name: 'Practice with three bots',
+      hostId: user.id,
+      hostName: user.displayName,
+      private: true,
+      inviteCode: randomBytes(12).toString('base64url'),
+      options: defaultTableOptions(),
+      status: 'lobby',
+      seats: {
+        east: { kind: 'user', userId: user.id, displayName: user.displayName },
+        south: { kind: 'bot', strategy: bot.id, displayName: `${bot.name} (bot, south)` },
+        west: { kind: 'bot', strategy: bot.id, displayName: `${bot.name} (bot, west)` },
+        north: { kind: 'bot', strategy: bot.id, displayName: `${bot.name} (bot, north)` },
+      },
+      currentExchangeId: null,
+    });
+    res.status(201).json({ table: await dtoOf(row, user.id) });
   });
 
   router.get('/', async (req, res) => {

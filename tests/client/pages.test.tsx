@@ -11,13 +11,6 @@ test('the home page shows the signed-in user and their role', async () => {
   expect(screen.getByTestId('role').textContent).toBe('Teacher');
 });
 
-test('the home page sends a signed-out visitor to sign in', async () => {
-  fakeApi(signedOut);
-  const { router } = renderAt('/');
-  await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
-  expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeTruthy();
-});
-
 test('sign-in shows the server message for a wrong password', async () => {
   fakeApi({
     ...signedOut,

@@ -15,8 +15,8 @@ afterAll(async () => {
 test('a new player registers, signs out, signs in again and sees their role', async () => {
   const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
   await page.goto(`${baseUrl}/`);
-  await page.getByRole('heading', { name: 'Sign in' }).waitFor();
-  await snap(page, 'sign-in');
+  await page.getByRole('heading', { name: 'What is a Charleston?' }).waitFor();
+  await snap(page, 'start');
   await page.getByRole('link', { name: 'Make an account' }).click();
   await page.getByLabel('Name at the table').fill('Sol Varga Jr');
   await page.getByLabel('E-mail').fill('sol.jr@harborlane.test');
