@@ -3,14 +3,15 @@
  * rack, list and seed give the same figures on any machine.
  *
  * The model, per sample:
- * - The tiles this seat has not seen are shuffled once (a partial Fisher–Yates from the
- *   sample's own seeded generator). Each round takes four of them in turn: this seat's draw,
+ * - The tiles this seat has not seen are shuffled once per sample (a partial Fisher–Yates
+ *   from one seeded generator, each sample taking the same count of values from it). Each round takes four of them in turn: this seat's draw,
  *   then one discard from each of the three other players. So other players' discards are
  *   drawn from the same unseen pool. A round whose draw would run past the pool is not played.
  * - Every pattern and family is judged against that same order of tiles (common random
  *   numbers): comparisons between patterns, racks and draw counts differ only by the hand, not
- *   by luck. Because a sample's order never depends on how many rounds are played, and a
- *   finished hand stays finished, more draws never lower the odds, sample by sample.
+ *   by luck. Because a sample's order never depends on how many rounds are played (up to
+ *   ROUND_CAP), and a finished hand stays finished, more draws never lower the odds, sample by
+ *   sample.
  * - The seat aims at a few concrete hands (a pattern with its suits and numbers fixed), the
  *   cheapest by price (price.ts). Its target is the one with the most tiles in place (ties:
  *   the cheaper at the start). Policy: a drawn tile that no aim can use is thrown at once;
@@ -35,7 +36,7 @@ import type { TileKind } from '../tiles';
 import { compiled, countsOf, fitAt } from './away';
 import { JOKER as JOKER_KIND, KIND_COUNT as KINDS, type CompiledPattern } from './compile';
 import { buildsWithoutCalls, HAND_SIZE as FULL_HAND, type Pattern } from './pattern';
-import { assignmentPrices, cheapestAssignments, DEFAULT_CALL_RATE, unseenCounts } from './price';
+import { assignmentPrices, cheapestAssignments, DEFAULT_CALL_RATE, OTHER_PLAYERS, unseenCounts } from './price';
 
 // Local copies: imported bindings are read through accessors in some builds, too slow for the inner loops.
 const JOKER = JOKER_KIND;
@@ -73,6 +74,13 @@ export interface CompletionOdds {
  */
 export const ODDS_DEFAULTS = { drawsLeft: 18, samples: 200, seed: 'rackside-odds', callRate: DEFAULT_CALL_RATE, nearest: 10, assignments: 3 } as const;
 
+/**
+ * Rounds every sample's order is drawn for, whatever the draws left: about the most a seat can
+ * have (99 wall tiles after the deal, four seats drawing in turn). Up to this many draws, more
+ * draws never lower the odds sample by sample; beyond it samples are drawn afresh.
+ */
+export const ROUND_CAP = 25;
+
 /** An assignment is aimed at only if its price is within this of its pattern's cheapest (one exact tile with four copies left). */
 const AIM_MARGIN = 1;
 
@@ -93,6 +101,9 @@ interface Plan {
   maxNeed: Uint8Array;
   /** served[k * STEPS + n]: how many aims need at least n tiles of kind k. */
   served: Uint8Array;
+  /** The kinds (not jokers) some aim uses, and whether some aim has a group a joker can join. */
+  kinds: Int8Array;
+  jokers: boolean;
   finished: number;
 }
 
@@ -125,7 +136,10 @@ function planOf(aims: Aim[]): Plan {
       for (let n = 1; n <= aim.need[k]; n++) served[k * STEPS + n]++;
     }
   }
-  return { aims, maxNeed, served, finished: 0 };
+  const kinds: number[] = [];
+  for (let k = 0; k < KIND_COUNT; k++) if (k !== JOKER && maxNeed[k] > 0) kinds.push(k);
+  const jokers = aims.some((aim) => aim.need.some((n, k) => n > aim.small[k]));
+  return { aims, maxNeed, served, kinds: Int8Array.from(kinds), jokers, finished: 0 };
 }
 
 /** Working state of one play-out, reused between samples. */
@@ -136,6 +150,10 @@ class Player {
   size = 0;
   lockedJokers = 0;
   locked = -1;
+  /** Kinds held beyond what any aim can use, as bits (kinds 0–31, then 32 on): tiles that serve nothing. */
+  spareLow = 0;
+  spareHigh = 0;
+  private readonly startSpare: [number, number];
 
   constructor(
     readonly plan: Plan,
@@ -143,6 +161,15 @@ class Player {
   ) {
     this.nat = new Int32Array(plan.aims.length);
     this.open = new Int32Array(plan.aims.length);
+    this.counts.set(start);
+    for (let k = 0; k < KIND_COUNT; k++) if (k !== JOKER) this.mark(k);
+    this.startSpare = [this.spareLow, this.spareHigh];
+  }
+
+  private mark(k: number) {
+    const spare = this.counts[k] > this.plan.maxNeed[k];
+    if (k < 32) this.spareLow = spare ? this.spareLow | (1 << k) : this.spareLow & ~(1 << k);
+    else this.spareHigh = spare ? this.spareHigh | (1 << (k - 32)) : this.spareHigh & ~(1 << (k - 32));
   }
 
   reset() {
@@ -156,6 +183,8 @@ class Player {
     }
     this.lockedJokers = 0;
     this.locked = -1;
+    this.spareLow = this.startSpare[0];
+    this.spareHigh = this.startSpare[1];
   }
 
   fit(i: number): number {
@@ -198,6 +227,7 @@ class Player {
     const have = ++this.counts[k];
     this.size++;
     if (k === JOKER) return;
+    this.mark(k);
     const aims = this.plan.aims;
     for (let i = 0; i < aims.length; i++) {
       if (have > aims[i].need[k]) continue;
@@ -210,6 +240,7 @@ class Player {
     const have = this.counts[k]--;
     this.size--;
     if (k === JOKER) return;
+    this.mark(k);
     const aims = this.plan.aims;
     for (let i = 0; i < aims.length; i++) {
       if (have > aims[i].need[k]) continue;
@@ -226,15 +257,16 @@ class Player {
 
   /** Throw the held tile that serves the fewest aims, never one the target uses; jokers last; then the lowest kind. */
   discard() {
-    const target = this.target();
     // A held tile beyond what any aim can use serves nothing: the lowest such kind goes first.
-    const maxNeed = this.plan.maxNeed;
-    for (let k = 0; k < KIND_COUNT; k++) {
-      if (k !== JOKER && this.counts[k] > maxNeed[k]) {
-        this.remove(k);
-        return;
-      }
+    if (this.spareLow !== 0) {
+      this.remove(31 - Math.clz32(this.spareLow & -this.spareLow));
+      return;
     }
+    if (this.spareHigh !== 0) {
+      this.remove(63 - Math.clz32(this.spareHigh & -this.spareHigh));
+      return;
+    }
+    const target = this.target();
     let pick = -1;
     let pickScore = Infinity;
     const served = this.plan.served;
@@ -279,21 +311,76 @@ class Player {
   }
 }
 
+/**
+ * Where each kind turns up in one sample, as bits over rounds (bit r of word r / 32): this
+ * seat's draws, and for each other player the discards whose claim chance came up. A play-out
+ * then visits only the rounds where a kind its aims use turns up, in round order.
+ */
+class Sample {
+  readonly draws: Int32Array;
+  readonly claims: Int32Array;
+
+  constructor(
+    readonly words: number,
+    readonly order: Int8Array,
+  ) {
+    this.draws = new Int32Array(KIND_COUNT * words);
+    this.claims = new Int32Array(OTHER_PLAYERS * KIND_COUNT * words);
+  }
+
+  /** Index the first `length` tiles of the order: every fourth a draw, the three between discards. */
+  index(uniforms: Float64Array, length: number, callRate: number) {
+    this.draws.fill(0);
+    this.claims.fill(0);
+    const words = this.words;
+    for (let at = 0; at < length; at++) {
+      const round = at >> 2;
+      const seat = at & 3;
+      const bit = 1 << (round & 31);
+      const k = this.order[at];
+      if (seat === 0) this.draws[k * words + (round >> 5)] |= bit;
+      else if (uniforms[at] < callRate) this.claims[((seat - 1) * KIND_COUNT + k) * words + (round >> 5)] |= bit;
+    }
+  }
+}
+
 /** Play one sample for a plan; true when the hand finishes. */
-function playOut(player: Player, order: Int8Array, uniforms: Float64Array, length: number, callRate: number): boolean {
+function playOut(player: Player, sample: Sample): boolean {
   player.reset();
   if (player.finished()) return true;
   while (player.size > HAND_SIZE - 1) player.discard();
-  for (let at = 0; at < length; at += 4) {
-    const drawn = order[at];
-    if (player.useful(drawn)) {
-      player.add(drawn);
-      if (player.finished()) return true;
-      if (player.size > HAND_SIZE - 1) player.discard();
+  const { draws, claims, words, order } = sample;
+  const { kinds, jokers } = player.plan;
+  const second = KIND_COUNT * words;
+  const third = 2 * second;
+  for (let w = 0; w < words; w++) {
+    let drawn = jokers ? draws[JOKER * words + w] : 0;
+    let first = 0;
+    let next = 0;
+    let last = 0;
+    for (let i = 0; i < kinds.length; i++) {
+      const at = kinds[i] * words + w;
+      drawn |= draws[at];
+      first |= claims[at];
+      next |= claims[second + at];
+      last |= claims[third + at];
     }
-    if (callRate <= 0) continue;
-    for (let d = at + 1; d < at + 4 && d < length; d++) {
-      if (uniforms[d] < callRate && player.claim(order[d])) return true;
+    let any = drawn | first | next | last;
+    while (any !== 0) {
+      const bit = any & -any;
+      any ^= bit;
+      const base = 4 * (w * 32 + 31 - Math.clz32(bit));
+      if (drawn & bit) {
+        const k = order[base];
+        if (player.useful(k)) {
+          player.add(k);
+          if (player.finished()) return true;
+          if (player.size > HAND_SIZE - 1) player.discard();
+        }
+      }
+      if (first & bit && player.claim(order[base + 1])) return true;
+      if (next & bit && player.claim(order[base + 2])) return true;
+      if (last & bit && player.claim(order[base + 3])) return true;
     }
   }
   return false;
@@ -320,8 +407,8 @@ export function completionOdds(rack: readonly TileKind[], list: readonly Pattern
     const exposable = !buildsWithoutCalls(pattern);
     const prices = assignmentPrices(c, counts, pool, exposable, callRate);
     // Assignments much dearer than the cheapest are not worth aiming at.
-    const ranked = cheapestAssignments(c, counts, prices);
-    const cheap = ranked.filter((a) => prices[a] < Infinity && prices[a] <= prices[ranked[0]] + AIM_MARGIN).slice(0, perPattern);
+    const ranked = cheapestAssignments(c, counts, prices, perPattern);
+    const cheap = ranked.filter((a) => prices[a] < Infinity && prices[a] <= prices[ranked[0]] + AIM_MARGIN);
     const fit = cheap.length > 0 ? fitAt(c, cheap[0], counts) : 0;
     return { pattern, c, order, exposable, cheap, price: cheap.length > 0 ? prices[cheap[0]] : Infinity, fit };
   });
@@ -339,20 +426,23 @@ export function completionOdds(rack: readonly TileKind[], list: readonly Pattern
   const plans = [...new Set([...patternPlans, ...familyPlans])].filter((plan) => plan.aims.length > 0);
   const players = plans.map((plan) => new Player(plan, counts));
 
-  // The unseen tiles as kind indexes, shuffled afresh for each sample.
+  // The unseen tiles as kind indexes, shuffled afresh for each sample. One generator serves
+  // every sample, and each sample takes the same number of values from it whatever the draws
+  // left (up to ROUND_CAP rounds), so a sample's order never depends on the draws left.
   const base: number[] = [];
   for (let k = 0; k < KIND_COUNT; k++) for (let n = 0; n < pool[k]; n++) base.push(k);
+  const shuffled = Math.min(4 * Math.max(ROUND_CAP, drawsLeft), base.length);
   const length = Math.min(4 * drawsLeft, base.length);
   const order = new Int8Array(base.length);
-  const uniforms = new Float64Array(length);
+  const uniforms = new Float64Array(shuffled);
+  const sample = new Sample(Math.max(1, Math.ceil(length / 4 / 32)), order);
+  const rng = rngFor(seed, 'completion-odds');
   for (let s = 0; s < samples && players.length > 0; s++) {
-    const rng = rngFor(seed, 'completion-odds', s);
     order.set(base);
-    for (let i = 0; i < length; i++) {
-      // One draw gives both the position and, from what is left over after taking the whole
+    for (let i = 0; i < shuffled; i++) {
+      // One value gives both the position and, from what is left over after taking the whole
       // part, an independent uniform for the claim chance (about 45 of its 52 random bits
-      // remain). Every discard gets one whether it is used or not, so no sample's order
-      // depends on the play.
+      // remain). Every discard gets one whether it is used or not.
       const scaled = rng() * (base.length - i);
       const whole = Math.floor(scaled);
       const j = i + whole;
@@ -361,7 +451,8 @@ export function completionOdds(rack: readonly TileKind[], list: readonly Pattern
       order[j] = held;
       uniforms[i] = scaled - whole;
     }
-    for (const player of players) if (playOut(player, order, uniforms, length, callRate)) player.plan.finished++;
+    sample.index(uniforms, length, callRate);
+    for (const player of players) if (playOut(player, sample)) player.plan.finished++;
   }
 
   const oddsOf = (plan: Plan) => (plan.aims.length === 0 ? 0 : plan.finished / samples);

@@ -199,12 +199,31 @@ function naturalAt(c: CompiledPattern, a: number, counts: Uint8Array): number {
   return natural;
 }
 
-/** Assignment indexes, cheapest first (ties: more tiles in place, more naturals, then enumeration order). */
-export function cheapestAssignments(c: CompiledPattern, counts: Uint8Array, prices: Float64Array): number[] {
-  const order = Array.from(prices.keys());
-  const fit = order.map((a) => fitAt(c, a, counts));
-  const natural = order.map((a) => naturalAt(c, a, counts));
-  return order.sort((x, y) => prices[x] - prices[y] || fit[y] - fit[x] || natural[y] - natural[x] || x - y || 0);
+/**
+ * Assignment indexes, cheapest first (ties: more tiles in place, more naturals, then
+ * enumeration order); with `limit`, only that many, without sorting the rest.
+ */
+export function cheapestAssignments(c: CompiledPattern, counts: Uint8Array, prices: Float64Array, limit = Infinity): number[] {
+  let pool: number[];
+  if (limit < prices.length) {
+    // The limit-th lowest price: only assignments at or under it can be among the cheapest.
+    const lowest: number[] = [];
+    for (let a = 0; a < prices.length; a++) {
+      const p = prices[a];
+      if (lowest.length >= limit && p >= lowest[lowest.length - 1]) continue;
+      let at = lowest.length;
+      while (at > 0 && lowest[at - 1] > p) at--;
+      lowest.splice(at, 0, p);
+      if (lowest.length > limit) lowest.pop();
+    }
+    const cut = lowest[lowest.length - 1];
+    pool = [];
+    for (let a = 0; a < prices.length; a++) if (prices[a] <= cut) pool.push(a);
+  } else pool = Array.from(prices.keys());
+  const fit = new Map(pool.map((a) => [a, fitAt(c, a, counts)]));
+  const natural = new Map(pool.map((a) => [a, naturalAt(c, a, counts)]));
+  pool.sort((x, y) => prices[x] - prices[y] || fit.get(y)! - fit.get(x)! || natural.get(y)! - natural.get(x)! || x - y || 0);
+  return limit < pool.length ? pool.slice(0, limit) : pool;
 }
 
 /** Cheapest assignment index (same ties as cheapestAssignments) without sorting them all. */
