@@ -209,6 +209,8 @@ export interface ExchangeSummaryDto {
   awayAfter?: number | null;
   /** The pattern the viewer's final rack is nearest to. */
   nearestPattern?: string | null;
+  /** For a finished exchange: how many exchanges of its host were dealt the same deal, itself included (1: nothing to compare yet). */
+  sameDeal?: number;
 }
 
 /** Everything a replay needs: the client rebuilds each step with the shared engine. */

@@ -9,6 +9,32 @@ import { storedLog } from '../services/exchange-log';
 import { figuresFor, listsFor, seatOfUser as seatOf } from '../services/exchange-stats';
 import { dealKey, dealsStillToPlay } from '../services/comparisons';
 
+/** Peers read at most: far more than any host's tables on one seed. */
+const PEERS_MAX = 5000;
+
+/**
+ * For each finished exchange, how many exchanges of its host were dealt the same deal (itself
+ * included, finished or still passing), as the comparison of that exchange groups them: one means
+ * there is nothing to compare it with yet. One query for the peers, on the seeds in the list.
+ */
+async function sameDealCounts(rows: readonly ExchangeRow[]): Promise<Map<string, number>> {
+  const counts = new Map<string, number>();
+  const done = rows.filter((r) => r.status === 'done');
+  if (!done.length) return counts;
+  const peers = await ExchangeRow.findAll({
+    where: { hostId: { [Op.in]: [...new Set(done.map((r) => r.hostId))] }, options: { seed: { [Op.in]: [...new Set(done.map((r) => r.options.seed))] } } },
+    attributes: ['id', 'tableId', 'hostId', 'options'],
+    order: [['startedAt', 'DESC']],
+    limit: PEERS_MAX,
+  });
+  const lists = await listsFor([...done, ...peers]);
+  const keyOf = (r: ExchangeRow) => `${r.hostId}|${dealKey(r.options, lists.get(r.id)!.id)}`;
+  const tally = new Map<string, number>();
+  for (const peer of peers) tally.set(keyOf(peer), (tally.get(keyOf(peer)) ?? 0) + 1);
+  for (const row of done) counts.set(row.id, Math.max(1, tally.get(keyOf(row)) ?? 0));
+  return counts;
+}
+
 export function exchangesRouter() {
   const router = Router();
   router.use(requireUser);
@@ -22,6 +48,7 @@ export function exchangesRouter() {
     });
     const seated = rows.filter((r) => r.status === 'done' && seatOf(r, userId));
     const figures = await figuresFor(seated, (r) => [seatOf(r, userId)!], false);
+    const sameDeal = await sameDealCounts(rows);
     const exchanges: ExchangeSummaryDto[] = rows.map((r) => {
       const seat = seatOf(r, userId);
       const mine = seat ? figures.get(r.id)?.seats[seat] : undefined;
@@ -36,6 +63,7 @@ export function exchangesRouter() {
         awayBefore: mine?.awayBefore ?? null,
         awayAfter: mine?.awayAfter ?? null,
         nearestPattern: mine?.nearest ?? null,
+        ...(sameDeal.has(r.id) ? { sameDeal: sameDeal.get(r.id)! } : {}),
       };
     });
     res.json({ exchanges });

@@ -90,6 +90,15 @@ function Deal({ deal }: { deal: DealComparisonDto }) {
         </p>
         {deal.tables.length === 0 ? (
           <p>No table has finished this deal yet.</p>
+        ) : deal.tables.length === 1 ? (
+          // One table: ranking it, or setting it beside itself, would compare nothing.
+          <p>
+            Only {deal.tables[0].tableName} has {deal.stillPlaying > 0 ? 'finished' : 'played'} this deal so far: there is no other table to compare it with yet.{' '}
+            <Link to={`/replays/${deal.tables[0].exchangeId}`} aria-label={`Replay ${deal.tables[0].tableName}`}>
+              Replay it
+            </Link>{' '}
+            to go over its passes.
+          </p>
         ) : (
           <>
             <h3 className="font-semibold">Tables, best first</h3>

@@ -80,7 +80,7 @@ export function HistoryPage() {
         </p>
       ) : (
         <>
-          <div className="overflow-x-auto rounded-card border border-line/60 bg-card">
+          <div className="relative max-w-full overflow-x-auto rounded-card border border-line/60 bg-card">
             <table className="w-full text-left text-base">
               <caption className="sr-only">My exchanges, sorted by {COLUMNS.find((c) => c.key === sort.column)!.label.toLowerCase()}</caption>
               <thead>
@@ -102,7 +102,7 @@ export function HistoryPage() {
                 {shown.map((row) => (
                   <tr key={row.summary.id} className="border-b border-line/30">
                     <td className="p-2">{new Date(row.summary.startedAt).toLocaleDateString()}</td>
-                    <td className="p-2">{row.summary.tableName}</td>
+                    <td className="min-w-[8rem] p-2 break-words [overflow-wrap:anywhere]">{row.summary.tableName}</td>
                     <td className="p-2">{row.summary.seat ?? 'host'}</td>
                     <td className="p-2">{row.before ?? '—'}</td>
                     <td className="p-2">{row.after ?? '—'}</td>
@@ -113,9 +113,14 @@ export function HistoryPage() {
                           <Link to={`/replays/${row.summary.id}`} aria-label={`Replay ${row.summary.tableName}, ${new Date(row.summary.startedAt).toLocaleDateString()}`}>
                             Replay
                           </Link>
-                          <Link to={`/compare/exchanges/${row.summary.id}`} aria-label={`Compare ${row.summary.tableName} with other tables on the same deal`}>
-                            Compare
-                          </Link>
+                          {row.summary.sameDeal === 1 ? (
+                            // One table on this deal: a comparison would set the table beside itself.
+                            <span className="text-ink-soft">No other table has played this deal yet</span>
+                          ) : (
+                            <Link to={`/compare/exchanges/${row.summary.id}`} aria-label={`Compare ${row.summary.tableName} with other tables on the same deal`}>
+                              Compare
+                            </Link>
+                          )}
                         </span>
                       ) : (
                         <Link to={`/tables/${row.summary.tableId}`}>Still passing</Link>
