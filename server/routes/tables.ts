@@ -90,7 +90,7 @@ export function tablesRouter(registry: TableRegistry) {
    * other seat, ready for the player to deal. It takes no fields.
    */
   router.post('/practice', async (req, res) => {
-    const parsed = z.object({}, { error: 'Send an empty object.' }).strict('A practice table takes no fields.').safeParse(req.body ?? {});
+    const parsed = z.strictObject({}, { error: 'A practice table takes no fields: send an empty object.' }).safeParse(req.body ?? {});
     if (!parsed.success) throw badInput(parsed.error);
     const bot = BOT_STRATEGIES.find((s) => s.id === PRACTICE_BOT)!;
     const user = req.user!;
