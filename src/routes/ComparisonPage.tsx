@@ -1,4 +1,4 @@
-import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import type { ComparedPassDto, ComparedTableDto, DealComparisonDto } from '../../shared/comparisons';
 import { SEATS, type Seat } from '../../shared/seats';
 import { tileName } from '../../shared/tiles';
@@ -8,6 +8,7 @@ import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { PHASE_TITLES, tilesWord } from '../components/phaseWords';
 import { Tile } from '../components/Tile';
+import { SignInFirst } from './SignInFirst';
 
 const seatName = (seat: Seat) => seat[0].toUpperCase() + seat.slice(1);
 
@@ -164,7 +165,7 @@ export function ComparisonPage() {
   const of = useComparisonOf();
   const comparison = useComparison(of ?? { seed: '' }, of !== null);
   if (mePending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (!of) return <FormMessage error>Open a comparison from a lesson, a drill or one of your exchanges.</FormMessage>;
   if (comparison.error) {
     return (

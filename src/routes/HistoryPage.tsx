@@ -1,9 +1,10 @@
 import { useMemo, useState } from 'react';
-import { Link, Navigate } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import type { ExchangeSummaryDto } from '../../shared/protocol';
 import { useMe } from '../api/auth';
 import { useExchanges } from '../api/exchanges';
 import { Button } from '../components/Button';
+import { SignInFirst } from './SignInFirst';
 
 const PAGE_SIZE = 10;
 
@@ -53,7 +54,7 @@ export function HistoryPage() {
   );
 
   if (mePending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (exchanges.isPending) return <p role="status">Loading your exchanges…</p>;
   if (exchanges.error) return <p role="alert">Your exchanges could not be loaded. Please reload the page.</p>;
 

@@ -1,4 +1,4 @@
-import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useMe } from '../api/auth';
 import { ApiError } from '../api/client';
 import { useLesson } from '../api/lessons';
@@ -11,6 +11,7 @@ import { InviteForm } from '../components/InviteForm';
 import { lessonPrice, seatWords } from '../components/LessonList';
 import { LessonRoom } from '../components/LessonRoom';
 import { lessonTimes } from '../components/lessonTime';
+import { SignInFirst } from './SignInFirst';
 
 const isPast = (iso: string) => new Date(iso).getTime() < Date.now();
 
@@ -25,7 +26,7 @@ export function LessonPage() {
   // The teacher reads the deal by the drills' names, not their ids.
   const drills = useDrills(Boolean(lesson.data?.enrollments));
   if (mePending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (lesson.error) {
     return (
       <Card className="mx-auto max-w-lg">

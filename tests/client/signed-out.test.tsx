@@ -131,3 +131,10 @@ test('the header sign-in link carries the page a visitor is on', async () => {
   const link = await screen.findByRole('link', { name: 'Sign in' });
   expect(link.getAttribute('href')).toBe('/sign-in?next=%2Finvitations%2Ftok');
 });
+
+test('a signed-out visitor sent to sign in from a page that needs an account comes back to it', async () => {
+  fakeApi({ ...signedOut });
+  const { router } = renderAt('/compare/exchanges/x1');
+  await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
+  expect(router.state.location.search).toBe('?next=%2Fcompare%2Fexchanges%2Fx1');
+});
