@@ -31,7 +31,7 @@ export function Chat({ messages, onSend }: { messages: readonly ChatMessageDto[]
         <ol className="flex flex-col gap-1">
           {messages.length === 0 && <li className="text-ink-soft">No messages yet.</li>}
           {messages.map((m) => (
-            <li key={m.id}>
+            <li key={m.id} className="min-w-0 break-words [overflow-wrap:anywhere]">
               <span className="font-semibold">{m.displayName}</span>
               {m.seat && <span className="text-sm text-ink-soft"> ({m.seat})</span>}: {m.text}
             </li>

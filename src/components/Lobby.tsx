@@ -15,7 +15,7 @@ function TableRow({ table }: { table: TableDto }) {
   const href = `/tables/${table.id}${table.inviteCode ? `?invite=${table.inviteCode}` : ''}`;
   return (
     <li className="flex flex-wrap items-center justify-between gap-3 border-t border-line/40 py-3 first:border-t-0">
-      <div className="min-w-0">
+      <div className="min-w-0 break-words [overflow-wrap:anywhere]">
         <Link to={href} className="text-lead font-semibold">
           {table.name}
         </Link>

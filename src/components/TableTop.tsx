@@ -3,12 +3,15 @@ import type { TableStateDto } from '../../shared/protocol';
 import { sideOf, type Side } from '../realtime/seating';
 import { SeatCard } from './SeatCard';
 
-/** Whole class strings, so Tailwind can see them. */
+/**
+ * Whole class strings, so Tailwind can see them. The table spreads into three columns by its own
+ * width in rem (a container query), so at a larger text size it stacks sooner instead of clipping seats.
+ */
 const AREA: Record<Side, string> = {
-  top: 'sm:col-start-2 sm:row-start-1',
-  left: 'sm:col-start-1 sm:row-start-2',
-  right: 'sm:col-start-3 sm:row-start-2',
-  bottom: 'sm:col-start-2 sm:row-start-3',
+  top: '@lg:col-start-2 @lg:row-start-1',
+  left: '@lg:col-start-1 @lg:row-start-2',
+  right: '@lg:col-start-3 @lg:row-start-2',
+  bottom: '@lg:col-start-2 @lg:row-start-3',
 };
 const READING_ORDER: readonly Side[] = ['top', 'left', 'right', 'bottom'];
 
@@ -19,7 +22,7 @@ export function TableTop({ table, centre, seatExtra }: { table: TableStateDto; c
   const card = (side: Side) => {
     const seat = bySide.get(side)!;
     return (
-      <div key={seat} className={AREA[side]}>
+      <div key={seat} className={`min-w-0 ${AREA[side]}`}>
         <SeatCard seat={seat} side={side} viewerSeated={table.mySeat !== null} state={table.seats[seat]} playing={playing}>
           {seatExtra?.(seat)}
         </SeatCard>
@@ -27,10 +30,12 @@ export function TableTop({ table, centre, seatExtra }: { table: TableStateDto; c
     );
   };
   return (
-    <div role="group" aria-label="The table, seen from above" className="grid grid-cols-1 gap-2 rounded-card bg-accent-soft/60 p-2 sm:grid-cols-[1fr_minmax(8rem,auto)_1fr] sm:p-3">
-      {READING_ORDER.slice(0, 3).map(card)}
-      {centre && <div className="flex items-center justify-center sm:col-start-2 sm:row-start-2">{centre}</div>}
-      {card('bottom')}
+    <div className="@container">
+      <div role="group" aria-label="The table, seen from above" className="grid grid-cols-1 gap-2 rounded-card bg-accent-soft/60 p-2 sm:p-3 @lg:grid-cols-[minmax(0,1fr)_minmax(7rem,12rem)_minmax(0,1fr)]">
+        {READING_ORDER.slice(0, 3).map(card)}
+        {centre && <div className="flex min-w-0 items-center justify-center @lg:col-start-2 @lg:row-start-2">{centre}</div>}
+        {card('bottom')}
+      </div>
     </div>
   );
 }

@@ -57,7 +57,7 @@ function TablePicture() {
         </div>
         <div className="col-span-3 row-start-3 flex flex-wrap items-end justify-center gap-1" aria-hidden="true">
           {PICTURE_RACK.map((kind, i) => (
-            <Tile key={i} kind={kind} decorative className={`w-[2.25em] sm:w-[2.5em] ${PICTURE_PASS.has(i) ? '-translate-y-2' : ''}`} />
+            <Tile key={i} kind={kind} decorative className={`w-[2.25em] sm:w-[2.5em] md:w-[3em] ${PICTURE_PASS.has(i) ? '-translate-y-2' : ''}`} />
           ))}
         </div>
       </div>
@@ -73,7 +73,7 @@ function StartPage() {
       <div className="grid grid-cols-1 items-center gap-8 md:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <div className="flex min-w-0 flex-col gap-4">
           <h1 className="text-title font-semibold">Rackside: practise the Charleston</h1>
-          <p className="text-lead">
+          <p className="sm:text-lead">
             Rackside is a practice room for the Charleston of American-style mahjong. Sit down with friends, with your teacher, or alone with three bots, and pass
             tiles as often as you like, with advice that explains itself.
           </p>

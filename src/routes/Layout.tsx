@@ -111,8 +111,8 @@ export function Layout() {
         Skip to the page
       </a>
       <header className="border-b-2 border-ink/10 bg-card">
-        <div className={`mx-auto flex ${width} flex-wrap items-center gap-x-4 gap-y-2 px-4 py-2 sm:py-3`}>
-          <Link to="/" className="text-xl font-semibold text-ink no-underline sm:text-2xl">
+        <div className={`mx-auto flex ${width} flex-wrap items-center gap-x-3 gap-y-2 px-4 py-2 sm:gap-x-4 sm:py-3`}>
+          <Link to="/" className="text-lg font-semibold text-ink no-underline sm:text-2xl">
             <span aria-hidden="true" className="mr-2 inline-block rounded-md bg-accent px-2 text-accent-ink">R</span>
             Rackside
           </Link>
@@ -122,7 +122,7 @@ export function Layout() {
             aria-expanded={menuOpen}
             aria-controls="site-menu"
             onClick={() => setOpenAt(menuOpen ? null : pathname)}
-            className="ml-auto flex min-h-11 items-center gap-2 rounded-md border-2 border-ink-soft bg-card px-3 font-semibold sm:hidden"
+            className="ml-auto flex min-h-11 items-center gap-1.5 rounded-md border-2 border-ink-soft bg-card px-2.5 text-base font-semibold sm:hidden"
           >
             <span aria-hidden="true">{menuOpen ? '✕' : '☰'}</span>
             Menu
