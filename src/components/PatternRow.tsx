@@ -14,12 +14,15 @@ function TileStrip({ kinds, label }: { kinds: readonly TileKind[]; label: string
 }
 
 /** One pattern of the list against a rack: how far away, what it keeps, what it still needs. */
-export function PatternRow({ ranked }: { ranked: RankedPattern }) {
+export function PatternRow({ ranked, odds }: { ranked: RankedPattern; odds?: number }) {
   return (
     <li className="flex flex-col gap-1 border-t border-line/40 py-2 first:border-t-0">
       <p className="flex flex-wrap items-baseline justify-between gap-2">
         <span className="font-semibold">{ranked.pattern.name}</span>
-        <span className="rounded-md bg-paper px-2 text-sm font-semibold">{ranked.away === 0 ? 'complete' : `${ranked.away} away`}</span>
+        <span className="flex flex-wrap gap-1">
+          <span className="rounded-md bg-paper px-2 text-sm font-semibold">{ranked.away === 0 ? 'complete' : `${ranked.away} away`}</span>
+          {odds !== undefined && <span className="rounded-md bg-paper px-2 text-sm font-semibold">{odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`} to finish</span>}
+        </span>
       </p>
       <p className="text-sm text-ink-soft">Keeps</p>
       <TileStrip kinds={ranked.keep} label="Keeps" />

@@ -4,6 +4,7 @@ import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
 import { useShallow } from 'zustand/react/shallow';
 import { isPassPhase, PASS_DIRECTION, type CourtesyCount } from '../../shared/exchange';
 import type { ClientEventName, ClientPayload, TableStateDto } from '../../shared/protocol';
+import type { TileKind } from '../../shared/tiles';
 import { SEATS, seatTo } from '../../shared/seats';
 import { useMe } from '../api/auth';
 import { tablePatternsQuery } from '../api/pattern-lists';
@@ -69,16 +70,31 @@ function useActions() {
   return { busy, error, run };
 }
 
-function Playing({ table, run, busy }: { table: TableStateDto; run: ReturnType<typeof useActions>['run']; busy: boolean }) {
+/** The picks of a pass, kept in this browser tab until it resolves: a refresh or the back button keeps them. */
+function usePicks(tableId: string) {
+  const [pick, setPickState] = useState<Picks>(() => storedPicks(tableId));
+  const setPick = (next: Picks) => {
+    setPickState(next);
+    keepPicks(tableId, next);
+  };
+  return { pick, setPick };
+}
+
+/** The rack's tile ids for an advised pass's kinds (never a joker, each tile once). */
+function idsFor(rack: TableStateDto['myRack'], kinds: readonly TileKind[]): string[] {
+  const used = new Set<string>();
+  return kinds.flatMap((kind) => {
+    const tile = rack.find((t) => t.kind === kind && t.kind !== 'joker' && !used.has(t.id));
+    if (!tile) return [];
+    used.add(tile.id);
+    return [tile.id];
+  });
+}
+
+function Playing({ table, run, busy, pick, setPick }: { table: TableStateDto; run: ReturnType<typeof useActions>['run']; busy: boolean } & ReturnType<typeof usePicks>) {
   const view = table.view!;
   const me = table.mySeat;
   const key = stepKey(table);
-  const [pick, setPickState] = useState<Picks>(() => storedPicks(table.tableId));
-  // The picks of a pass stay in this browser tab until it resolves: a refresh or the back button keeps them.
-  const setPick = (next: Picks) => {
-    setPickState(next);
-    keepPicks(table.tableId, next);
-  };
   const [ask, setAsk] = useState<CourtesyCount | null>(null);
   const [said, setSaidFor] = useState({ key: '', text: '' });
   // A message belongs to the step it was said in: the next pass starts with none.
@@ -257,6 +273,7 @@ export function TablePage() {
   const { table, chat, connection, problem } = useTableStore(useShallow((s) => ({ table: s.table, chat: s.chat, connection: s.connection, problem: s.problem })));
   const [joinError, setJoinError] = useState<string | null>(null);
   const { busy, error, run } = useActions();
+  const { pick, setPick } = usePicks(id);
   // The table's own list; the panel judges by the starter list until it loads.
   const list = useQuery({ ...tablePatternsQuery(id, invite), enabled: Boolean(userId && id) });
 
@@ -307,7 +324,7 @@ export function TablePage() {
               onStart={() => void run('table:start', {})}
             />
           ) : (
-            <Playing table={table} run={run} busy={busy} />
+            <Playing table={table} run={run} busy={busy} pick={pick} setPick={setPick} />
           )}
         </div>
         <aside className="flex min-w-0 flex-col gap-4" aria-label="Beside the table">
@@ -316,6 +333,12 @@ export function TablePage() {
               hand={hand}
               adviceHidden={adviceHidden}
               patterns={list.data?.patterns}
+              seen={table.mySeat ? { seat: table.mySeat, history: view.history, kinds: view.kinds } : undefined}
+              onPick={
+                table.mySeat && !table.seats[table.mySeat].committed
+                  ? (kinds, blind) => setPick({ key: stepKey(table), ids: idsFor(table.myRack, kinds), blind })
+                  : undefined
+              }
               pass={isPassPhase(view.phase) && view.passSize > 0 && !(table.mySeat && table.seats[table.mySeat].committed) ? { phase: view.phase, blindAllowed: view.blindAllowed, count: view.passSize } : null}
             />
           )}

@@ -154,7 +154,8 @@ test('advice sits beside the rack and can be hidden, or is hidden by the host fo
   await showTable(tableState(fresh(), 'west'));
   expect(screen.getByRole('heading', { name: 'Nearest patterns' })).toBeTruthy();
   expect(screen.getByRole('heading', { name: 'Advised passes' })).toBeTruthy();
-  expect(screen.getAllByRole('img', { name: /^Pass / }).length).toBeGreaterThan(1);
+  // Worked out off the page's thread: the choices arrive a moment later.
+  expect((await screen.findAllByRole('img', { name: /^Choice \d: pass / }, { timeout: 10_000 })).length).toBeGreaterThan(1);
   await userEvent.click(screen.getByRole('button', { name: 'Hide advice' }));
   expect(screen.getByText(/Advice is hidden/)).toBeTruthy();
   push(tableState(fresh(), 'west', { options: { ...OPTIONS, hideAdvice: true } }, 2));
@@ -283,4 +284,19 @@ test('the host can hand an away player’s seat to a bot, and the player returni
   push({ ...back, version: 9 });
   await userEvent.click(await screen.findByRole('button', { name: 'Take back your seat' }));
   expect(lastSend()).toEqual(['table:sit', { seat: 'east' }]);
+});
+
+test('the panel says where to lean, with odds, pros and drawbacks apart, and “Pick these” picks an advised pass on the rack', async () => {
+  await showTable(tableState(fresh(), 'west'));
+  const first = (await screen.findAllByRole('img', { name: /^Choice 1: pass / }, { timeout: 10_000 }))[0];
+  const choice = first.closest('li')!;
+  expect(within(choice).getByText(/Odds of finishing/)).toBeTruthy();
+  expect(within(choice).getAllByText(/^(Keeps|Drawback|Risk):$/).length).toBeGreaterThan(0);
+  expect(screen.getByRole('heading', { name: 'Where to lean' })).toBeTruthy();
+  expect(screen.getAllByText(/to finish$/).length).toBeGreaterThan(0);
+  expect(screen.getByText('What the words mean')).toBeTruthy();
+  await userEvent.click(within(choice).getByRole('button', { name: /^Pick these/ }));
+  const rack = screen.getByRole('group', { name: 'Your rack' });
+  await waitFor(() => expect(within(rack).getAllByRole('button', { pressed: true })).toHaveLength(3));
+  expect(screen.getByText('Ready to send. Press Enter on the rack or the button.')).toBeTruthy();
 });
