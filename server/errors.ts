@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { UniqueConstraintError } from 'sequelize';
 import type { ZodError } from 'zod';
+import { issueFieldErrors } from '../shared/issue-words';
 
 /** An error meant for the person on the other end: a stable code, a plain message, a status. */
 export class HttpError extends Error {
@@ -14,13 +15,9 @@ export class HttpError extends Error {
   }
 }
 
+/** Field errors from a zod error, each in Rackside's words (shared/issue-words.ts), the first per field. */
 export function fieldErrors(error: ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.join('.') || '_';
-    fields[key] ??= issue.message;
-  }
-  return fields;
+  return issueFieldErrors(error.issues);
 }
 
 export function badInput(error: ZodError): HttpError {

@@ -1,7 +1,8 @@
 /** Pattern lists a teacher owns: the wire schema, its checks and the DTOs. The starter list is served, never stored. */
 import { z } from 'zod';
-import { patternSchema, soundPatterns, validatePattern } from './analysis/schema';
-import { listWorkIssue, type Pattern } from './analysis/pattern';
+import { patternSchema, soundPatterns } from './analysis/schema';
+import { groupLabel, listWorkIssue, type Pattern } from './analysis/pattern';
+import { issueMessage } from './issue-words';
 
 /** The id under which the read-only starter list is served. */
 export const STARTER_LIST_ID = 'starter';
@@ -30,33 +31,67 @@ export const patternListInputSchema = z
   .strict();
 export type PatternListInput = z.input<typeof patternListInputSchema>;
 
+/** One problem with one pattern of a list, or with the patterns together (index null). */
+export interface PatternProblem {
+  /** The field key, `patterns.3.groups.1.size` and the like, or `patterns`. */
+  key: string;
+  index: number | null;
+  /** The pattern's id as written, when it is text. */
+  id?: string;
+  /** Where in the pattern: "group 2 of 4", "value", or nothing for the pattern as a whole. */
+  part?: string;
+  /** What is wrong and what to do, in Rackside's words. */
+  text: string;
+}
+
+/**
+ * Every problem with a list's patterns, the first per field, in list order; or one problem on
+ * `patterns` when the patterns together ask too much work (PATTERN_WORK_LIMITS).
+ */
+export function patternProblems(patterns: readonly unknown[]): PatternProblem[] {
+  // A list that asks too much in all is refused as a whole, before any pattern is tried.
+  const tooMuch = listWorkIssue(soundPatterns(patterns));
+  if (tooMuch) return [{ key: 'patterns', index: null, text: tooMuch }];
+  const problems: PatternProblem[] = [];
+  const keys = new Set<string>();
+  const seen = new Map<string, number>();
+  const add = (problem: PatternProblem) => {
+    if (keys.has(problem.key)) return;
+    keys.add(problem.key);
+    problems.push(problem);
+  };
+  patterns.forEach((candidate, index) => {
+    const raw = candidate as { id?: unknown; groups?: unknown } | null;
+    const id = typeof raw?.id === 'string' && raw.id ? raw.id : undefined;
+    const count = Array.isArray(raw?.groups) ? raw.groups.length : 0;
+    const parsed = patternSchema.safeParse(candidate);
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) {
+        const [head, group] = issue.path;
+        const part = head === 'groups' && typeof group === 'number' ? groupLabel(group, count) : head !== undefined && head !== 'groups' ? String(head) : undefined;
+        const whole = issue.path.length === 0 && issue.code === 'invalid_type';
+        const text = whole ? 'A pattern is named fields written { … }: id, name, family, value, sealed and groups.' : issueMessage(issue);
+        add({ key: ['patterns', index, ...issue.path].join('.'), index, id, part, text });
+      }
+    }
+    if (id !== undefined) {
+      if (seen.has(id)) add({ key: `patterns.${index}.id`, index, id, text: `pattern ${seen.get(id)! + 1} already has this id. Give each pattern its own id.` });
+      else seen.set(id, index);
+    }
+  });
+  return problems;
+}
+
 /**
  * Field errors for a list's patterns, keyed `patterns.3.groups.1.size` and the like, each
  * message naming the pattern id and the group ("Pattern "even-01", group 2 of 4: …"); or one
  * error on `patterns` when the patterns together ask too much work (PATTERN_WORK_LIMITS).
  */
 export function patternFieldErrors(patterns: readonly unknown[]): Record<string, string> {
-  // A list that asks too much in all is refused as a whole, before any pattern is tried.
-  const tooMuch = listWorkIssue(soundPatterns(patterns));
-  if (tooMuch) return { patterns: tooMuch };
   const fields: Record<string, string> = {};
-  const seen = new Map<string, number>();
-  patterns.forEach((candidate, index) => {
-    const parsed = patternSchema.safeParse(candidate);
-    if (!parsed.success) {
-      // validatePattern words the same issues, in the same order, with the pattern and group named.
-      const words = validatePattern(candidate);
-      parsed.error.issues.forEach((issue, k) => {
-        const key = ['patterns', index, ...issue.path].join('.');
-        fields[key] ??= words[k] ?? issue.message;
-      });
-    }
-    const id = (candidate as { id?: unknown } | null)?.id;
-    if (typeof id === 'string') {
-      if (seen.has(id)) fields[`patterns.${index}.id`] ??= `Pattern "${id}": pattern ${seen.get(id)! + 1} already has this id. Give each pattern its own id.`;
-      else seen.set(id, index);
-    }
-  });
+  for (const p of patternProblems(patterns)) {
+    fields[p.key] = p.index === null ? p.text : `Pattern "${p.id ?? '(no id)'}"${p.part ? `, ${p.part}` : ''}: ${p.text}`;
+  }
   return fields;
 }
 

@@ -4,7 +4,8 @@ import { withCurrentFields, type Pattern } from '../../shared/analysis/pattern';
 import { patternFieldErrors, patternListInputSchema, STARTER_LIST_ID } from '../../shared/pattern-lists';
 import { requireTeacher } from '../auth/guards';
 import { DrillRow, PatternListRow } from '../db/models';
-import { badInput, fieldErrors, HttpError } from '../errors';
+import { issueMessage } from '../../shared/issue-words';
+import { badInput, HttpError } from '../errors';
 import { FileRejected } from '../teaching/json-text';
 import { patternListCsv, patternListJson, readPatternListFile, type PatternListFile } from '../teaching/pattern-list-file';
 import { dtoOf, findOwnList, starterDto, starterSummary, summaryOf } from '../teaching/pattern-source';
@@ -81,7 +82,7 @@ export function patternListsRouter() {
     const source = id === STARTER_LIST_ID ? starterDto() : await findOwnList(req.user!.id, id).then((row) => (row ? dtoOf(row) : null));
     if (!source) throw notFound();
     const name = patternListInputSchema.shape.name.optional().safeParse(req.body?.name);
-    if (!name.success) throw new HttpError(400, 'BAD_INPUT', 'Some fields need another look.', { name: fieldErrors(name.error)._ });
+    if (!name.success) throw new HttpError(400, 'BAD_INPUT', 'Some fields need another look.', { name: issueMessage(name.error.issues[0]) });
     const row = await PatternListRow.create({
       id: randomUUID(),
       ownerId: req.user!.id,

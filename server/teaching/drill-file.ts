@@ -11,6 +11,7 @@
  */
 import { z } from 'zod';
 import { drillDealErrors, drillInputSchema, presetRacksOf, type DrillData } from '../../shared/drills';
+import { issueMessage } from '../../shared/issue-words';
 import { STARTER_LIST_ID } from '../../shared/pattern-lists';
 import { fieldPath, FileRejected, parseJsonFile, type FileProblem } from './json-text';
 
@@ -31,19 +32,21 @@ export function drillJson(drill: DrillData, listName: string): string {
 }
 
 const inner = drillInputSchema.shape;
+/** A message for a part that is not an object at all; its other problems (an unknown field) are worded by the issue. */
+const whenNotObject = (message: string) => (issue: { code: string }) => (issue.code === 'invalid_type' ? message : undefined);
 const fileSchema = z
   .object({
     format: z.literal(DRILL_FORMAT, { error: `This is not a Rackside drill file: "format" must be "${DRILL_FORMAT}".` }),
     version: z.literal(DRILL_VERSION, { error: `"version" must be ${DRILL_VERSION}; this Rackside reads version ${DRILL_VERSION}.` }),
     name: inner.name,
     description: inner.description,
-    deal: z.object({ seed: inner.seed, jokers: inner.jokers, racks: inner.racks }, { error: '"deal" is an object with "seed", "jokers" and "racks".' }).strict(),
+    deal: z.object({ seed: inner.seed, jokers: inner.jokers, racks: inner.racks }, { error: whenNotObject('"deal" is an object with "seed", "jokers" and "racks".') }).strict(),
     parts: z
-      .object({ secondCharleston: inner.secondCharleston, courtesy: inner.courtesy }, { error: '"parts" is an object with "secondCharleston" and "courtesy".' })
+      .object({ secondCharleston: inner.secondCharleston, courtesy: inner.courtesy }, { error: whenNotObject('"parts" is an object with "secondCharleston" and "courtesy".') })
       .strict()
       .default({ secondCharleston: true, courtesy: true }),
     patternList: z
-      .object({ id: z.string().min(1).max(64), name: z.string().max(80).optional() }, { error: '"patternList" is an object with "id" and "name".' })
+      .object({ id: z.string().min(1).max(64), name: z.string().max(80).optional() }, { error: whenNotObject('"patternList" is an object with "id" and "name".') })
       .strict()
       .default({ id: STARTER_LIST_ID }),
   })
@@ -57,8 +60,8 @@ export function readDrillJson(text: string): { drill: DrillData; listName: strin
   const data = parseJsonFile(text);
   const parsed = fileSchema.safeParse(data);
   if (!parsed.success) {
-    const problems: FileProblem[] = parsed.error.issues.map((issue) => ({ where: fieldPath(issue.path), message: issue.message }));
-    throw new FileRejected(problems.slice(0, 20));
+    const problems: FileProblem[] = parsed.error.issues.map((issue) => ({ where: fieldPath(issue.path), message: issueMessage(issue) }));
+    throw new FileRejected(problems.slice(0, 50));
   }
   const f = parsed.data;
   const drill: DrillData = {

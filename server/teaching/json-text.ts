@@ -176,3 +176,63 @@ export function parseJsonFile(text: string): unknown {
     throw new FileRejected([{ where: `line ${at.line}, column ${at.column}`, message: at.message }]);
   }
 }
+
+/**
+ * The line on which each value of valid JSON starts, by dotted path ("patterns.2.groups.0"),
+ * down to `maxDepth` names deep: to point a reader at the pattern or field at fault. A scan
+ * with a stack of its own, so no depth of nesting makes it fail.
+ */
+export function jsonValueLines(text: string, maxDepth = 6): Map<string, number> {
+  const lines = new Map<string, number>();
+  const open: { list: boolean; path: string; depth: number; index: number; key: string }[] = [];
+  let line = 1;
+  let expectKey = false;
+  let i = 0;
+  const stringEnd = (from: number) => {
+    let j = from + 1;
+    while (j < text.length && text[j] !== '"') j += text[j] === '\\' ? 2 : 1;
+    return j;
+  };
+  while (i < text.length) {
+    const c = text[i];
+    if (c === '\n') line++;
+    if (c === '\n' || c === ' ' || c === '\t' || c === '\r' || c === ':') {
+      i++;
+      continue;
+    }
+    const top = open[open.length - 1];
+    if (c === ',') {
+      if (top?.list) top.index++;
+      else expectKey = true;
+      i++;
+      continue;
+    }
+    if (c === '}' || c === ']') {
+      open.pop();
+      expectKey = false;
+      i++;
+      continue;
+    }
+    if (top && !top.list && expectKey) {
+      const end = stringEnd(i);
+      top.key = String(JSON.parse(text.slice(i, end + 1)));
+      expectKey = false;
+      i = end + 1;
+      continue;
+    }
+    // A value starts here.
+    const depth = top ? top.depth + 1 : 0;
+    const name = top ? (top.list ? String(top.index) : top.key) : '';
+    const path = top?.path ? `${top.path}.${name}` : name;
+    if (depth <= maxDepth && !lines.has(path)) lines.set(path, line);
+    if (c === '{' || c === '[') {
+      open.push({ list: c === '[', path, depth, index: 0, key: '' });
+      expectKey = c === '{';
+      i++;
+    } else if (c === '"') i = stringEnd(i) + 1;
+    else {
+      while (i < text.length && !/[\s,}\]]/.test(text[i])) i++;
+    }
+  }
+  return lines;
+}

@@ -18,8 +18,9 @@
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
 import { buildsWithoutCalls, patternValue, withCurrentFields, type Group, type Pattern } from '../../shared/analysis/pattern';
-import { PATTERN_LIST_LIMITS, patternFieldErrors, patternListInputSchema } from '../../shared/pattern-lists';
-import { fieldPath, FileRejected, parseJsonFile, type FileProblem } from './json-text';
+import { issueMessage } from '../../shared/issue-words';
+import { PATTERN_LIST_LIMITS, patternListInputSchema, patternProblems, type PatternProblem } from '../../shared/pattern-lists';
+import { fieldPath, FileRejected, jsonValueLines, parseJsonFile, type FileProblem } from './json-text';
 
 export const PATTERN_LIST_FORMAT = 'rackside-pattern-list';
 export const PATTERN_LIST_VERSION = 2;
@@ -39,7 +40,25 @@ export interface PatternListFile {
   patterns: Pattern[];
 }
 
-const MAX_PROBLEMS = 20;
+/** Problems listed for one file: every pattern's, up to this many (then a line saying how many more). */
+export const MAX_PROBLEMS = 300;
+
+/** The problems of a file, all of them up to MAX_PROBLEMS. */
+function rejected(problems: FileProblem[]): FileRejected {
+  if (problems.length <= MAX_PROBLEMS) return new FileRejected(problems);
+  const rest = problems.length - (MAX_PROBLEMS - 1);
+  return new FileRejected([
+    ...problems.slice(0, MAX_PROBLEMS - 1),
+    { where: '(the rest of the file)', message: `${rest} more problems are not listed. Fix these and import the file again to see them.` },
+  ]);
+}
+
+/**
+ * Text left over from older Rackside: the starter list's description once said it could not be
+ * changed, and copies and exports carried the sentence along. A list of one's own can be changed.
+ */
+const STARTER_NOTE = /\s*It can[’']t be changed; copy it to make a list of your own\.\s*/;
+export const withoutStarterNote = (description: string) => description.replace(STARTER_NOTE, ' ').trim();
 
 // ───────────── writing ─────────────
 
@@ -89,18 +108,35 @@ export function patternListCsv(list: PatternListFile): string {
 
 // ───────────── reading ─────────────
 
-/** Checks a list read from any file: the list's fields, then every pattern. */
-function checkList(candidate: { name: unknown; description: unknown; patterns: unknown }, where: (key: string) => string): PatternListFile {
-  const problems: FileProblem[] = [];
+/** How a reader names the place of a problem: a list field (name, patterns), or one pattern's. */
+interface Places {
+  field: (key: string) => string;
+  pattern: (problem: PatternProblem & { index: number }) => string;
+}
+
+/** "group 2 of 5" → "Group 2 of 5: …"; a field's own problem is named by its place alone. */
+const patternMessage = (p: PatternProblem) => (p.part?.startsWith('group') ? `G${p.part.slice(1)}: ${p.text}` : p.text);
+
+/**
+ * Checks a list read from any file: the list's fields and every pattern, all at once, so one
+ * refusal names every problem. `earlier` are problems the reader found itself; the patterns in
+ * `skip` had those and are not checked again (their cells were not readable).
+ */
+function checkList(candidate: { name: unknown; description: unknown; patterns: unknown }, places: Places, earlier: FileProblem[] = [], skip = new Set<number>()): PatternListFile {
+  const problems = [...earlier];
   const parsed = patternListInputSchema.safeParse({ name: candidate.name, description: candidate.description ?? '', patterns: candidate.patterns });
   if (!parsed.success) {
-    for (const issue of parsed.error.issues) problems.push({ where: where(issue.path.join('.')), message: issue.message });
-    throw new FileRejected(problems);
+    for (const issue of parsed.error.issues) problems.push({ where: places.field(issue.path.join('.')), message: issueMessage(issue) });
   }
-  const fields = patternFieldErrors(parsed.data.patterns);
-  for (const [key, message] of Object.entries(fields)) problems.push({ where: where(key), message });
-  if (problems.length) throw new FileRejected(problems.slice(0, MAX_PROBLEMS));
-  return { name: parsed.data.name, description: parsed.data.description, patterns: parsed.data.patterns as Pattern[] };
+  const patterns = candidate.patterns;
+  if (Array.isArray(patterns) && patterns.length <= PATTERN_LIST_LIMITS.patternsMax) {
+    for (const p of patternProblems(patterns)) {
+      if (p.index === null) problems.push({ where: places.field(p.key), message: p.text });
+      else if (!skip.has(p.index)) problems.push({ where: places.pattern(p as PatternProblem & { index: number }), message: patternMessage(p) });
+    }
+  }
+  if (problems.length || !parsed.success) throw rejected(problems);
+  return { name: parsed.data.name, description: withoutStarterNote(parsed.data.description), patterns: parsed.data.patterns as Pattern[] };
 }
 
 function checkFormat(format: unknown, version: unknown, where: { format: string; version: string }): Version {
@@ -118,16 +154,20 @@ function checkFormat(format: unknown, version: unknown, where: { format: string;
 }
 
 /** In a version 2 file, a pattern still using version 1's names is told which names to use. */
-function oldNamesIn(patterns: unknown): FileProblem[] {
-  if (!Array.isArray(patterns)) return [];
+function oldNamesIn(patterns: unknown, place: (index: number, key: string) => string): { problems: FileProblem[]; indexes: Set<number> } {
   const problems: FileProblem[] = [];
+  const indexes = new Set<number>();
+  if (!Array.isArray(patterns)) return { problems, indexes };
   patterns.forEach((p: unknown, index) => {
     if (typeof p !== 'object' || p === null) return;
     for (const [old, now] of [['points', 'value'], ['concealed', 'sealed']] as const) {
-      if (old in p) problems.push({ where: fieldPath(['patterns', String(index), old]), message: `Version 2 names this field "${now}"; "${old}" is version 1's name. Rename it, or mark the file as version 1.` });
+      if (old in p) {
+        indexes.add(index);
+        problems.push({ where: place(index, old), message: `Version 2 names this field "${now}"; "${old}" is version 1's name. Rename it, or mark the file as version 1.` });
+      }
     }
   });
-  return problems.slice(0, MAX_PROBLEMS);
+  return { problems, indexes };
 }
 
 export function readPatternListJson(text: string): PatternListFile {
@@ -141,12 +181,24 @@ export function readPatternListJson(text: string): PatternListFile {
   const extra = Object.keys(data).filter((k) => !known.has(k));
   if (extra.length) throw new FileRejected([{ where: extra[0], message: `"${extra[0]}" is not part of a pattern-list file. Remove it.` }]);
   const d = data as Record<string, unknown>;
-  if (version === 2) {
-    const old = oldNamesIn(d.patterns);
-    if (old.length) throw new FileRejected(old);
-  }
+  const lines = jsonValueLines(text);
+  /** "line 14, pattern 2 (anchor-2), groups[3]": the line of the most exact place the file has. */
+  const place = (index: number, key: string) => {
+    const path = ['patterns', String(index), ...(key ? key.split('.') : [])];
+    let line: number | undefined;
+    for (let n = path.length; n >= 2 && line === undefined; n--) line = lines.get(path.slice(0, n).join('.'));
+    const raw = Array.isArray(d.patterns) ? (d.patterns[index] as { id?: unknown } | null) : null;
+    const id = typeof raw?.id === 'string' && raw.id ? ` (${raw.id})` : '';
+    return `${line ? `line ${line}, ` : ''}pattern ${index + 1}${id}${key ? `, ${fieldPath(key.split('.'))}` : ''}`;
+  };
+  const old = version === 2 ? oldNamesIn(d.patterns, place) : { problems: [], indexes: new Set<number>() };
   const patterns = version === 1 && Array.isArray(d.patterns) ? d.patterns.map(withCurrentFields) : d.patterns;
-  return checkList({ name: d.name, description: d.description, patterns }, (key) => fieldPath(key.split('.')));
+  return checkList(
+    { name: d.name, description: d.description, patterns },
+    { field: (key) => fieldPath(key.split('.')), pattern: (p) => place(p.index, p.key.split('.').slice(2).join('.')) },
+    old.problems,
+    old.indexes,
+  );
 }
 
 /** A rank cell: a number, or a variable letter with an optional offset; a string is the problem. */
@@ -210,18 +262,20 @@ export function readPatternListCsv(text: string): PatternListFile {
   const patterns: (Omit<Pattern, 'value' | 'sealed'> & { value: unknown; sealed: unknown })[] = [];
   // Where each pattern and group came from, to name the line of each problem.
   const lines: { pattern: number; groups: number[] }[] = [];
+  // Patterns with a cell that could not be read: their problems are named here, not checked again.
+  const unreadable = new Set<number>();
   let current: (typeof patterns)[number] | null = null;
   const done = new Set<string>();
   for (const row of groupRows) {
     const id = cell(row, 'id');
-    const at = (column: Column) => `line ${row.line}, column ${columnName(column, fileVersion)}`;
+    const at = (column: Column) => `line ${row.line}, ${id ? `pattern ${id}, ` : ''}column ${columnName(column, fileVersion)}`;
     if (!id) {
       problems.push({ where: at('id'), message: 'Every row names the id of the pattern its group belongs to.' });
       continue;
     }
     if (!current || current.id !== id) {
       if (done.has(id)) {
-        problems.push({ where: at('id'), message: `Pattern "${id}" already ended above; keep the rows of one pattern together.` });
+        problems.push({ where: at('id'), message: `This pattern already ended above; keep the rows of one pattern together.` });
         continue;
       }
       done.add(id);
@@ -235,19 +289,22 @@ export function readPatternListCsv(text: string): PatternListFile {
         sealed: ['yes', 'true'].includes(sealed) ? true : ['no', 'false'].includes(sealed) ? false : sealed,
         groups: [],
       };
-      if (typeof current.value === 'string') problems.push({ where: at('value'), message: `Pattern "${id}": ${columnName('value', fileVersion)} is a whole number, such as 40.` });
-      if (typeof current.sealed === 'string') problems.push({ where: at('sealed'), message: `Pattern "${id}": ${columnName('sealed', fileVersion)} is yes or no.` });
       patterns.push(current);
       lines.push({ pattern: row.line, groups: [] });
+    }
+    const before = problems.length;
+    if (current.groups.length === 0) {
+      if (typeof current.value === 'string') problems.push({ where: at('value'), message: `${columnName('value', fileVersion)} must be a whole number, such as 40.` });
+      if (typeof current.sealed === 'string') problems.push({ where: at('sealed'), message: `${columnName('sealed', fileVersion)} must be yes or no.` });
     } else {
       for (const column of ['name', 'family', 'value', 'sealed'] as const) {
         const value = cell(row, column);
         if (value && value.toLowerCase() !== shown(current[column]).toLowerCase()) {
-          problems.push({ where: at(column), message: `Pattern "${id}": its ${columnName(column, fileVersion)} is given on its first row; leave this cell empty.` });
+          problems.push({ where: at(column), message: `The pattern's ${columnName(column, fileVersion)} is given on its first row; leave this cell empty.` });
         }
       }
     }
-    const label = `Pattern "${id}", group ${current.groups.length + 1}`;
+    const label = `Group ${current.groups.length + 1}`;
     const sizeText = cell(row, 'size');
     const size = /^\d+$/.test(sizeText) ? Number(sizeText) : NaN;
     if (Number.isNaN(size)) problems.push({ where: at('size'), message: `${label}: size is a number of tiles, 1 to 6.` });
@@ -269,25 +326,29 @@ export function readPatternListCsv(text: string): PatternListFile {
       if (typeof rank === 'string') problems.push({ where: at('rank'), message: `${label}: ${rankText ? rank : 'a suit group needs a rank.'}` });
       group = { size, suit, rank: typeof rank === 'string' ? rankText : rank };
     }
+    if (problems.length > before) unreadable.add(patterns.length - 1);
     current.groups.push(group as Group);
     lines[lines.length - 1].groups.push(row.line);
-    if (problems.length >= MAX_PROBLEMS) break;
+    if (problems.length > MAX_PROBLEMS) break;
   }
-  if (problems.length) throw new FileRejected(problems.slice(0, MAX_PROBLEMS));
 
-  const where = (key: string) => {
-    const parts = key.split('.');
-    if (parts[0] !== 'patterns' || parts.length < 2) return key === 'name' ? `line ${first.line + 1}` : `line ${head.line + 1}`;
-    const p = lines[Number(parts[1])];
-    if (!p) return `line ${head.line + 1}`;
-    if (parts[2] === 'groups' && parts[3] !== undefined) {
-      const column = parts[4] === 'tile' || parts[4] === 'suit' || parts[4] === 'rank' || parts[4] === 'dragon' || parts[4] === 'size' ? `, column ${parts[4]}` : '';
-      return `line ${p.groups[Number(parts[3])] ?? p.pattern}${column}`;
-    }
-    const column = parts[2] && (CSV_COLUMNS as readonly string[]).includes(parts[2]) ? `, column ${columnName(parts[2] as Column, fileVersion)}` : '';
-    return `line ${p.pattern}${column}`;
+  const COLUMN_SET: readonly string[] = CSV_COLUMNS;
+  const places: Places = {
+    field: (key) => (key === 'name' ? `line ${first.line + 1}` : `line ${head.line + 1}`),
+    /** "line 9, pattern anchor-2, column size": a group's problem at its own row, the pattern's at its first. */
+    pattern: (p) => {
+      const parts = p.key.split('.');
+      const at = lines[p.index];
+      const id = patterns[p.index].id;
+      if (parts[2] === 'groups' && parts[3] !== undefined) {
+        const column = parts[4] && ['tile', 'suit', 'rank', 'dragon', 'size'].includes(parts[4]) ? `, column ${parts[4]}` : '';
+        return `line ${at.groups[Number(parts[3])] ?? at.pattern}, pattern ${id}${column}`;
+      }
+      const column = parts[2] && COLUMN_SET.includes(parts[2]) ? `, column ${columnName(parts[2] as Column, fileVersion)}` : '';
+      return `line ${at.pattern}, pattern ${id}${column}`;
+    },
   };
-  return checkList({ name: meta.name, description: meta.description ?? '', patterns }, where);
+  return checkList({ name: meta.name, description: meta.description ?? '', patterns }, places, problems, unreadable);
 }
 
 /** Which reader a file name asks for. */

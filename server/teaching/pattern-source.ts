@@ -3,8 +3,10 @@ import { starterPatterns, type Pattern } from '../../shared/analysis';
 import { assignmentBound, PATTERN_WORK_LIMITS, withCurrentFields, workIssues } from '../../shared/analysis/pattern';
 import { STARTER_LIST_ID, STARTER_LIST_NAME, type PatternListDto, type PatternListSummaryDto } from '../../shared/pattern-lists';
 import { PatternListRow } from '../db/models';
+import { withoutStarterNote } from './pattern-list-file';
 
-const STARTER_DESCRIPTION = 'Rackside’s own practice list. It can’t be changed; copy it to make a list of your own.';
+/** The list's own description, carried into copies and exports; that the starter list itself is read-only is shown from `readOnly`. */
+const STARTER_DESCRIPTION = 'Rackside’s own practice list.';
 
 export function starterSummary(): PatternListSummaryDto {
   return { id: STARTER_LIST_ID, name: STARTER_LIST_NAME, description: STARTER_DESCRIPTION, patternCount: starterPatterns.length, readOnly: true, updatedAt: null };
@@ -15,7 +17,7 @@ export function starterDto(): PatternListDto {
 }
 
 export function summaryOf(row: PatternListRow): PatternListSummaryDto {
-  return { id: row.id, name: row.name, description: row.description, patternCount: row.patterns.length, readOnly: false, updatedAt: row.updatedAt.toISOString() };
+  return { id: row.id, name: row.name, description: withoutStarterNote(row.description), patternCount: row.patterns.length, readOnly: false, updatedAt: row.updatedAt.toISOString() };
 }
 
 /**

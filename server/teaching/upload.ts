@@ -65,11 +65,15 @@ export function uploadedText(file: Express.Multer.File): string {
   }
 }
 
-/** A broken file as an API error: the first problem in the message, each one in the fields by where it is. */
+/**
+ * A broken file as an API error: every problem in the fields by where it is (problems at the same
+ * place share one entry), the first one in `file`, and their number in the message.
+ */
 export function fileError(err: FileRejected): HttpError {
   const [first] = err.problems;
-  const more = err.problems.length > 1 ? ` (${err.problems.length - 1} more below)` : '';
+  const count = err.problems.length;
   const fields: Record<string, string> = { file: `${first.where}: ${first.message}` };
-  for (const p of err.problems) fields[p.where] ??= p.message;
-  return new HttpError(400, 'BAD_FILE', `The file was not imported: ${first.where}: ${first.message}${more} Nothing was saved.`, fields);
+  for (const p of err.problems) fields[p.where] = fields[p.where] ? `${fields[p.where]} ${p.message}` : p.message;
+  const summary = count > 1 ? `${count} problems, each listed by its place. The first: ` : '';
+  return new HttpError(400, 'BAD_FILE', `The file was not imported: ${summary}${first.where}: ${first.message} Nothing was saved.`, fields);
 }

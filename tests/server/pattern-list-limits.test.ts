@@ -56,7 +56,7 @@ test('a list with patterns of eight number letters is refused with a field error
   const file = JSON.stringify({ format: 'rackside-pattern-list', version: 1, ...list });
   const imported = await upload(t.ines, '/api/pattern-lists/import', file, 'spread.json');
   expect(imported.status).toBe(400);
-  expect(imported.body.error.fields.file).toMatch(/^patterns\[0\]\.groups: Pattern "spread-01": This pattern uses 8 number letters/);
+  expect(imported.body.error.fields.file).toMatch(/^line 1, pattern 1 \(spread-01\), groups: This pattern uses 8 number letters/);
   expect(await PatternListRow.count()).toBe(0);
 });
 

@@ -77,7 +77,7 @@ test('a version 1 JSON file and a version 1 CSV file import in today\'s names', 
   const wrong = csv.map((l, i) => (i === 3 ? 'harbor-01,Harbor winds,compass,35,maybe,2,flower,,,' : l)).join('\n');
   const refused = await upload(t.ines, '/api/pattern-lists/import', wrong, 'old.csv');
   expect(refused.status).toBe(400);
-  expect(refused.body.error.fields.file).toMatch(/^line 4, column concealed: Pattern "harbor-01": concealed is yes or no/);
+  expect(refused.body.error.fields.file).toMatch(/^line 4, pattern harbor-01, column concealed: concealed must be yes or no/);
   // Version 2's header in a file that says version 1 is refused, naming the columns version 1 expects.
   const mixed = csv.map((l, i) => (i === 2 ? 'id,name,family,value,sealed,size,tile,suit,rank,dragon' : l)).join('\n');
   expect((await upload(t.ines, '/api/pattern-lists/import', mixed, 'old.csv')).body.error.fields.file).toMatch(/^line 3: The header row lacks "points", "concealed"/);
@@ -88,7 +88,7 @@ test('a version 2 file that still uses points or concealed is told the names to 
   const res = await upload(t.ines, '/api/pattern-lists/import', json, 'half.json');
   expect(res.status).toBe(400);
   expect(res.body.error.code).toBe('BAD_FILE');
-  expect(res.body.error.fields.file).toMatch(/^patterns\[0\]\.points: Version 2 names this field "value"; "points" is version 1's name\./);
+  expect(res.body.error.fields.file).toMatch(/^line 1, pattern 1 \(harbor-01\), points: Version 2 names this field "value"; "points" is version 1's name\./);
   expect(await PatternListRow.count()).toBe(0);
 });
 

@@ -185,16 +185,16 @@ test('a hand-written CSV list imports with its ranks, dragons and sealed marks',
 test('a broken CSV file is refused with the line and column at fault, and nothing is saved', async () => {
   const lines = goodCsv.split('\n');
   const cases: [string, string, RegExp][] = [
-    ['a size of 7', lines.map((l, i) => (i === 4 ? 'harbor-01,,,,,7,wind-n,,,' : l)).join('\n'), /^line 5, column size: Pattern "harbor-01", group 2 of 5: A group holds at most 6 tiles/],
-    ['a group short', lines.filter((_, i) => i !== 5).join('\n'), /^line 4: Pattern "harbor-01": The groups add up to 11 tiles/],
-    ['a bad rank', lines.map((l, i) => (i === 9 ? 'step-01,,,,,4,,A,n plus one,' : l)).join('\n'), /^line 10, column rank: Pattern "step-01", group 2: The rank "n plus one"/],
-    ['split rows', [...lines, 'harbor-01,,,,,1,flower,,,'].join('\n'), /^line 13, column id: Pattern "harbor-01" already ended above/],
+    ['a size of 7', lines.map((l, i) => (i === 4 ? 'harbor-01,,,,,7,wind-n,,,' : l)).join('\n'), /^line 5, pattern harbor-01, column size: Group 2 of 5: A group holds at most 6 tiles/],
+    ['a group short', lines.filter((_, i) => i !== 5).join('\n'), /^line 4, pattern harbor-01: The groups add up to 11 tiles/],
+    ['a bad rank', lines.map((l, i) => (i === 9 ? 'step-01,,,,,4,,A,n plus one,' : l)).join('\n'), /^line 10, pattern step-01, column rank: Group 2: The rank "n plus one"/],
+    ['split rows', [...lines, 'harbor-01,,,,,1,flower,,,'].join('\n'), /^line 13, pattern harbor-01, column id: This pattern already ended above/],
     ['an unknown column', lines.map((l, i) => (i === 2 ? `${l},colour` : l)).join('\n'), /^line 3: The header row has unknown columns: "colour"/],
     ['a wrong first line', ['some-other-list,1', ...lines.slice(1)].join('\n'), /^line 1: This is not a Rackside pattern-list file/],
     ['a newer version', ['rackside-pattern-list,3', ...lines.slice(1)].join('\n'), /^line 1: This file is version 3; this Rackside reads version 1 or 2/],
     ['an open quote', lines.map((l, i) => (i === 6 ? 'harbor-01,"Harbor,,,,3,,A,n,' : l)).join('\n'), /^line \d+: This line can't be read as CSV/],
-    ['a tile and a suit at once', lines.map((l, i) => (i === 3 ? 'harbor-01,Harbor winds,compass,25,no,2,flower,A,,' : l)).join('\n'), /^line 4, column tile: Pattern "harbor-01", group 1: a group with a tile/],
-    ['sealed maybe', lines.map((l, i) => (i === 8 ? 'step-01,Two steps,ladder,30,maybe,4,,A,n,' : l)).join('\n'), /^line 9, column sealed: Pattern "step-01": sealed is yes or no/],
+    ['a tile and a suit at once', lines.map((l, i) => (i === 3 ? 'harbor-01,Harbor winds,compass,25,no,2,flower,A,,' : l)).join('\n'), /^line 4, pattern harbor-01, column tile: Group 1: a group with a tile/],
+    ['sealed maybe', lines.map((l, i) => (i === 8 ? 'step-01,Two steps,ladder,30,maybe,4,,A,n,' : l)).join('\n'), /^line 9, pattern step-01, column sealed: sealed must be yes or no/],
   ];
   for (const [what, text, expected] of cases) {
     const res = await upload(t.ines, '/api/pattern-lists/import', text, 'harbor.csv');
@@ -215,7 +215,7 @@ test('a broken JSON file is refused with the line or field at fault, and nothing
     ['a missing bracket', good.slice(0, -1), new RegExp(`^line ${good.split('\n').length}, column 1: The file ends inside an object`)],
     ['single quotes', good.replace('"Harbor JSON"', "'Harbor JSON'"), /^line 4, column 11: Strings take double quotes/],
     ['a wrong format', good.replace('rackside-pattern-list', 'tile-list'), /^format: This is not a Rackside pattern-list file/],
-    ['a bad group', JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'x', patterns: [badGroup] }), /^patterns\[0\]\.groups\[3\]: Pattern "harbor-01", group 4 of 5: A group has a size and either a tile, a suit with a rank/],
+    ['a bad group', JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'x', patterns: [badGroup] }), /^line 1, pattern 1 \(harbor-01\), groups\[3\]: Group 4 of 5: A group has a size and either a tile, a suit with a rank/],
     ['no patterns', JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'x', patterns: [] }), /^patterns: A list needs at least one pattern/],
     ['an extra key', JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'x', patterns: [windsPattern], owner: 'pat' }), /^owner: "owner" is not part of a pattern-list file/],
     ['an empty file', '  ', /^line 1: The file is empty/],
@@ -281,7 +281,7 @@ test('a JSON file nested far too deep is refused with the line and column where 
   const valid = `{"format": "rackside-pattern-list", "version": 1, "name": "x", "patterns": [${'['.repeat(100_000)}${']'.repeat(100_000)}]}`;
   const held = await upload(t.ines, '/api/pattern-lists/import', valid, 'deep.json');
   expect(held.status).toBe(400);
-  expect(held.body.error.fields.file).toMatch(/^patterns\[0\]: Pattern "\(no id\)"/);
+  expect(held.body.error.fields.file).toMatch(/^line 1, pattern 1: A pattern is named fields written \{ … \}/);
   expect(await PatternListRow.count()).toBe(0);
 });
 
