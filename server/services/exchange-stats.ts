@@ -58,6 +58,7 @@ export interface PassFigures {
   /** The top advice for that rack at that step, when advice was worked out (the first of any tied for the top score). */
   advised: { tiles: TileKind[]; blind: number } | null;
   asAdvised: boolean;
+  /** Sent a tile of a pair the advice kept (a pass as advised never counts). */
   brokePair: boolean;
   passedFlower: boolean;
 }
@@ -95,7 +96,8 @@ export function seatFigures(record: SeatRecord, patterns: readonly Pattern[], wi
         blind: p.blind,
         advised,
         asAdvised: best.some((a) => a.blind === p.blind && sorted(a.tiles) === sorted(p.sent)),
-        brokePair: breaksPair(p.rack, p.sent),
+        // A pair the advice would break too is no slip: only a pair the advice kept counts.
+        brokePair: breaksPair(p.rack, p.sent) && !best.some((a) => breaksPair(p.rack, a.tiles)),
         passedFlower: p.sent.includes('flower'),
       };
     }),

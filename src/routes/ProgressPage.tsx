@@ -55,7 +55,7 @@ const AWAY_LINES: LineStyle[] = [
 ];
 const HABIT_LINES: LineStyle[] = [
   { key: 'advised', name: 'Passes as advised', stroke: '#0a6560', dot: 'circle' },
-  { key: 'pair', name: 'Passes that broke a pair', stroke: '#7a3b00', dash: '8 4', dot: 'square' },
+  { key: 'pair', name: 'Passes that broke a pair the advice kept', stroke: '#7a3b00', dash: '8 4', dot: 'square' },
   { key: 'flower', name: 'Passes with a flower', stroke: '#4a3a9e', dash: '2 4', dot: 'diamond' },
 ];
 
@@ -65,7 +65,7 @@ function Totals({ progress }: { progress: ProgressDto }) {
     ['Exchanges played', String(t.exchanges)],
     ['Tiles away gained on average', t.meanGained === null ? '—' : (Math.round(t.meanGained * 10) / 10).toString()],
     ['Passes as advised', percent(t.asAdvisedRate)],
-    ['Passes that broke a pair', percent(t.brokePairRate)],
+    ['Passes that broke a pair the advice kept', percent(t.brokePairRate)],
     ['Passes with a flower', percent(t.passedFlowerRate)],
   ];
   return (
@@ -94,7 +94,7 @@ function PointsTable({ points, name }: { points: ProgressPointDto[]; name: strin
               {p.awayBefore} away after the deal, {p.awayAfter} at the end ({p.gained > 0 ? `+${p.gained}` : p.gained})
             </p>
             <p>
-              Of {p.passes} passes: {p.asAdvised} as advised, {p.brokePair} broke a pair, {p.passedFlower} with a flower
+              Of {p.passes} passes: {p.asAdvised} as advised, {p.brokePair} broke a pair the advice kept, {p.passedFlower} with a flower
             </p>
           </li>
         ))}

@@ -14,6 +14,7 @@ import { PatternRow } from '../components/PatternRow';
 import { Rack } from '../components/Rack';
 import { nearestOf, PASS_DIRECTION, replaySteps, type ReplayStep } from '../components/replaySteps';
 import { Tile } from '../components/Tile';
+import { useRackAnalysis } from '../analysis/useRackAnalysis';
 import { capitalise } from '../realtime/seating';
 
 /** The three nearest patterns, worked out only when opened. */
@@ -33,7 +34,9 @@ function RackDetail({ rack, patterns }: { rack: readonly TileData[]; patterns: r
   );
 }
 
-function SeatPanel({ step, seat, name, patterns }: { step: ReplayStep; seat: Seat; name: string; patterns: readonly Pattern[] }) {
+const percentOf = (odds: number) => (odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`);
+
+function SeatPanel({ step, seat, name, patterns, odds }: { step: ReplayStep; seat: Seat; name: string; patterns: readonly Pattern[]; odds: { best: number; pattern: string | null } | null }) {
   const rack = step.state.racks[seat];
   const pass = step.pass;
   const kinds = new Map(SEATS.flatMap((s) => step.state.racks[s].map((t) => [t.id, t.kind] as const)));
@@ -58,6 +61,11 @@ function SeatPanel({ step, seat, name, patterns }: { step: ReplayStep; seat: Sea
       {nearest && (
         <p className="text-base">
           Nearest: <span className="font-semibold">{nearest.pattern.name}</span>, {nearest.away} away
+        </p>
+      )}
+      {odds && (
+        <p className="text-base">
+          Odds of finishing{odds.pattern ? <> {odds.pattern}</> : null}: <span className="font-semibold">{percentOf(odds.best)}</span>
         </p>
       )}
       <RackDetail rack={rack} patterns={patterns} />
@@ -104,6 +112,10 @@ function Replay({ dto }: { dto: ExchangeReplayDto }) {
   );
   useStepKeys(steps.length, setIndex);
   const step = steps[index];
+  // The odds of finishing, for every seat at every step, worked out off the page's thread.
+  const racks = useMemo(() => steps.flatMap((st) => SEATS.map((s) => st.state.racks[s].map((t) => t.kind))), [steps]);
+  const { answer: oddsAnswer } = useRackAnalysis({ kind: 'odds', racks, patterns: dto.patternList.patterns }, `replay:${dto.id}`);
+  const oddsAt = (i: number, seat: Seat) => oddsAnswer?.odds?.[i * SEATS.length + SEATS.indexOf(seat)] ?? null;
   const names = Object.fromEntries(SEATS.map((s) => [s, dto.seats[s].displayName])) as Record<Seat, string>;
   const passNumber = step.state.history.length - 1;
   const notes = step.pass ? dto.notes.filter((n) => n.passIndex === passNumber) : [];
@@ -142,7 +154,7 @@ function Replay({ dto }: { dto: ExchangeReplayDto }) {
           </h2>
           <div className="grid min-w-0 grid-cols-1 gap-3 md:grid-cols-2">
             {SEATS.map((s) => (
-              <SeatPanel key={s} step={step} seat={s} name={names[s]} patterns={dto.patternList.patterns} />
+              <SeatPanel key={s} step={step} seat={s} name={names[s]} patterns={dto.patternList.patterns} odds={oddsAt(index, s)} />
             ))}
           </div>
         </section>
@@ -168,6 +180,48 @@ function Replay({ dto }: { dto: ExchangeReplayDto }) {
         </aside>
       </div>
       <AwayChart steps={steps} names={names} current={index} />
+      <section aria-labelledby="odds-title" className="flex min-w-0 flex-col gap-2 rounded-card border border-line/60 bg-card p-3 sm:p-4">
+        <h2 id="odds-title" className="text-lead font-semibold">
+          Odds of finishing, step by step
+        </h2>
+        <p className="text-sm text-ink-soft">How often each rack, played out from that step, finishes its likeliest pattern of the table&apos;s list before the wall runs out.</p>
+        {oddsAnswer?.odds ? (
+          <div className="overflow-x-auto" role="region" aria-label="Odds by step" tabIndex={0}>
+            <table className="text-sm">
+              <thead>
+                <tr>
+                  <th scope="col" className="p-1 text-left">
+                    Step
+                  </th>
+                  {SEATS.map((s) => (
+                    <th key={s} scope="col" className="p-1 text-right">
+                      {names[s]}
+                    </th>
+                  ))}
+                </tr>
+              </thead>
+              <tbody>
+                {steps.map((st, i) => (
+                  <tr key={i} className={i === index ? 'font-semibold' : undefined}>
+                    <th scope="row" className="p-1 text-left font-normal">
+                      {st.short}
+                    </th>
+                    {SEATS.map((s) => (
+                      <td key={s} className="p-1 text-right">
+                        {percentOf(oddsAt(i, s)?.best ?? 0)}
+                      </td>
+                    ))}
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        ) : (
+          <p role="status" className="text-ink-soft">
+            Working out the odds…
+          </p>
+        )}
+      </section>
       <div className="flex flex-wrap items-center gap-3">
         <Button
           onClick={() => {

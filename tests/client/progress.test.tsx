@@ -20,7 +20,7 @@ test('my progress shows the totals and every exchange in a table beside the char
   expect(screen.getByText('Exchanges played').nextElementSibling!.textContent).toBe('2');
   expect(screen.getByText('Tiles away gained on average').nextElementSibling!.textContent).toBe('1.5');
   expect(screen.getByText('Passes as advised', { selector: 'dt' }).nextElementSibling!.textContent).toBe('50%');
-  expect(screen.getByText('Passes that broke a pair', { selector: 'dt' }).nextElementSibling!.textContent).toBe('17%');
+  expect(screen.getByText('Passes that broke a pair the advice kept', { selector: 'dt' }).nextElementSibling!.textContent).toBe('17%');
   const rows = within(screen.getByRole('table')).getAllByRole('row').slice(1);
   expect(rows).toHaveLength(2);
   expect(within(rows[1]).getAllByRole('cell').map((c) => c.textContent)).toEqual(['2', new Date('2026-11-12T19:00:00Z').toLocaleDateString(), 'Harbor Lane Thursday', 'south', '9', '7', '+2', '2 of 3', '0 of 3', '0 of 3']);

@@ -86,3 +86,14 @@ test('the replay judges every rack by the table’s own pattern list, not the st
   expect(nearest).toHaveLength(4);
   for (const line of nearest) expect(line.textContent).toContain('Ruth’s only hand');
 });
+
+test('the replay shows each seat’s odds of finishing at every step', async () => {
+  fakeApi(answers);
+  renderAt('/replays/x1');
+  await screen.findByRole('heading', { name: 'Replay: Harbor Lane Tuesday' });
+  const table = await screen.findByRole('region', { name: 'Odds by step' }, { timeout: 10_000 });
+  // One row a step, one figure a seat.
+  expect(within(table).getAllByRole('row')).toHaveLength(1 + replaySteps(dto).length);
+  expect(within(table).getAllByRole('cell').every((c) => /^(\d+%|under 1%)$/.test(c.textContent ?? ''))).toBe(true);
+  expect(screen.getAllByText(/^Odds of finishing/).length).toBeGreaterThanOrEqual(4);
+});
