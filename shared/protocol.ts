@@ -207,6 +207,9 @@ export interface ExchangeSummaryDto {
   /** For a finished exchange where the viewer sat: the fewest tiles away from the table's pattern list after the deal, and at the end. */
   awayBefore?: number | null;
   awayAfter?: number | null;
+  /** The odds (0–1) of finishing the likeliest pattern from the dealt rack, and from the final one. */
+  oddsBefore?: number | null;
+  oddsAfter?: number | null;
   /** The pattern the viewer's final rack is nearest to. */
   nearestPattern?: string | null;
   /** For a finished exchange: how many exchanges of its host were dealt the same deal, itself included (1: nothing to compare yet). */

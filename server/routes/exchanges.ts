@@ -62,6 +62,8 @@ export function exchangesRouter() {
         finishedAt: r.finishedAt?.toISOString() ?? null,
         awayBefore: mine?.awayBefore ?? null,
         awayAfter: mine?.awayAfter ?? null,
+        oddsBefore: mine?.oddsBefore ?? null,
+        oddsAfter: mine?.oddsAfter ?? null,
         nearestPattern: mine?.nearest ?? null,
         ...(sameDeal.has(r.id) ? { sameDeal: sameDeal.get(r.id)! } : {}),
       };

@@ -4,7 +4,7 @@
  * gave up a flower. Finished exchanges never change, so figures are kept once worked out.
  */
 import { Op } from 'sequelize';
-import { advisePass, bestAway, rankPatterns, type Pattern } from '../../shared/analysis';
+import { advisePass, bestAway, completionOdds, rankPatterns, type Pattern } from '../../shared/analysis';
 import { createExchange, isBlindPhase, isPassPhase, replay } from '../../shared/exchange';
 import type { ExchangeOptions, LogEntry, Phase } from '../../shared/exchange/types';
 import { SEATS, type Seat } from '../../shared/seats';
@@ -66,6 +66,9 @@ export interface PassFigures {
 export interface SeatFigures {
   awayBefore: number;
   awayAfter: number;
+  /** Odds of finishing the likeliest pattern of the list, from the dealt rack and from the final one. */
+  oddsBefore: number;
+  oddsAfter: number;
   nearest: string | null;
   passes: PassFigures[];
 }
@@ -80,10 +83,18 @@ export function breaksPair(rack: readonly TileKind[], sent: readonly TileKind[])
   return sent.some((kind) => kind !== 'joker' && rack.filter((k) => k === kind).length >= 2);
 }
 
+/** Played out fewer times than at the table: a figure for a list of many exchanges, seeded by the rack so it repeats. */
+const HISTORY_SAMPLES = 100;
+function bestOdds(rack: readonly TileKind[], patterns: readonly Pattern[]): number {
+  return completionOdds(rack, patterns, { samples: HISTORY_SAMPLES, seed: [...rack].sort().join(',') }).patterns[0]?.odds ?? 0;
+}
+
 export function seatFigures(record: SeatRecord, patterns: readonly Pattern[], withAdvice: boolean): SeatFigures {
   return {
     awayBefore: bestAway(record.start, patterns),
     awayAfter: bestAway(record.end, patterns),
+    oddsBefore: bestOdds(record.start, patterns),
+    oddsAfter: bestOdds(record.end, patterns),
     nearest: rankPatterns(record.end, patterns, 1)[0]?.pattern.name ?? null,
     passes: record.passes.map((p): PassFigures => {
       const advice = withAdvice ? advisePass(p.rack, patterns, { phase: p.phase, blindAllowed: isBlindPhase(p.phase), count: p.sent.length + p.blind }) : [];

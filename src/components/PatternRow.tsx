@@ -7,7 +7,7 @@ function TileStrip({ kinds, label }: { kinds: readonly TileKind[]; label: string
   return (
     <div className="flex flex-wrap items-center gap-0.5" role="img" aria-label={`${label}: ${kinds.map(tileName).join(', ')}`}>
       {kinds.map((kind, i) => (
-        <Tile key={`${kind}-${i}`} kind={kind} decorative className="w-6" />
+        <Tile key={`${kind}-${i}`} kind={kind} decorative className="w-[1.5em]" />
       ))}
     </div>
   );

@@ -42,6 +42,13 @@ function valueOf(row: Row, column: Column): string | number {
   }
 }
 
+/** "8 · 3% to finish": tiles away, and the odds of finishing the likeliest pattern. */
+function withOdds(away: number | null, odds: number | null | undefined) {
+  if (away === null) return '—';
+  if (odds === null || odds === undefined) return String(away);
+  return `${away} · ${odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`} to finish`;
+}
+
 export function HistoryPage() {
   const { data: me, isPending: mePending } = useMe();
   const exchanges = useExchanges();
@@ -81,7 +88,7 @@ export function HistoryPage() {
         </p>
       ) : (
         <>
-          <div className="relative max-w-full overflow-x-auto rounded-card border border-line/60 bg-card">
+          <div role="region" aria-label="My exchanges (scrolls sideways on a narrow screen)" tabIndex={0} className="relative max-w-full overflow-x-auto rounded-card border border-line/60 bg-card">
             <table className="w-full text-left text-base">
               <caption className="sr-only">My exchanges, sorted by {COLUMNS.find((c) => c.key === sort.column)!.label.toLowerCase()}</caption>
               <thead>
@@ -105,8 +112,8 @@ export function HistoryPage() {
                     <td className="p-2">{new Date(row.summary.startedAt).toLocaleDateString()}</td>
                     <td className="min-w-[8rem] p-2 break-words [overflow-wrap:anywhere]">{row.summary.tableName}</td>
                     <td className="p-2">{row.summary.seat ?? 'host'}</td>
-                    <td className="p-2">{row.before ?? '—'}</td>
-                    <td className="p-2">{row.after ?? '—'}</td>
+                    <td className="p-2">{withOdds(row.before, row.summary.oddsBefore)}</td>
+                    <td className="p-2">{withOdds(row.after, row.summary.oddsAfter)}</td>
                     <td className="p-2">{row.nearest ?? '—'}</td>
                     <td className="p-2">
                       {row.summary.status === 'done' ? (

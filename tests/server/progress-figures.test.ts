@@ -34,3 +34,21 @@ test('without advice nothing matches, and tiles away come from the list: 6 of th
   expect(f).toMatchObject({ awayBefore: 8, awayAfter: 8, nearest: 'Harbor steps' });
   expect(f.passes[0]).toMatchObject({ advised: null, asAdvised: false, brokePair: false });
 });
+
+test('a broken pair counts only where the advice kept it: the advised pass itself never counts as breaking one', () => {
+  const top = advisePass(rack, list, { phase: 'first-right', blindAllowed: false })[0];
+  const advisedBreaks = top.tiles.some((k) => rack.filter((x) => x === k).length >= 2);
+  // Passing exactly the advice is never a slip, whatever it breaks.
+  expect(seatFigures(record(top.tiles), list, true).passes[0]).toMatchObject({ asAdvised: true, brokePair: false });
+  // A pass that breaks the 1 bam pung counts when the advice kept every pair, and not when the advice broke one too.
+  expect(seatFigures(record(['bam1', 'dot5', 'crack5']), list, true).passes[0].brokePair).toBe(!advisedBreaks);
+});
+
+test('the figures carry the odds of finishing from the dealt rack and from the final one, between 0 and 1', () => {
+  const f = seatFigures(record(['wind-n', 'wind-s', 'crack5']), list, false);
+  for (const odds of [f.oddsBefore, f.oddsAfter]) {
+    expect(odds).toBeGreaterThanOrEqual(0);
+    expect(odds).toBeLessThanOrEqual(1);
+  }
+  expect(f.oddsBefore).toBe(f.oddsAfter); // the same rack, the same seeded figure
+});
