@@ -7,6 +7,8 @@ import { issueMessage } from './issue-words';
 /** The id under which the read-only starter list is served. */
 export const STARTER_LIST_ID = 'starter';
 export const STARTER_LIST_NAME = 'Starter list';
+/** Said of the starter list where it is shown, from `readOnly`: never part of a description a copy carries. */
+export const READ_ONLY_NOTE = 'It can’t be changed; copy it to make a list of your own.';
 
 export const PATTERN_LIST_LIMITS = { nameMax: 80, descriptionMax: 1000, patternsMax: 200 } as const;
 

@@ -1,4 +1,4 @@
-import { useId, useRef, useState, type FormEvent } from 'react';
+import { useId, useRef, useState, type FormEvent, type ReactNode } from 'react';
 import { ApiError } from '../api/client';
 import { Button } from './Button';
 
@@ -6,23 +6,27 @@ interface Props {
   label: string;
   hint: string;
   accept: string;
-  /** Sends the file; resolves with a line for the person, or throws an ApiError. */
-  onImport: (file: File) => Promise<string>;
+  /** Sends the file; resolves with what to show the person (a line, a link), or throws an ApiError. */
+  onImport: (file: File) => Promise<ReactNode>;
 }
 
-/** A file picker that sends one file and lists every problem the server found in it, line by line. */
+/**
+ * A file picker that sends one file and lists every problem the server found in it, line by line:
+ * one problem as the message itself, several as a count over a list, each problem once. What a
+ * success shows (and any link in it) goes away when the next import starts.
+ */
 export function FileImport({ label, hint, accept, onImport }: Props) {
   const id = useId();
   const input = useRef<HTMLInputElement>(null);
   const [busy, setBusy] = useState(false);
-  const [done, setDone] = useState('');
+  const [done, setDone] = useState<ReactNode>(null);
   const [error, setError] = useState('');
   const [problems, setProblems] = useState<[string, string][]>([]);
 
   const onSubmit = async (e: FormEvent) => {
     e.preventDefault();
     const file = input.current?.files?.[0];
-    setDone('');
+    setDone(null);
     setProblems([]);
     if (!file) return setError('Choose a file first.');
     setError('');
@@ -31,10 +35,13 @@ export function FileImport({ label, hint, accept, onImport }: Props) {
       setDone(await onImport(file));
       if (input.current) input.current.value = '';
     } catch (err) {
-      if (err instanceof ApiError) {
-        setError(err.fields.file ?? err.message);
-        setProblems(Object.entries(err.fields).filter(([k]) => k !== 'file'));
-      } else setError('The file could not be sent. Please try again.');
+      if (err instanceof ApiError && err.code === 'BAD_FILE') {
+        // `file` repeats the first problem, which the list holds already.
+        const found = Object.entries(err.fields).filter(([k]) => k !== 'file');
+        setError(found.length > 1 ? `The file has ${found.length} problems:` : (err.fields.file ?? err.message));
+        setProblems(found.length > 1 ? found : []);
+      } else if (err instanceof ApiError) setError(err.message);
+      else setError('The file could not be sent. Please try again.');
     } finally {
       setBusy(false);
     }
@@ -68,7 +75,7 @@ export function FileImport({ label, hint, accept, onImport }: Props) {
             <span aria-hidden="true">✕ </span>
             {error}
           </p>
-          {problems.length > 1 && (
+          {problems.length > 0 && (
             <ul className="mt-2 list-disc pl-6">
               {problems.map(([where, message]) => (
                 <li key={where}>
@@ -81,9 +88,9 @@ export function FileImport({ label, hint, accept, onImport }: Props) {
         </div>
       )}
       {done && (
-        <p role="status" className="rounded-lg border-2 border-accent bg-accent-soft px-4 py-3 font-medium">
+        <div role="status" className="flex flex-col items-start gap-2 rounded-lg border-2 border-accent bg-accent-soft px-4 py-3 font-medium">
           {done}
-        </p>
+        </div>
       )}
     </form>
   );

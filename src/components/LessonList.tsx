@@ -1,6 +1,7 @@
 import { Link } from 'react-router-dom';
 import { formatMoney, type LessonDto } from '../../shared/lessons';
 import { lessonTimes } from './lessonTime';
+import { countWord } from './phaseWords';
 
 const STATUS_WORDS = { invited: 'Invited', enrolled: 'Accepted', paid: 'Paid' } as const;
 
@@ -22,9 +23,9 @@ function holdEnd(iso: string, now: Date): string {
  * open checkout is not a paid seat, and it comes free again when the hold ends.
  */
 export function seatWords(lesson: Pick<LessonDto, 'seats' | 'seatsTaken' | 'seatsHeld' | 'holdEndsAt' | 'priceCents'>, now = new Date()): string {
-  if (!lesson.priceCents) return `${lesson.seatsTaken} of ${lesson.seats} seats taken`;
+  if (!lesson.priceCents) return `${lesson.seatsTaken} of ${countWord(lesson.seats, 'seat')} taken`;
   const held = lesson.seatsHeld;
-  const paid = `${lesson.seatsTaken - held} of ${lesson.seats} seats paid`;
+  const paid = `${lesson.seatsTaken - held} of ${countWord(lesson.seats, 'seat')} paid`;
   if (!held) return paid;
   const until = lesson.holdEndsAt ? holdEnd(lesson.holdEndsAt, now) : null;
   if (held === 1) return `${paid} · 1 held${until ? ` until ${until}` : ''} while a student pays`;

@@ -1,6 +1,7 @@
 import type { SeatStateDto } from '../../shared/protocol';
 import type { Seat } from '../../shared/seats';
 import { capitalise, SIDE_WORDS, type Side } from '../realtime/seating';
+import { tilesWord } from './phaseWords';
 
 interface Props {
   seat: Seat;
@@ -30,7 +31,7 @@ export function SeatCard({ seat, side, viewerSeated, state, playing, children }:
       </p>
       {playing && (
         <p className="flex flex-wrap items-center gap-x-3 text-sm">
-          <span>{state.rackSize} tiles</span>
+          <span>{tilesWord(state.rackSize)}</span>
           {state.committed ? (
             <span className="inline-flex items-center gap-1 rounded-md bg-accent-soft px-1.5 font-semibold text-ink">
               <span aria-hidden="true">✓</span> Ready

@@ -14,6 +14,15 @@ export const PHASE_TITLES: Record<Phase | 'lobby', string> = {
   done: 'The Charleston is over',
 };
 
+/** A count with its noun: "1 pattern", "3 patterns", "1 match", "2 matches". */
+export function countWord(n: number, one: string, many = `${one}s`) {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
 export function tilesWord(n: number) {
-  return `${n} ${n === 1 ? 'tile' : 'tiles'}`;
+  return countWord(n, 'tile');
+}
+
+export function patternsWord(n: number) {
+  return countWord(n, 'pattern');
 }

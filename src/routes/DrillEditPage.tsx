@@ -15,6 +15,7 @@ import { TeacherOnly } from '../components/TeacherOnly';
 import { TextField } from '../components/TextField';
 import { OpenTableButton } from './DrillsPage';
 import { CheckField } from '../components/CheckField';
+import { patternsWord } from '../components/phaseWords';
 
 type Draft = Required<Omit<DrillInput, 'racks'>> & { racks: PresetRacks };
 
@@ -138,7 +139,7 @@ function DrillForm({ drill }: { drill?: DrillDto }) {
               {(lists.data ?? [{ id: STARTER_LIST_ID, name: 'Starter list', patternCount: 0 }]).map((l) => (
                 <option key={l.id} value={l.id}>
                   {l.name}
-                  {l.patternCount ? ` (${l.patternCount} patterns)` : ''}
+                  {l.patternCount ? ` (${patternsWord(l.patternCount)})` : ''}
                 </option>
               ))}
               {drill && !lists.data?.some((l) => l.id === draft.patternListId) && draft.patternListId !== STARTER_LIST_ID && (

@@ -1,7 +1,7 @@
 import { useId, useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { buildsWithoutCalls, patternValue, type Pattern } from '../../shared/analysis/pattern';
-import type { PatternListDto } from '../../shared/pattern-lists';
+import { READ_ONLY_NOTE, type PatternListDto } from '../../shared/pattern-lists';
 import { ApiError } from '../api/client';
 import { patternListExportUrl, useCopyPatternList, useDeletePatternList, usePatternList, useSavePatternList } from '../api/pattern-lists';
 import { Button } from '../components/Button';
@@ -13,6 +13,7 @@ import { PatternEditor } from '../components/PatternEditor';
 import { PatternTiles } from '../components/PatternTiles';
 import { TeacherOnly } from '../components/TeacherOnly';
 import { TextField } from '../components/TextField';
+import { patternsWord } from '../components/phaseWords';
 
 /** Errors of pattern i, without the "patterns.<i>." prefix. */
 function errorsOf(errors: Record<string, string>, i: number): Record<string, string> {
@@ -53,7 +54,7 @@ function ReadOnlyList({ list }: { list: PatternListDto }) {
         <Link to="/pattern-lists">← All pattern lists</Link>
       </p>
       <h1 className="text-title font-semibold">{list.name}</h1>
-      <p>{list.description}</p>
+      <p>{[list.description, READ_ONLY_NOTE].filter(Boolean).join(' ')}</p>
       <div className="flex flex-wrap gap-3">
         <Button kind="primary" disabled={copy.isPending} onClick={() => copy.mutate({ id: list.id }, { onSuccess: (made) => navigate(`/pattern-lists/${made.id}`) })}>
           Copy into a list of my own
@@ -100,7 +101,7 @@ function ListForm({ list }: { list?: PatternListDto }) {
       {
         onSuccess: (l) => {
           setErrors({});
-          setSaved(`Saved “${l.name}” with ${l.patternCount} patterns.`);
+          setSaved(`Saved “${l.name}” with ${patternsWord(l.patternCount)}.`);
           if (!list) navigate(`/pattern-lists/${l.id}`, { replace: true });
         },
         onError: (err) => {

@@ -1,6 +1,5 @@
-import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
-import type { PatternListSummaryDto } from '../../shared/pattern-lists';
+import { READ_ONLY_NOTE, type PatternListSummaryDto } from '../../shared/pattern-lists';
 import { patternListExportUrl, useCopyPatternList, useImportPatternList, usePatternLists } from '../api/pattern-lists';
 import { Button } from '../components/Button';
 import { Card } from '../components/Card';
@@ -8,6 +7,7 @@ import { FileImport } from '../components/FileImport';
 import { FormMessage } from '../components/FormMessage';
 import { DownloadLink, LinkButton } from '../components/LinkButton';
 import { TeacherOnly } from '../components/TeacherOnly';
+import { patternsWord } from '../components/phaseWords';
 
 function ListRow({ list }: { list: PatternListSummaryDto }) {
   const navigate = useNavigate();
@@ -18,10 +18,11 @@ function ListRow({ list }: { list: PatternListSummaryDto }) {
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h2 className="text-lead font-semibold">{list.name}</h2>
           <span className="rounded-md bg-paper px-2 text-base font-semibold">
-            {list.patternCount} patterns{list.readOnly ? ' · read-only' : ''}
+            {patternsWord(list.patternCount)}
+            {list.readOnly ? ' · read-only' : ''}
           </span>
         </div>
-        {list.description && <p>{list.description}</p>}
+        {(list.description || list.readOnly) && <p>{[list.description, list.readOnly ? READ_ONLY_NOTE : ''].filter(Boolean).join(' ')}</p>}
         <div className="flex flex-wrap gap-3">
           <LinkButton to={`/pattern-lists/${list.id}`} aria-label={`${list.readOnly ? 'View' : 'Edit'} ${list.name}`}>
             {list.readOnly ? 'View' : 'Edit'}
@@ -50,7 +51,6 @@ function ListRow({ list }: { list: PatternListSummaryDto }) {
 function PatternLists() {
   const lists = usePatternLists();
   const importList = useImportPatternList();
-  const [opened, setOpened] = useState('');
   return (
     <div className="flex flex-col gap-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
@@ -74,15 +74,15 @@ function PatternLists() {
           accept=".json,.csv,application/json,text/csv"
           onImport={async (file) => {
             const list = await importList.mutateAsync(file);
-            setOpened(list.id);
-            return `Imported “${list.name}” with ${list.patternCount} patterns.`;
+            // The link is part of the success, so the next import, failed or not, takes it away.
+            return (
+              <>
+                <p>{`Imported “${list.name}” with ${patternsWord(list.patternCount)}.`}</p>
+                <LinkButton to={`/pattern-lists/${list.id}`}>Open the imported list</LinkButton>
+              </>
+            );
           }}
         />
-        {opened && (
-          <p className="mt-2">
-            <LinkButton to={`/pattern-lists/${opened}`}>Open the imported list</LinkButton>
-          </p>
-        )}
       </Card>
     </div>
   );

@@ -5,6 +5,7 @@ import { useMe } from '../api/auth';
 import { useProgress } from '../api/progress';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
+import { countWord } from '../components/phaseWords';
 
 const percent = (n: number | null) => (n === null ? '—' : `${Math.round(n * 100)}%`);
 const share = (n: number, of: number) => (of ? Math.round((n / of) * 100) : 0);
@@ -94,7 +95,7 @@ function PointsTable({ points, name }: { points: ProgressPointDto[]; name: strin
               {p.awayBefore} away after the deal, {p.awayAfter} at the end ({p.gained > 0 ? `+${p.gained}` : p.gained})
             </p>
             <p>
-              Of {p.passes} passes: {p.asAdvised} as advised, {p.brokePair} broke a pair the advice kept, {p.passedFlower} with a flower
+              Of {countWord(p.passes, 'pass', 'passes')}: {p.asAdvised} as advised, {p.brokePair} broke a pair the advice kept, {p.passedFlower} with a flower
             </p>
           </li>
         ))}
