@@ -14,6 +14,7 @@ import { pastAbsoluteLifetime } from '../auth/session';
 import { isOwnOrigin } from '../security/origin';
 import { textOnlyParser } from './text-encoder';
 import { controlCharacterAt } from '../security/control-characters';
+import { issueMessage } from '../../shared/issue-words';
 
 interface SocketData {
   userId: number;
@@ -236,7 +237,7 @@ export function attachRealtime(httpServer: HttpServer, application: Application)
         const parsed = clientEventSchemas[event].safeParse(args[0] ?? {});
         if (!parsed.success) {
           const issue = parsed.error.issues[0];
-          ack({ ok: false, code: 'BAD_INPUT', message: `That ${event} message is not one Rackside understands: ${issue?.path.join('.') || 'payload'}: ${issue?.message}` });
+          ack({ ok: false, code: 'BAD_INPUT', message: `That ${event} message is not one Rackside understands: ${issue ? issueMessage(issue) : 'it is empty.'}` });
           return;
         }
         inFlight += 1;

@@ -40,7 +40,7 @@ test('a table opened from a drill deals its preset racks, keeps them off the wir
   expect(opened.status).toBe(201);
   const table = opened.body.table;
   expect(table.options).toEqual({
-    seed: 'harbor-lane-week-01', jokers: true, secondCharleston: false, courtesy: false, huddleEveryPass: true, teaching: false, hideAdvice: false,
+    seed: 'harbor-lane-week-01', jokers: true, secondCharleston: false, courtesy: false, huddleEveryPass: true, teaching: false, hideAdvice: false, botsPlaySecond: false,
     patternListId: list.id, drillId: drill.id, drillName: 'Harbor Lane week 1',
   });
 
