@@ -73,6 +73,18 @@ test('a control character in a socket payload is refused as bad input, naming th
   expect(chat.message).toMatch(/"text" holds a control character/);
 });
 
+test('a socket message of the wrong shape is answered in Rackside words, not the validator’s', async () => {
+  server = await liveServer();
+  const { host } = await fullTable(server);
+  clients.push(host);
+  const ack = await host.emit('table:sit', { seat: 7 });
+  expect(ack).toMatchObject({ ok: false, code: 'BAD_INPUT' });
+  expect(ack.message).not.toMatch(/Invalid input|expected .*received/);
+  const wrong = await host.emit('chat:send', { text: 42 });
+  expect(wrong.message).toMatch(/^That chat:send message is not one Rackside understands: /);
+  expect(wrong.message).not.toMatch(/Invalid input|expected .*received/);
+});
+
 test('message names every object has, and unknown ones, are answered UNKNOWN_EVENT', async () => {
   server = await liveServer();
   const { host } = await fullTable(server);
