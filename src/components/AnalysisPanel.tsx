@@ -25,8 +25,8 @@ const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 const percent = (odds: number) => (odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`);
 
 const REASON_STYLE: Record<Reason['kind'], { mark: string; label: string; className: string }> = {
-  pro: { mark: '+', label: 'Keeps', className: 'text-ink' },
-  con: { mark: '−', label: 'Drawback', className: 'text-danger' },
+  pro: { mark: '+', label: 'For', className: 'text-ink' },
+  con: { mark: '−', label: 'Against', className: 'text-danger' },
   defence: { mark: '!', label: 'Risk', className: 'text-ink' },
 };
 

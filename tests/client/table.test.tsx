@@ -291,7 +291,7 @@ test('the panel says where to lean, with odds, pros and drawbacks apart, and “
   const first = (await screen.findAllByRole('img', { name: /^Choice 1: pass / }, { timeout: 10_000 }))[0];
   const choice = first.closest('li')!;
   expect(within(choice).getByText(/Odds of finishing/)).toBeTruthy();
-  expect(within(choice).getAllByText(/^(Keeps|Drawback|Risk):$/).length).toBeGreaterThan(0);
+  expect(within(choice).getAllByText(/^(For|Against|Risk):$/).length).toBeGreaterThan(0);
   expect(screen.getByRole('heading', { name: 'Where to lean' })).toBeTruthy();
   expect(screen.getAllByText(/to finish$/).length).toBeGreaterThan(0);
   expect(screen.getByText('What the words mean')).toBeTruthy();
