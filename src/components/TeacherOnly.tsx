@@ -1,13 +1,13 @@
 import type { ReactNode } from 'react';
-import { Navigate } from 'react-router-dom';
 import { useMe } from '../api/auth';
 import { Card } from './Card';
+import { SignInFirst } from '../routes/SignInFirst';
 
 /** Pages for teachers (and admins): others are told why, signed-out visitors go to sign in. */
 export function TeacherOnly({ what, children }: { what: string; children: ReactNode }) {
   const { data: me, isPending } = useMe();
   if (isPending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (me.role !== 'teacher' && me.role !== 'admin') {
     return (
       <Card className="mx-auto max-w-lg">

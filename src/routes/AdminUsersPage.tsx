@@ -1,9 +1,9 @@
-import { Navigate } from 'react-router-dom';
 import { ROLE_NAMES, type RoleName, type UserDto } from '../../shared/protocol';
 import { useAdminUsers, useChangeRole } from '../api/admin';
 import { useMe } from '../api/auth';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
+import { SignInFirst } from './SignInFirst';
 
 function RolePicker({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
   const change = useChangeRole();
@@ -39,7 +39,7 @@ export function AdminUsersPage() {
   const isAdmin = me?.role === 'admin';
   const users = useAdminUsers(isAdmin);
   if (isPending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (!isAdmin) {
     return (
       <Card className="mx-auto max-w-lg">

@@ -1,16 +1,16 @@
-import { Navigate } from 'react-router-dom';
 import { useMe } from '../api/auth';
 import { useLessons } from '../api/lessons';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { LessonList } from '../components/LessonList';
 import { ScheduleLessonForm } from '../components/ScheduleLessonForm';
+import { SignInFirst } from './SignInFirst';
 
 export function LessonsPage() {
   const { data: me, isPending } = useMe();
   const lessons = useLessons(Boolean(me));
   if (isPending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   const teaches = me.role === 'teacher' || me.role === 'admin';
   return (
     <div className="flex flex-col gap-8">

@@ -1,11 +1,12 @@
 import { CartesianGrid, Legend, Line, LineChart, Tooltip, XAxis, YAxis } from 'recharts';
-import { Link, Navigate, useParams } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import type { ProgressDto, ProgressPointDto } from '../../shared/progress';
 import { useMe } from '../api/auth';
 import { useProgress } from '../api/progress';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { countWord } from '../components/phaseWords';
+import { SignInFirst } from './SignInFirst';
 
 const percent = (n: number | null) => (n === null ? '—' : `${Math.round(n * 100)}%`);
 const share = (n: number, of: number) => (of ? Math.round((n / of) * 100) : 0);
@@ -151,7 +152,7 @@ export function ProgressPage() {
   const who = userId ? Number(userId) : 'me';
   const progress = useProgress(who);
   if (mePending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (progress.error) {
     return (
       <Card className="mx-auto max-w-lg">

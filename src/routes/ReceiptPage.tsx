@@ -1,10 +1,11 @@
-import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { formatMoney } from '../../shared/lessons';
 import { useMe } from '../api/auth';
 import { useReceipt } from '../api/payments';
 import { Card } from '../components/Card';
 import { FormMessage } from '../components/FormMessage';
 import { lessonTimes } from '../components/lessonTime';
+import { SignInFirst } from './SignInFirst';
 
 const HEADINGS = { pending: 'Confirming your payment…', paid: 'Receipt', 'refund-due': 'Refund on its way', refunded: 'Refunded', expired: 'Checkout expired', failed: 'Payment not matched' } as const;
 
@@ -15,7 +16,7 @@ export function ReceiptPage() {
   const { data: me, isPending } = useMe();
   const receipt = useReceipt(sessionId);
   if (isPending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (!sessionId) return <FormMessage error>This address is missing its checkout reference. Open the lesson page to see whether your seat is paid.</FormMessage>;
   if (receipt.error) return <FormMessage error>{receipt.error.message}</FormMessage>;
   if (!receipt.data) return <p role="status">Loading…</p>;

@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
-import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { rankPatterns, type Pattern } from '../../shared/analysis';
 import type { ExchangeReplayDto } from '../../shared/protocol';
 import { SEATS, seatTo, type Seat } from '../../shared/seats';
@@ -16,6 +16,7 @@ import { nearestOf, PASS_DIRECTION, replaySteps, type ReplayStep } from '../comp
 import { Tile } from '../components/Tile';
 import { useRackAnalysis } from '../analysis/useRackAnalysis';
 import { capitalise } from '../realtime/seating';
+import { SignInFirst } from './SignInFirst';
 
 /** The three nearest patterns, worked out only when opened. */
 function RackDetail({ rack, patterns }: { rack: readonly TileData[]; patterns: readonly Pattern[] }) {
@@ -242,7 +243,7 @@ export function ReplayPage() {
   const { data: me, isPending: mePending } = useMe();
   const replay = useReplay(id);
   if (mePending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (replay.isPending) return <p role="status">Loading the replay…</p>;
   if (replay.error)
     return (

@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
-import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useShallow } from 'zustand/react/shallow';
 import { isPassPhase, PASS_DIRECTION, type CourtesyCount } from '../../shared/exchange';
 import type { ClientEventName, ClientPayload, TableStateDto } from '../../shared/protocol';
@@ -23,6 +23,7 @@ import { TableTop } from '../components/TableTop';
 import { joinTable, leaveTable, send } from '../realtime/socket';
 import { useTableStore } from '../realtime/tableStore';
 import { VoteTally, voteResult } from '../components/VoteBoard';
+import { SignInFirst } from './SignInFirst';
 
 function stepKey(table: TableStateDto) {
   return `${table.exchangeId}:${table.view?.phase}:${table.view?.history.length}`;
@@ -290,7 +291,7 @@ export function TablePage() {
   }, [userId, id, invite]);
 
   if (isPending) return <p role="status">Loading…</p>;
-  if (!me) return <Navigate to="/sign-in" replace />;
+  if (!me) return <SignInFirst />;
   if (joinError) return <FormMessage error>{joinError}</FormMessage>;
   if (!table || table.tableId !== id) return <p role="status">{problem ?? 'Joining the table…'}</p>;
 

@@ -138,3 +138,10 @@ test('a signed-out visitor sent to sign in from a page that needs an account com
   await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
   expect(router.state.location.search).toBe('?next=%2Fcompare%2Fexchanges%2Fx1');
 });
+
+test('a table link opened while signed out goes to sign-in and comes back to that table', async () => {
+  fakeApi({ 'GET /api/auth/me': { status: 401, body: { error: { code: 'UNAUTHENTICATED', message: 'Please sign in first.' } } } });
+  const { router } = renderAt('/tables/t1?invite=abc');
+  await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
+  expect(new URLSearchParams(router.state.location.search).get('next')).toBe('/tables/t1?invite=abc');
+});
