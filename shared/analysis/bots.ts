@@ -10,13 +10,20 @@ import type { Action, CourtesyCount, ExchangeView, Phase } from '../exchange/typ
 import { randomInt, rngFor, type Rng } from '../random';
 import { isSeat, type Seat } from '../seats';
 import { kindOrder, MATCHING_DRAGON, rankOf, suitOf, type Suit, type Tile, type TileKind } from '../tiles';
-import { advisePass } from './advice';
-import { bestAway, rankPatterns } from './away';
+import { adviceContextFor, advisePass } from './advice';
+import { bestAway } from './away';
+import { rackFocus } from './focus';
+import { completionOdds } from './odds';
 import type { Pattern } from './pattern';
 import { summarizeRack } from './summary';
 
-/** A bot votes to stop after the first Charleston when its best pattern is at most this many tiles away. */
+/** The multiples bot votes to stop after the first Charleston when its best pattern is at most this many tiles away. */
 export const STOP_WHEN_AWAY = 4;
+/**
+ * The advised bot votes to stop when its odds of finishing the best pattern are at least this:
+ * a second Charleston sends nine more tiles away, which a rack this far along can ill spare.
+ */
+export const STOP_WHEN_ODDS = 0.3;
 /** The most tiles a courtesy ask may name. */
 export const COURTESY_ASK_MAX = 3;
 
@@ -154,7 +161,10 @@ export class MultiplesBot implements Bot {
   }
 }
 
-/** Follows the pass advice: the best-scored pass, and courtesy asks for the tiles the closest pattern does not use. */
+/**
+ * Follows the pass advice (with the seat's history, for defence); votes to stop when its odds
+ * of finishing are already good; asks for as many courtesy tiles as it has spare.
+ */
 export class AdvisedBot implements Bot {
   readonly strategy = 'advised' as const;
 
@@ -163,14 +173,12 @@ export class AdvisedBot implements Bot {
     if (!task) return null;
     const rack = ownRack(view);
     const kinds = rack.map((t) => t.kind);
-    if (task.kind === 'vote') return { type: 'vote', stop: bestAway(kinds, list) <= STOP_WHEN_AWAY };
-    if (task.kind === 'ask') {
-      const best = rankPatterns(kinds, list, 1)[0];
-      const passable = kinds.filter((k) => k !== 'joker').length;
-      const kept = best ? best.keep.filter((k) => k !== 'joker').length : 0;
-      return { type: 'courtesy-ask', count: courtesyCount(passable - kept) };
+    if (task.kind === 'vote') {
+      const odds = completionOdds(kinds, list, {});
+      return { type: 'vote', stop: (odds.patterns[0]?.odds ?? 0) >= STOP_WHEN_ODDS };
     }
-    const advice = advisePass(kinds, list, { phase: view.phase as Phase, blindAllowed: task.blindAllowed, count: task.size })[0];
+    if (task.kind === 'ask') return { type: 'courtesy-ask', count: courtesyCount(rackFocus(kinds, list, { phase: view.phase }).spare.length) };
+    const advice = advisePass(kinds, list, { ...adviceContextFor(view), phase: view.phase as Phase, blindAllowed: task.blindAllowed, count: task.size })[0];
     if (!advice) return passAction([], task.size, task);
     return passAction(idsForKinds(rack, advice.tiles), advice.blind, task);
   }
@@ -192,7 +200,7 @@ export const BOT_STRATEGIES: readonly BotStrategyInfo[] = [
   {
     id: 'advised',
     name: 'Coach',
-    description: 'Plays the pass advice: keeps what its closest patterns use and avoids feeding a neighbour.',
+    description: 'Plays the pass advice: keeps the tiles that give the best odds of finishing, avoids feeding the neighbour a pass goes to, stops early only with good odds.',
     create: () => new AdvisedBot(),
   },
 ];

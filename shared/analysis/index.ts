@@ -15,7 +15,22 @@ export {
 export { patternSchema, validatePattern, validatePatternList } from './schema';
 export { enumerateAssignments, groupKind, type Assignment } from './compile';
 export { bestAway, fitDetail, rankPatterns, tilesAway, tilesAwayCounts, countsOf, type FitDetail, type RankedPattern } from './away';
-export { advisePass, defaultMargin, DEFENCE, MAX_FOCUS, PASS_SIZE, passChoices, type AdviceContext, type PassAdvice } from './advice';
+export {
+  ADVICE,
+  adviceContextFor,
+  advisePass,
+  adviseRack,
+  DEFENCE,
+  PASS_SIZE,
+  passChoices,
+  type AdviceContext,
+  type AdviceResult,
+  type PassAdvice,
+  type Reason,
+  type ReasonKind,
+} from './advice';
+export { rackFocus, LIVE, PICK, type FamilyFocus, type FocusOptions, type RackFocus } from './focus';
+export { neighbourWords, passRisk, readNeighbours, riskSentence, RISK_LEVELS, type DefenceInput, type NeighbourRead, type PassRisk, type RiskLevel, type Trait } from './defence';
 export { summarizeRack, type RackSummary } from './summary';
 export { STARTER_FAMILIES, starterPatterns } from './starter-patterns';
 export * from './bots';

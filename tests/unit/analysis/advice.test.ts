@@ -1,9 +1,10 @@
 import fc from 'fast-check';
 import { combinations } from 'mathjs';
 import { expect, test } from 'vitest';
-import { advisePass, countsOf, DEFENCE, passChoices, starterPatterns, tilesAway, type PassAdvice } from '../../../shared/analysis';
-import { PHASES } from '../../../shared/exchange';
-import { fullSet, TILE_KINDS, type TileKind } from '../../../shared/tiles';
+import { ADVICE, advisePass, adviseRack, countsOf, DEFENCE, passChoices, starterPatterns, tilesAway, type PassAdvice } from '../../../shared/analysis';
+import { createExchange, PHASES } from '../../../shared/exchange';
+import { SEATS } from '../../../shared/seats';
+import { fullSet, suitOf, TILE_KINDS, type TileKind } from '../../../shared/tiles';
 import { rack, testPattern } from './helpers';
 
 const distinct13: TileKind[] = ['bam1', 'bam5', 'bam9', 'crack2', 'crack6', 'dot3', 'dot7', 'wind-n', 'wind-e', 'dragon-red', 'dragon-green', 'flower', 'dot9'];
@@ -66,6 +67,7 @@ test('every advice is a legal pass, best first, each option once, each with reas
         expect(a.blind).toBeLessThanOrEqual(allowed ? count : 0);
         expect(isSubMultiset(a.tiles, hand)).toBe(true);
         expect(a.reasons.length).toBeGreaterThan(0);
+        expect(a.details.map((d) => d.kind)).toContain('defence');
         expect(a.score).toBeLessThanOrEqual(i === 0 ? Infinity : advice[i - 1].score);
         keys.add(`${a.blind}:${[...a.tiles].sort().join(',')}`);
       });
@@ -114,58 +116,64 @@ const evenClimb = testPattern(
 );
 const nearlyDone = [...rack(['dot2', 4], ['dot4', 3], ['dot6', 3], ['dot8', 3]), 'wind-n' as TileKind];
 
-test('a rack one tile away passes its spare tile', () => {
+test('a rack one tile away passes its spare tile, and says the pass costs odds it must give', () => {
   const [best] = advisePass(nearlyDone, [evenClimb], { phase: 'first-right', blindAllowed: false });
   expect(best.tiles).toContain('wind-n');
-  expect(best.reasons[0]).toBe('gives up two tiles "Even climb in one suit" uses (1 → 3 away)');
+  expect(best.details).toContainEqual({ kind: 'pro', text: 'Passes the north wind: no live family uses it.' });
+  expect(best.odds!.after).toBeLessThan(best.odds!.before);
+  expect(best.gain).toBeLessThan(0);
 });
 
 test('on a blind pass a rack one tile away sends its spare and forwards two blind', () => {
   const [best] = advisePass(nearlyDone, [evenClimb], { phase: 'first-left', blindAllowed: true });
   expect(best).toMatchObject({ tiles: ['wind-n'], blind: 2 });
-  expect(best.reasons).toContain('keeps every tile "Even climb in one suit" uses (1 away)');
-  expect(best.reasons).toContain('forwards two arriving tiles blind, so you keep more of your own');
-  expect(best.toward).toEqual({ id: 'even-climb', name: 'Even climb in one suit', away: 1 });
+  expect(best.reasons).toContain('Forwards two arriving tiles blind, so you keep more of your own.');
+  expect(best.toward).toMatchObject({ id: 'even-climb', name: 'Even climb in one suit', away: 1 });
+  expect(best.toward!.odds).toBeGreaterThan(0.5);
 });
 
 test('a complete rack forwards all three blind when it may', () => {
   const complete = rack(['dot2', 4], ['dot4', 3], ['dot6', 3], ['dot8', 4]);
   const [best] = advisePass(complete, [evenClimb], { phase: 'second-right', blindAllowed: true });
   expect(best).toMatchObject({ tiles: [], blind: 3 });
-  expect(best.reasons).toContain('forwards all three arriving tiles blind, so your rack stays as it is');
+  expect(best.reasons).toContain('Forwards all three arriving tiles blind, so your rack stays as it is.');
 });
 
-// With no patterns in view, only the defence counts: the penalties show through bare.
+// With no patterns in view, only the defence and the teacher's priors count.
 const defenceRack: TileKind[] = ['wind-n', 'wind-n', 'bam3', 'bam4', 'flower', 'crack9', 'dot1', 'dragon-red', 'wind-e', 'dot5', 'crack1', 'bam8', 'dragon-white'];
 const bare = advisePass(defenceRack, [], { phase: 'first-right', blindAllowed: false });
 const find = (tiles: TileKind[]): PassAdvice => bare.find((a) => [...a.tiles].sort().join() === [...tiles].sort().join())!;
+const plain = find(['dot1', 'crack9', 'bam8']);
 
-test('passing a pair feeds a neighbour and says so', () => {
+test('passing a pair feeds a neighbour, costs more than three loose tiles, and says both', () => {
   const gift = find(['wind-n', 'wind-n', 'crack9']);
-  expect(gift.score).toBeCloseTo(-DEFENCE.sameKind);
-  expect(gift.reasons).toContain('gives away two north winds');
+  expect(gift.score).toBeCloseTo(-(ADVICE.defence * DEFENCE.sameKind + ADVICE.deadPairPrior));
+  expect(gift.score).toBeLessThan(plain.score);
+  expect(gift.details).toContainEqual({ kind: 'con', text: 'Gives away your pair of north winds, but no live family uses north winds.' });
+  expect(gift.details).toContainEqual({ kind: 'defence', text: 'High risk: hands the player on your right two north winds at once.' });
 });
 
-test('passing one of a pair says it breaks the pair', () => {
-  expect(find(['wind-n', 'dot1', 'crack9']).reasons).toContain('breaks your pair of north winds');
+test('passing one of a pair says it breaks the pair, as a drawback', () => {
+  expect(find(['wind-n', 'dot1', 'crack9']).details).toContainEqual({ kind: 'con', text: 'Breaks your pair of north winds, but no live family uses north winds.' });
 });
 
-test('passing neighbours in one suit is penalised and explained', () => {
+test('passing neighbours in one suit is a risk, and said as one', () => {
   const run = find(['bam3', 'bam4', 'crack9']);
-  expect(run.score).toBeCloseTo(-DEFENCE.neighbours);
-  expect(run.reasons).toContain('passes a 3 bam and a 4 bam together, a start on a run for a neighbour');
+  expect(run.score).toBeCloseTo(-ADVICE.defence * DEFENCE.neighbours);
+  expect(run.risk.words).toContain('hands the player on your right a 3 bam and a 4 bam together, a start on a run');
 });
 
-test('passing a flower is penalised and explained', () => {
+test('passing a flower is a risk and a drawback', () => {
   const flower = find(['flower', 'dot1', 'crack9']);
-  expect(flower.score).toBeCloseTo(-DEFENCE.flower);
-  expect(flower.reasons).toContain('gives away a flower');
+  expect(flower.score).toBeCloseTo(-ADVICE.defence * DEFENCE.flower);
+  expect(flower.details).toContainEqual({ kind: 'con', text: 'Gives away a flower, but no live family uses flowers.' });
 });
 
-test('a pass that feeds nobody scores best and breaks no pair', () => {
+test('a pass that feeds nobody scores best', () => {
   expect(bare[0].score).toBeCloseTo(0);
-  expect(bare[0].reasons).toEqual(['breaks no pair', 'keeps your pair of north winds']);
+  expect(bare[0].risk).toMatchObject({ level: 'low', score: 0 });
   expect(bare[0].toward).toBeNull();
+  expect(bare[0].odds).toBeNull();
 });
 
 test('a courtesy pass offers the agreed count', () => {
@@ -181,4 +189,60 @@ test('advice is the same every time for the same rack', () => {
   const a = advisePass(defenceRack, starterPatterns, { phase: 'first-across', blindAllowed: false });
   const b = advisePass([...defenceRack].reverse(), starterPatterns, { phase: 'first-across', blindAllowed: false });
   expect(b).toEqual(a);
+});
+
+const dealt = (prefix: string, n: number) => Array.from({ length: n }, (_, i) => createExchange({ seed: `${prefix}-${i}` }).racks[SEATS[i % 4]].map((t) => t.kind));
+
+test('a wind or dragon pair is not broken when three spare plain singles could go', () => {
+  let checked = 0;
+  for (const hand of dealt('advice-pairs', 160)) {
+    const honourPairs = TILE_KINDS.filter((k) => (k.startsWith('wind') || k.startsWith('dragon')) && hand.filter((x) => x === k).length === 2);
+    if (honourPairs.length === 0) continue;
+    const { advice, focus } = adviseRack(hand, starterPatterns, { phase: 'first-right', blindAllowed: false });
+    const plainSpare = [...new Set(focus.spare)].filter((k) => suitOf(k) !== null && hand.filter((x) => x === k).length === 1);
+    if (plainSpare.length < 3) continue;
+    checked++;
+    expect(advice[0].tiles.filter((k) => honourPairs.includes(k)), hand.join(' ')).toEqual([]);
+  }
+  expect(checked).toBeGreaterThanOrEqual(10);
+});
+
+test('pros and cons are apart: a drawback is never styled as a benefit, and every pass says its defence', () => {
+  const drawback = /^(Gives up|Breaks|Gives away|Behind|Holds on|No live family has room)|points? below/;
+  for (const hand of dealt('advice-kinds', 8)) {
+    const advice = advisePass(hand, starterPatterns, { phase: 'first-left', blindAllowed: true });
+    for (const a of advice.slice(0, 5)) {
+      for (const d of a.details) {
+        if (drawback.test(d.text)) expect(d.kind, d.text).toBe('con');
+        if (/^(Passes .*: no live family uses|Keeps your|Best odds)/.test(d.text)) expect(d.kind, d.text).toBe('pro');
+      }
+      expect(a.details.filter((d) => d.kind === 'defence' && /^(Low|Some|High) risk: /.test(d.text))).toHaveLength(1);
+      expect(a.reasons).toEqual(a.details.map((d) => d.text));
+    }
+  }
+});
+
+test('a flower is passed only with a reason that speaks of flowers', () => {
+  // Dealt racks: the top advice keeps every flower a live family uses; any flower in the top three is explained.
+  for (const hand of dealt('advice-flowers', 40)) {
+    if (!hand.includes('flower')) continue;
+    const { advice, focus } = adviseRack(hand, starterPatterns, { phase: 'first-right', blindAllowed: false });
+    const flowersLive = focus.live.some((f) => /flower/.test(f.lean)) || focus.flexible.some((f) => f.kind === 'flower');
+    if (flowersLive) expect(advice[0].tiles, hand.join(' ')).not.toContain('flower');
+    for (const a of advice.slice(0, 3).filter((x) => x.tiles.includes('flower'))) {
+      expect(a.details.some((d) => /flower/.test(d.text) && d.kind === 'con'), a.reasons.join(' | ')).toBe(true);
+    }
+  }
+  // A list with no flowers at all: the flower goes, and the advice says why that costs little.
+  const noFlowers = testPattern('no-flowers', [
+    { size: 3, suit: 'crack', rank: 1 },
+    { size: 3, suit: 'crack', rank: 2 },
+    { size: 3, suit: 'crack', rank: 3 },
+    { size: 3, tile: 'wind-e' },
+    { size: 2, tile: 'wind-w' },
+  ]);
+  const hand: TileKind[] = ['crack1', 'crack1', 'crack1', 'crack2', 'crack2', 'crack2', 'crack3', 'crack3', 'wind-e', 'wind-e', 'wind-w', 'flower', 'bam5'];
+  const [best] = advisePass(hand, [noFlowers], { phase: 'first-right', blindAllowed: false });
+  expect(best.tiles).toContain('flower');
+  expect(best.details).toContainEqual({ kind: 'con', text: 'Gives away a flower, but no live family uses flowers.' });
 });

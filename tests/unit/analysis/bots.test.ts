@@ -7,6 +7,8 @@ import {
   isBotStrategyId,
   starterPatterns,
   STOP_WHEN_AWAY,
+  STOP_WHEN_ODDS,
+  completionOdds,
   tilesAway,
   type BotStrategyId,
 } from '../../../shared/analysis';
@@ -148,6 +150,38 @@ const evenClimb = testPattern('even-climb', [
 const withClimb = [...starterPatterns, evenClimb];
 const complete = rack(['dot2', 4], ['dot4', 3], ['dot6', 3], ['dot8', 3]);
 const scattered: TileKind[] = ['bam1', 'bam5', 'bam9', 'crack2', 'crack6', 'dot3', 'dot7', 'wind-n', 'wind-e', 'dragon-red', 'flower', 'dot9', 'crack9'];
+
+test('the advised bot votes by its odds of finishing: it stops only when they are already good', () => {
+  const odds = (kinds: TileKind[]) => completionOdds(kinds, withClimb).patterns[0].odds;
+  expect(odds(complete)).toBeGreaterThanOrEqual(STOP_WHEN_ODDS);
+  expect(odds(scattered)).toBeLessThan(STOP_WHEN_ODDS);
+  for (const kinds of [complete, scattered, [...complete.slice(0, 9), 'wind-n', 'wind-s', 'crack5', 'bam9'] as TileKind[]]) {
+    expect(chooseBotAction('advised', viewWith(kinds, 'vote'), withClimb)).toEqual({ type: 'vote', stop: odds(kinds) >= STOP_WHEN_ODDS });
+  }
+});
+
+test('the advised bot reads its history: it passes a neighbour what they have been passing away', () => {
+  // A list in cracks and winds: the bams and dots on the rack are dead weight, so which go is the defence's call.
+  const cracks = [
+    testPattern('cracks', [
+      { size: 3, suit: 'crack', rank: 1 },
+      { size: 3, suit: 'crack', rank: 2 },
+      { size: 3, suit: 'crack', rank: 3 },
+      { size: 3, tile: 'wind-e' },
+      { size: 2, tile: 'wind-w' },
+    ]),
+  ];
+  const kinds: TileKind[] = ['crack1', 'crack1', 'crack1', 'crack2', 'crack2', 'crack2', 'crack3', 'crack3', 'wind-e', 'bam4', 'bam8', 'dot4', 'dot8'];
+  const empty = () => ({ east: [] as string[], south: [] as string[], west: [] as string[], north: [] as string[] });
+  // In the first right east received three tiles from north (on its left): two of them dots.
+  const received = { ...empty(), east: ['h1', 'h2', 'h3'] };
+  const history = [{ phase: 'first-right' as const, sent: { ...empty(), east: ['h4', 'h5', 'h6'] }, forwarded: empty(), received, blind: { east: 0, south: 0, west: 0, north: 0 } }];
+  const historyKinds = { h1: 'dot2', h2: 'dot6', h3: 'crack9', h4: 'wind-n', h5: 'bam1', h6: 'crack7' } as const;
+  const view = viewWith(kinds, 'second-left', { passSize: 3, history });
+  const action = chooseBotAction('advised', { ...view, kinds: { ...view.kinds, ...historyKinds } }, cracks) as { tiles: string[] };
+  const passed = action.tiles.map((id) => kinds[Number(id.slice(1)) - 1]);
+  expect(passed).toEqual(expect.arrayContaining(['dot4', 'dot8']));
+});
 
 test('the steady bots vote to stop when their best pattern is close, and to go on when it is not', () => {
   expect(Math.min(...withClimb.map((p) => tilesAway(complete, p)))).toBeLessThanOrEqual(STOP_WHEN_AWAY);
