@@ -521,7 +521,10 @@ class Words {
     const out: Reason[] = [];
     const choice = `the ${otherName} choice`;
     const useful = (kinds: readonly number[]) => kinds.some((k) => this.users(k).length > 0);
-    if (ahead) {
+    if (mine.length > 0 && theirs.length > 0 && !useful(mine) && !useful(theirs) && Math.abs(o.best - other.best) < 0.005) {
+      // Only loose tiles differ and the odds are level: say so rather than dress a tie as a win.
+      out.push({ kind: 'pro', text: `Level with ${choice}: it passes ${this.withRoles(mine)} where ${choice} passes ${this.withRoles(theirs)}.` });
+    } else if (ahead) {
       if (theirs.length > 0) out.push({ kind: 'pro', text: `Better than ${choice}: keeps ${this.withRoles(theirs)}, which ${choice} gives away.` });
       if (mine.length > 0) {
         out.push(
