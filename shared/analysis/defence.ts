@@ -133,10 +133,10 @@ const ENOUGH_SEEN = 6;
 /** What each neighbour seems to do, from the seat's own view of the resolved passes. */
 export function readNeighbours(input: DefenceInput): NeighbourRead[] {
   const { seat, history, kinds } = input;
-  const reads = new Map<Seat, NeighbourRead & { weighted: { kind: TileKind; weight: number }[]; returned: TileKind[] }>();
+  const reads = new Map<Seat, NeighbourRead & { weighted: { kind: TileKind; weight: number }[] }>();
   for (const direction of ['right', 'across', 'left'] as const) {
     const other = seatTo(seat, direction);
-    reads.set(other, { seat: other, direction, passedToMe: [], blindToMe: 0, given: [], sheds: [], collects: [], settled: false, words: [], weighted: [], returned: [] });
+    reads.set(other, { seat: other, direction, passedToMe: [], blindToMe: 0, given: [], sheds: [], collects: [], settled: false, words: [], weighted: [] });
   }
   for (const record of history) {
     const direction = PASS_DIRECTION[record.phase];
@@ -193,7 +193,7 @@ export function readNeighbours(input: DefenceInput): NeighbourRead[] {
       if (numbers >= 4 && weightOf('odds') === 0) read.collects.push({ key: 'odds', words: 'odd numbers' });
     }
     read.words = wordsFor(read, seen);
-    const { weighted: _w, returned: _r, ...clean } = read;
+    const { weighted: _weighted, ...clean } = read;
     out.push(clean);
   }
   return out;
