@@ -58,7 +58,7 @@ bench
     const view = next(midViews);
     const seat = view.viewer as (typeof SEATS)[number];
     adviseRack(view.racks[seat]!.map((t) => t.kind), starterPatterns, adviceContextFor(view));
-  })
+  }, { retainSamples: true })
   .add('summarizeRack, 14 tiles', () => {
     summarizeRack(next(racks14), starterPatterns);
   })
@@ -87,9 +87,9 @@ const stat = (prefix: string, key: 'p50' | 'p75' | 'p99' | 'max') => {
 };
 const stat2 = (prefix: string, key: 'p50' | 'p95' | 'p99') => {
   const task = bench.tasks.find((t) => t.name.startsWith(prefix));
-  const result = task?.result as { latency?: Record<string, number>; samples?: number[] } | undefined;
+  const result = task?.result as { latency?: Record<string, number> & { samples?: number[] } } | undefined;
   if (key !== 'p95') return result?.latency?.[key] ?? NaN;
-  const samples = [...(result?.samples ?? [])].sort((a, b) => a - b);
+  const samples = [...(result?.latency?.samples ?? [])].sort((a, b) => a - b);
   return samples.length ? samples[Math.min(samples.length - 1, Math.floor(0.95 * samples.length))] : NaN;
 };
 const full = { p50: stat2('full advice', 'p50'), p95: stat2('full advice', 'p95'), p99: stat2('full advice', 'p99') };
