@@ -526,13 +526,8 @@ class Words {
       out.push({ kind: 'pro', text: `Level with ${choice}: it passes ${this.withRoles(mine)} where ${choice} passes ${this.withRoles(theirs)}.` });
     } else if (ahead) {
       if (theirs.length > 0) out.push({ kind: 'pro', text: `Better than ${choice}: keeps ${this.withRoles(theirs)}, which ${choice} gives away.` });
-      if (mine.length > 0) {
-        out.push(
-          useful(mine)
-            ? { kind: 'con', text: `Gives up ${this.withRoles(mine)} where ${choice} keeps ${mine.length > 1 ? 'them' : 'it'}.` }
-            : { kind: 'pro', text: `Passes ${this.withRoles(mine)} where ${choice} keeps ${mine.length > 1 ? 'them' : 'it'}.` },
-        );
-      }
+      // Tiles it gives up that a live family uses are already told as drawbacks above.
+      if (mine.length > 0 && !useful(mine)) out.push({ kind: 'pro', text: `Passes ${this.withRoles(mine)} where ${choice} keeps ${mine.length > 1 ? 'them' : 'it'}.` });
       if (o.blind !== other.blind) out.push({ kind: 'pro', text: o.blind > other.blind ? `Forwards ${numberWord(o.blind - other.blind)} more blind than ${choice}.` : `Sends its own tiles where ${choice} forwards blind.` });
     } else {
       if (mine.length > 0) out.push({ kind: 'con', text: `Behind ${choice}: gives away ${this.withRoles(mine)}, which ${choice} keeps.` });
