@@ -108,10 +108,10 @@ function missingSecrets(env: NodeJS.ProcessEnv, production: boolean, localFakes:
     problems.push(`LINK_SECRET is not set, and ${why}: invitation and password-reset links would stop working at every restart. Set it to a long random value, the same on every process.`);
   }
   // A secret someone could guess signs nothing: sessions, links and deals all rest on these.
-  for (const name of ['SESSION_SECRET', 'LINK_SECRET'] as const) {
+  for (const name of ['SESSION_SECRET', 'LINK_SECRET', 'INVITE_SECRET'] as const) {
     const value = env[name];
     if (value && value.length < MIN_SECRET_LENGTH) {
-      problems.push(`${name} is only ${value.length} characters long, and ${why}. Use at least ${MIN_SECRET_LENGTH} random characters (for example the output of "openssl rand -hex 32").`);
+      problems.push(`${name} is only ${value.length} ${value.length === 1 ? 'character' : 'characters'} long, and ${why}. Use at least ${MIN_SECRET_LENGTH} random characters (for example the output of "openssl rand -hex 32").`);
     }
   }
   return problems;

@@ -37,9 +37,9 @@ export const refuseControlCharacters: RequestHandler = (req, _res, next) => {
   next();
 };
 
-/** Control characters that no text a person types holds: C0 except tab, line feed and carriage return, and DEL. */
+/** Control characters that no text a person types holds: C0 except tab, line feed and carriage return, DEL and C1. */
 // eslint-disable-next-line no-control-regex -- finding these characters is the point
-const TYPED_CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
+export const TYPED_CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F-\u009F]/;
 
 /**
  * Where in a parsed JSON body or socket payload a string holds such a character (a path like

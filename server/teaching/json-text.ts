@@ -3,6 +3,7 @@
  * (JSON.parse does not always say where), and field paths are written as a reader sees them.
  * JSON.parse reads the file; only when it refuses does the scanner below look for the place.
  */
+import { controlCharacterAt } from '../security/control-characters';
 
 export interface FileProblem {
   /** "line 4, column 12", "line 7, column size", or a field path such as "patterns[2].groups[0].size". */
@@ -169,12 +170,17 @@ export function locateJsonError(text: string): { line: number; column: number; m
 /** Parses JSON or rejects with the line and column at fault. */
 export function parseJsonFile(text: string): unknown {
   if (text.trim() === '') throw new FileRejected([{ where: 'line 1', message: 'The file is empty.' }]);
+  let value: unknown;
   try {
-    return JSON.parse(text);
+    value = JSON.parse(text);
   } catch {
     const at = locateJsonError(text) ?? { line: 1, column: 1, message: 'This is not valid JSON.' };
     throw new FileRejected([{ where: `line ${at.line}, column ${at.column}`, message: at.message }]);
   }
+  // An escape such as \u0000 decodes to a control character no Rackside text may hold.
+  const at = controlCharacterAt(value);
+  if (at) throw new FileRejected([{ where: at, message: 'This text holds a control character (such as NUL), which no Rackside text may hold. Remove it and import again.' }]);
+  return value;
 }
 
 /**

@@ -3,6 +3,7 @@ import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { HttpError } from '../errors';
 import { FileRejected } from './json-text';
+import { TYPED_CONTROL } from '../security/control-characters';
 
 export const UPLOAD_MAX_BYTES = 256 * 1024;
 
@@ -49,20 +50,32 @@ export function uploadOne(kinds: FileKind[]): RequestHandler {
         }
         return next(new HttpError(400, 'BAD_UPLOAD', 'Send one file in the field "file", nothing else.', { file: 'Send one file.' }));
       }
-      next(err);
+      if (err instanceof HttpError) return next(err);
+      // The parser's own complaints (a cut-short body, a bad part header, no boundary) are the sender's.
+      next(new HttpError(400, 'BAD_UPLOAD', 'The upload was cut short or malformed. Send the file again, as one file in the field "file".', { file: 'Send the file again.' }));
     });
   };
 }
 
 /** The uploaded bytes as text, or a refusal when they are not UTF-8 text. */
 export function uploadedText(file: Express.Multer.File): string {
+  let text: string;
   try {
-    const text = new TextDecoder('utf-8', { fatal: true }).decode(file.buffer);
+    text = new TextDecoder('utf-8', { fatal: true }).decode(file.buffer);
     if (text.includes('\u0000')) throw new Error('binary');
-    return text.replace(/^\uFEFF/, '');
   } catch {
     throw new HttpError(415, 'UNSUPPORTED_FILE', 'The file is not text (UTF-8). Export it again as JSON or CSV.', { file: 'The file is not text.' });
   }
+  text = text.replace(/^\uFEFF/, '');
+  const bad = TYPED_CONTROL.exec(text);
+  if (bad) {
+    const before = text.slice(0, bad.index);
+    const line = before.split('\n').length;
+    const column = bad.index - before.lastIndexOf('\n');
+    const where = `line ${line}, column ${column}`;
+    throw new HttpError(400, 'BAD_FILE', `The file was not imported: ${where} holds a control character, which no Rackside text may hold. Remove it and import again. Nothing was saved.`, { file: `${where}: remove the control character.` });
+  }
+  return text;
 }
 
 /**

@@ -114,7 +114,11 @@ test('with payments off, no webhook is taken, not even one signed with the local
 
 test('in production a secret too short to be safe stops the start, naming it', () => {
   const long = 'a'.repeat(32);
-  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x', LINK_SECRET: long })).toThrow(/SESSION_SECRET is only 1 characters long/);
+  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x', LINK_SECRET: long })).toThrow(/SESSION_SECRET is only 1 character long/);
   expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: long, LINK_SECRET: 'short' })).toThrow(/LINK_SECRET is only 5 characters long/);
   expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: long, LINK_SECRET: long, LOCAL_FAKES: 'false' })).not.toThrow();
+});
+
+test('in production a short INVITE_SECRET (the older name of the link secret) is refused like a short LINK_SECRET', () => {
+  expect(() => loadConfig({ NODE_ENV: 'production', SESSION_SECRET: S, INVITE_SECRET: 'x' })).toThrow(/INVITE_SECRET is only 1 character long/);
 });

@@ -106,3 +106,14 @@ test('a control character in any string of a JSON body is refused with 400, nami
     await t.dispose();
   }
 });
+
+test('C1 control characters (such as U+009B) in a JSON body are refused too', async () => {
+  const t = await makeApp();
+  await createUser('ines@harborlane.test', 'teacher');
+  const ines = await signedIn(t.app, 'ines@harborlane.test');
+  try {
+    expect((await ines.post('/api/tables').send({ name: 'csi\u009btable' })).status).toBe(400);
+  } finally {
+    await t.dispose();
+  }
+});

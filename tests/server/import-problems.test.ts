@@ -77,3 +77,26 @@ test('a copy of the starter list, and an imported list, do not say they can’t 
   expect(again.status).toBe(201);
   expect(again.body.list.description).toBe('Rackside’s own practice list.');
 });
+
+test('a control character in an imported file, raw or written as an escape, is refused with its place; nothing is saved', async () => {
+  const good = [...head, ...anchorRows('anchor-1')];
+  const csv = await upload(t.ines, '/api/pattern-lists/import', [good[0], 'name,Anchor\u001b list', ...good.slice(2)].join('\n'), 'anchors.csv');
+  expect(csv.status).toBe(400);
+  expect(csv.body.error.fields.file).toMatch(/^line 2, column 12: remove the control character/);
+  const json = JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'imp\u0000nul', patterns: [] });
+  const escaped = await upload(t.ines, '/api/pattern-lists/import', json, 'list.json');
+  expect(escaped.status).toBe(400);
+  expect(escaped.body.error.fields.name).toMatch(/control character/);
+  expect(await PatternListRow.count()).toBe(0);
+});
+
+test('a malformed or cut-short upload is answered 400, never a server error', async () => {
+  const body = '--XB\r\nContent-Disposition form-data; name="file"; filename="a.json"\r\n\r\n{}\r\n--XB--\r\n';
+  const malformed = await t.ines.post('/api/pattern-lists/import').set('Content-Type', 'multipart/form-data; boundary=XB').send(body);
+  expect(malformed.status).toBe(400);
+  expect(malformed.body.error.code).toBe('BAD_UPLOAD');
+  const cut = await t.ines.post('/api/pattern-lists/import').set('Content-Type', 'multipart/form-data; boundary=XB').send('--XB\r\nContent-Disposition: form-data; name="file"; filename="a.json"\r\n\r\n{"fo');
+  expect(cut.status).toBe(400);
+  const noBoundary = await t.ines.post('/api/drills/import').set('Content-Type', 'multipart/form-data').send('x');
+  expect(noBoundary.status).toBe(400);
+});
