@@ -92,7 +92,7 @@ test('a lesson day: a priced drill lesson, two invited students pay, play two ta
   await ines.getByRole('button', { name: 'Schedule the lesson' }).click();
   await ines.getByRole('heading', { name: TITLE }).waitFor();
   const lessonUrl = ines.url();
-  await ines.getByText('0 of 6 seats taken').waitFor();
+  await ines.getByText(/\b0 of 6 seats paid/).waitFor();
   await ines.getByText('Deal: drill “Harbor Lane week 1”').waitFor();
   await ines.getByText(/\$12\.50/).first().waitFor();
 
@@ -126,7 +126,7 @@ test('a lesson day: a priced drill lesson, two invited students pay, play two ta
 
   // The teacher sees both seats paid, splits the room over two tables and starts them.
   await ines.goto(lessonUrl);
-  await ines.getByText('2 of 6 seats taken').waitFor();
+  await ines.getByText(/\b2 of 6 seats paid/).waitFor();
   const students = ines.getByRole('table');
   await students.getByRole('row', { name: /Mina Castellanos.*Paid/ }).waitFor();
   await students.getByRole('row', { name: /Sol Varga.*Paid/ }).waitFor();

@@ -80,7 +80,7 @@ test('a teacher schedules a priced lesson, invites two students who accept and p
   await acceptAndPay(links[1], 'mina@harborlane.test', false);
 
   await page.goto(lessonUrl);
-  await page.getByText('2 of 4 seats taken').waitFor();
+  await page.getByText(/\b2 of 4 seats paid/).waitFor();
   await page.getByLabel(/^Tables/).fill('2');
   await page.getByRole('button', { name: 'Split into tables' }).click();
   await page.getByRole('button', { name: 'Start every table' }).click();

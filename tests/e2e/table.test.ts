@@ -157,6 +157,9 @@ test('on a 375 px phone the rack reads at 44 px, plays by keyboard, and reduced 
 
 test('the lobby reflows at 320 px with the largest text', async () => {
   const sol = await signIn('sol@harborlane.test', 'Sol Varga', 320);
+  // On a phone the text sizes sit behind the Menu button.
+  const menu = sol.getByRole('button', { name: /Menu/ });
+  if (await menu.isVisible()) await menu.click();
   await sol.getByRole('button', { name: 'Text size largest' }).click();
   await sol.getByRole('heading', { name: 'Open a new table' }).waitFor();
   const overflow = await sol.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
