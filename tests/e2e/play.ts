@@ -63,8 +63,11 @@ async function nextMove(page: Page, timeout: number): Promise<Move> {
       const ask = named(/^Ask for /);
       if (ask && !ask.disabled) return 'ask';
       const send = named(/^Send \d tiles?$/);
-      const picked = document.querySelector('[role="group"][aria-label="Your rack"] button[aria-pressed="true"]');
-      if (send && (!send.disabled || !picked)) return 'send';
+      // Picks are kept until a pass is sent, so a disabled button with fewer picks than the pass
+      // asks for is waiting for more picks, not for an answer.
+      const picked = document.querySelectorAll('[role="group"][aria-label="Your rack"] button[aria-pressed="true"]').length;
+      const size = Number(/\d/.exec(send?.textContent ?? '')?.[0] ?? 0);
+      if (send && (!send.disabled || picked < size)) return 'send';
       return null;
     },
     undefined,
@@ -115,11 +118,25 @@ export async function playToEnd(page: Page, style: PlayStyle, deadlineMs = PLAY_
     return ms;
   };
   for (;;) {
-    const move = await nextMove(page, left());
-    if (move === 'over') return;
+    let move: Move;
     try {
+      move = await nextMove(page, left());
+    } catch (err) {
+      // Say what the page showed when it stopped asking for anything.
+      const shown = (await page.locator('main').innerText().catch(() => '')).replace(/\s+/g, ' ').slice(0, 1500);
+      throw new Error(`${(err as Error).message}\nThe page showed: ${shown}`, { cause: err });
+    }
+    if (move === 'over') return;
+    if (process.env.E2E_TRACE) console.error(`[play] ${move} ${new Date().toISOString()}`);
+    try {
+      const label = move === 'vote' ? (style.stop ? 'Stop after this round' : 'Play a second Charleston') : move === 'ask' ? `Ask for ${tiles(style.ask ?? 2)}` : null;
       const pressed = await makeMove(page, move, style, Math.min(5_000, left()));
-      await page.waitForFunction((button) => !button?.isConnected || (button as HTMLButtonElement).disabled, pressed, { timeout: left(), polling: 50 });
+      // Taken once the button is gone, disabled, or (React reuses elements) says something else now.
+      await page.waitForFunction(
+        ([button, was]) => !button?.isConnected || (button as HTMLButtonElement).disabled || (was !== null && button.textContent?.trim() !== was),
+        [pressed, label] as const,
+        { timeout: left(), polling: 50 },
+      );
     } catch (err) {
       if (!(err instanceof Error && err.name === 'TimeoutError')) throw err;
     }
