@@ -117,14 +117,32 @@ export class RandomBot implements Bot {
   }
 }
 
-/** How much the multiples bot wants to keep each tile: pairs, pungs and flowers first, then the leading suit. */
-export function keepValue(kind: TileKind, rack: readonly TileKind[], leading: Suit | null): number {
+/**
+ * How much of a list is winds and dragons: their share of the tiles its hands hold, flowers aside.
+ * A player who keeps multiples still knows the card they play to: on a list of honours, a lone
+ * wind or dragon is worth keeping; on a list of numbers, it is the first to go.
+ */
+export function honourShare(list: readonly Pattern[]): number {
+  let honours = 0;
+  let all = 0;
+  for (const p of list) {
+    for (const g of p.groups) {
+      if ('tile' in g && g.tile === 'flower') continue;
+      all += g.size;
+      if ('dragon' in g || ('tile' in g && (g.tile.startsWith('wind-') || g.tile.startsWith('dragon-')))) honours += g.size;
+    }
+  }
+  return all ? honours / all : 0;
+}
+
+/** How much the multiples bot wants to keep each tile: pairs, pungs and flowers first, then the leading suit; lone honours as much as the list asks for them. */
+export function keepValue(kind: TileKind, rack: readonly TileKind[], leading: Suit | null, honours = 0): number {
   if (kind === 'joker') return Infinity;
   if (kind === 'flower') return 6;
   const same = rack.filter((k) => k === kind).length;
   if (same >= 2) return 5 + same;
   const suit = suitOf(kind);
-  if (!suit) return leading && MATCHING_DRAGON[leading] === kind ? 1.5 : 0.5;
+  if (!suit) return (leading && MATCHING_DRAGON[leading] === kind ? 1.5 : 0.5) + Math.min(2, 4 * honours);
   const near = rack.filter((k) => k !== kind && suitOf(k) === suit && Math.abs(rankOf(k)! - rankOf(kind)!) <= 2).length;
   return (suit === leading ? 3 : 1) + 0.5 * Math.min(near, 2);
 }
@@ -143,9 +161,10 @@ export class MultiplesBot implements Bot {
     const kinds = rack.map((t) => t.kind);
     if (task.kind === 'vote') return { type: 'vote', stop: bestAway(kinds, list) <= STOP_WHEN_AWAY };
     const leading = summarizeRack(kinds, []).leadingSuit;
+    const honours = honourShare(list);
     const ranked = rack
       .filter((t) => t.kind !== 'joker')
-      .map((t) => ({ t, value: keepValue(t.kind, kinds, leading) }))
+      .map((t) => ({ t, value: keepValue(t.kind, kinds, leading, honours) }))
       .sort((a, b) => a.value - b.value || kindOrder(a.t.kind) - kindOrder(b.t.kind) || a.t.id.localeCompare(b.t.id));
     if (task.kind === 'ask') {
       const spare = ranked.filter((r) => r.value < 3).length;

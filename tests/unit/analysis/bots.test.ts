@@ -264,3 +264,15 @@ test('the registry lists three or more strategies with ids and names of their ow
   expect(isBotStrategyId('psychic')).toBe(false);
   expect(() => createBot('psychic' as BotStrategyId)).toThrow(/Unknown bot strategy/);
 });
+
+test('the multiples bot keeps a lone wind or dragon as much as the list asks for honours', async () => {
+  const { honourShare, keepValue } = await import('../../../shared/analysis/bots');
+  const winds = [{ id: 'w', name: 'Winds', family: 'w', value: 10, sealed: false, groups: [{ size: 4, tile: 'wind-n' }, { size: 4, tile: 'wind-e' }, { size: 3, tile: 'wind-s' }, { size: 3, tile: 'wind-w' }] }];
+  const numbers = [{ id: 'n', name: 'Numbers', family: 'n', value: 10, sealed: false, groups: [{ size: 4, suit: 'A', rank: 1 }, { size: 4, suit: 'A', rank: 2 }, { size: 3, suit: 'A', rank: 3 }, { size: 3, suit: 'A', rank: 4 }] }];
+  expect(honourShare(winds as never)).toBe(1);
+  expect(honourShare(numbers as never)).toBe(0);
+  const rack = ['wind-n', 'bam3', 'dot7'] as const;
+  // On a list of numbers a lone wind goes before an off-suit number; on a list of winds it stays.
+  expect(keepValue('wind-n', [...rack], 'crack', 0)).toBeLessThan(keepValue('dot7', [...rack], 'crack', 0));
+  expect(keepValue('wind-n', [...rack], 'crack', 1)).toBeGreaterThan(keepValue('dot7', [...rack], 'crack', 1));
+});
