@@ -6,6 +6,7 @@ import type { AnalysisRequest } from '../analysis/requests';
 import { useRackAnalysis } from '../analysis/useRackAnalysis';
 import { PatternRow } from './PatternRow';
 import { Tile } from './Tile';
+import { oddsWord } from './phaseWords';
 
 interface Props {
   hand: readonly TileKind[];
@@ -22,7 +23,7 @@ interface Props {
 }
 
 const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
-const percent = (odds: number) => (odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`);
+
 
 const REASON_STYLE: Record<Reason['kind'], { mark: string; label: string; className: string }> = {
   pro: { mark: '+', label: 'For', className: 'text-ink' },
@@ -59,7 +60,7 @@ function Advised({ advice, index, onPick }: { advice: PassAdvice; index: number;
       </div>
       {advice.odds && (
         <p className="text-sm">
-          Odds of finishing {advice.toward ? <span className="font-semibold">{advice.toward.name}</span> : 'your best hand'}: {percent(advice.odds.before)} now, {percent(advice.odds.after)} after this pass
+          Odds of finishing {advice.toward ? <span className="font-semibold">{advice.toward.name}</span> : 'your best hand'}: {oddsWord(advice.odds.before)} now, {oddsWord(advice.odds.after)} after this pass
         </p>
       )}
       <ul className="flex flex-col gap-1 text-sm">
@@ -161,7 +162,7 @@ export function AnalysisPanel({ hand, pass, seen, adviceHidden = false, patterns
                   <span>
                     <span className="font-semibold">{f.family}</span> · {f.lean}
                   </span>
-                  <span>{percent(f.odds)} to finish</span>
+                  <span>{oddsWord(f.odds)} to finish</span>
                 </li>
               ))}
             </ul>

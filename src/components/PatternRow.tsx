@@ -1,6 +1,7 @@
 import type { RankedPattern } from '../../shared/analysis';
 import { tileName, type TileKind } from '../../shared/tiles';
 import { Tile } from './Tile';
+import { oddsWord } from './phaseWords';
 
 function TileStrip({ kinds, label }: { kinds: readonly TileKind[]; label: string }) {
   if (kinds.length === 0) return null;
@@ -21,7 +22,7 @@ export function PatternRow({ ranked, odds }: { ranked: RankedPattern; odds?: num
         <span className="font-semibold">{ranked.pattern.name}</span>
         <span className="flex flex-wrap gap-1">
           <span className="rounded-md bg-paper px-2 text-sm font-semibold">{ranked.away === 0 ? 'complete' : `${ranked.away} away`}</span>
-          {odds !== undefined && <span className="rounded-md bg-paper px-2 text-sm font-semibold">{odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`} to finish</span>}
+          {odds !== undefined && <span className="rounded-md bg-paper px-2 text-sm font-semibold">{oddsWord(odds)} to finish</span>}
         </span>
       </p>
       <p className="text-sm text-ink-soft">Keeps</p>

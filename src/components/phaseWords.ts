@@ -26,3 +26,8 @@ export function tilesWord(n: number) {
 export function patternsWord(n: number) {
   return countWord(n, 'pattern');
 }
+
+/** Odds of finishing as a short figure: "12%", "under 1%" (a chance too small to round to 1), "0%". */
+export function oddsWord(odds: number): string {
+  return odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`;
+}

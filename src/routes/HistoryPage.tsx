@@ -5,6 +5,7 @@ import { useMe } from '../api/auth';
 import { useExchanges } from '../api/exchanges';
 import { Button } from '../components/Button';
 import { SignInFirst } from './SignInFirst';
+import { oddsWord } from '../components/phaseWords';
 
 const PAGE_SIZE = 10;
 
@@ -46,7 +47,7 @@ function valueOf(row: Row, column: Column): string | number {
 function withOdds(away: number | null, odds: number | null | undefined) {
   if (away === null) return '—';
   if (odds === null || odds === undefined) return String(away);
-  return `${away} · ${odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`} to finish`;
+  return `${away} · ${oddsWord(odds)} to finish`;
 }
 
 export function HistoryPage() {

@@ -17,6 +17,7 @@ import { Tile } from '../components/Tile';
 import { useRackAnalysis } from '../analysis/useRackAnalysis';
 import { capitalise } from '../realtime/seating';
 import { SignInFirst } from './SignInFirst';
+import { oddsWord } from '../components/phaseWords';
 
 /** The three nearest patterns, worked out only when opened. */
 function RackDetail({ rack, patterns }: { rack: readonly TileData[]; patterns: readonly Pattern[] }) {
@@ -34,8 +35,6 @@ function RackDetail({ rack, patterns }: { rack: readonly TileData[]; patterns: r
     </details>
   );
 }
-
-const percentOf = (odds: number) => (odds > 0 && odds < 0.005 ? 'under 1%' : `${Math.round(odds * 100)}%`);
 
 function SeatPanel({ step, seat, name, patterns, odds }: { step: ReplayStep; seat: Seat; name: string; patterns: readonly Pattern[]; odds: { best: number; pattern: string | null } | null }) {
   const rack = step.state.racks[seat];
@@ -66,7 +65,7 @@ function SeatPanel({ step, seat, name, patterns, odds }: { step: ReplayStep; sea
       )}
       {odds && (
         <p className="text-base">
-          Odds of finishing{odds.pattern ? <> {odds.pattern}</> : null}: <span className="font-semibold">{percentOf(odds.best)}</span>
+          Odds of finishing{odds.pattern ? <> {odds.pattern}</> : null}: <span className="font-semibold">{oddsWord(odds.best)}</span>
         </p>
       )}
       <RackDetail rack={rack} patterns={patterns} />
@@ -209,7 +208,7 @@ function Replay({ dto }: { dto: ExchangeReplayDto }) {
                     </th>
                     {SEATS.map((s) => (
                       <td key={s} className="p-1 text-right">
-                        {percentOf(oddsAt(i, s)?.best ?? 0)}
+                        {oddsWord(oddsAt(i, s)?.best ?? 0)}
                       </td>
                     ))}
                   </tr>
