@@ -1,3 +1,7 @@
+/**
+ * Socket.IO on the app's HTTP server: the handshake, presence, the other processes and one handler
+ * per client event. Long because those four still share this file; they are to be split apart.
+ */
 import { randomUUID } from 'node:crypto';
 import { ServerResponse, type Server as HttpServer } from 'node:http';
 import { EventEmitter } from 'node:events';

@@ -2,6 +2,10 @@
  * The authority for one table: it owns the table's seats, its current exchange and its huddle,
  * takes one action at a time, stores every accepted step before anyone hears of it, and hands
  * each viewer only what that viewer may see.
+ *
+ * Long because it still does all of that in one class (queue, storing ahead, conflict retries,
+ * seats and hand-offs, huddle, bots, views). The next step splits it: what an event does into a
+ * pure table reducer in shared/, storage behind a store interface, and the views apart.
  */
 import { randomUUID } from 'node:crypto';
 import { nextDealSeed } from '../services/deal-seed';

@@ -1,3 +1,7 @@
+/**
+ * The table page: joining, the lobby, play (picks kept per tab, the vote, deal again, hand-offs)
+ * and the panel beside the rack. Long because play and the page share one file for now.
+ */
 import { useQuery } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
