@@ -6,7 +6,8 @@
  * script. No rules, no storage, no sign-in: what is left is the transport, JSON and the fan-out.
  *
  * STATE_BYTES pads each state to about the size of the states Rackside sent in the same run, so
- * the two carry the same bytes.
+ * the two carry the same bytes. On SIGUSR2 (sent by the bench when it reads memory) it also prints
+ * how many states it has sent, the messages its CPU time is divided by.
  */
 import { createServer } from 'node:http';
 import { Server, type Socket } from 'socket.io';
@@ -39,6 +40,9 @@ interface Room {
 }
 
 const rooms = new Map<string, Room>();
+/** States sent to clients since the relay started: every one of them is sent while tables play. */
+let relayed = 0;
+process.on('SIGUSR2', () => process.stdout.write(`relayed ${relayed}\n`));
 const rackOf = (seat: Seat) => Array.from({ length: seat === 'east' ? 14 : 13 }, (_, i) => ({ id: `${seat}-${i}`, kind: `bam${(i % 9) + 1}` }));
 
 function stateFor(room: Room, seat: Seat) {
@@ -67,7 +71,12 @@ function stateFor(room: Room, seat: Seat) {
 
 function broadcast(room: Room) {
   room.version++;
-  for (const seat of SEATS) room.sockets[seat]?.emit('table:state', stateFor(room, seat));
+  for (const seat of SEATS) {
+    const socket = room.sockets[seat];
+    if (!socket) continue;
+    socket.emit('table:state', stateFor(room, seat));
+    relayed++;
+  }
 }
 
 /** As Rackside does: whatever a room got in one turn of the event loop goes out as one state per seat, then the acks. */

@@ -5,7 +5,9 @@
  * process (tests/bench/bare-relay.ts: it acks every action and answers each with a state for each
  * of the four, padded to the size Rackside's states had, with no rules, storage or sign-in).
  * Prints latency from a pass's fourth commit to all four clients holding the next step, passes
- * per second, errors and memory per table for both, and Rackside's p99 over the relay's.
+ * per second, errors and memory per table for both, and Rackside's p99 over the relay's; and each
+ * server process's own CPU time over play (tests/bench/cpu-time.ts), per pass resolved on
+ * Rackside and per state sent by the relay, with the ratio of the two.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -17,6 +19,7 @@ import type { Action } from '../../shared/exchange/types';
 import type { TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
 import { startPostgres, startRedis } from '../server/backing-servers';
+import { cpuMeter } from './cpu-time';
 
 const args = process.argv.slice(2);
 const arg = (name: string, fallback: number) => {
@@ -64,6 +67,20 @@ async function settledRssKb(child: ChildProcess): Promise<number> {
   child.kill('SIGUSR2');
   await collected;
   return rssKb(child.pid!);
+}
+
+/** The first match of `line` on the child's stdout from now on (listen before sending what prompts it). */
+function heard(child: ChildProcess, line: RegExp): Promise<RegExpMatchArray> {
+  return new Promise((resolve) => {
+    const hear = (d: Buffer) => {
+      const m = d.toString().match(line);
+      if (m) {
+        child.stdout!.off('data', hear);
+        resolve(m);
+      }
+    };
+    child.stdout!.on('data', hear);
+  });
 }
 
 function percentile(sorted: number[], p: number) {
@@ -341,7 +358,10 @@ async function benchRackside(processes: number) {
   const seated = await seatTables(urls, tableIds, cookies);
   const connected = await memory();
   stage(`seated ${TABLES * 4} connections`);
+  // Every server process counts, and only those: the clients run in this process, not in any of them.
+  const cpu = cpuMeter(servers.map((s) => s.child.pid!));
   const played = await play(seated.tables);
+  const cpuMs = cpu();
   stage(`played every exchange on Rackside (${processes} process${processes > 1 ? 'es' : ''})`);
   const peak = await memory();
   seated.tables.flat().forEach((s) => s.socket.disconnect());
@@ -349,7 +369,8 @@ async function benchRackside(processes: number) {
   await Promise.all(servers.map((s) => new Promise((resolve) => (s.child.once('exit', resolve), s.child.kill('SIGTERM')))));
   await redis?.stop();
   await pg?.stop();
-  return { ...played, errors: played.errors + seated.errors, baseline, connected, peak };
+  // Rackside's messages are the states its clients received.
+  return { ...played, errors: played.errors + seated.errors, baseline, connected, peak, cpuMs, messages: played.states };
 }
 
 /** The bare relay under the same load: the same tables, client count and client code, states padded to `stateBytes`. */
@@ -366,13 +387,18 @@ async function benchRelay(stateBytes: number) {
   const seated = await seatTables([url], Array.from({ length: TABLES }, (_, t) => `room-${t}`), null);
   const connected = await settledRssKb(child);
   stage(`relay: seated ${TABLES * 4} connections`);
+  const cpu = cpuMeter([child.pid!]);
   const played = await play(seated.tables);
+  const cpuMs = cpu();
   stage('played every exchange on the relay');
+  const counted = heard(child, /relayed (\d+)/);
   const peak = await settledRssKb(child);
+  // The relay's own count of the states it sent; it sends none before play.
+  const messages = Number((await counted)[1]);
   seated.tables.flat().forEach((s) => s.socket.disconnect());
   stopping = true;
   await new Promise((resolve) => (child.once('exit', resolve), child.kill('SIGTERM')));
-  return { ...played, errors: played.errors + seated.errors, baseline, connected, peak };
+  return { ...played, errors: played.errors + seated.errors, baseline, connected, peak, cpuMs, messages };
 }
 
 const fmt = (ms: number) => `${ms.toFixed(2)} ms`;
@@ -389,6 +415,8 @@ try {
   }
   const all: [string, Run][] = [['bare relay', relay], ...runs];
   const perSecond = (r: Run) => r.resolved / r.seconds;
+  const cpuPerPass = (r: Run) => r.cpuMs / r.resolved;
+  const relayCpuPerMessage = relay.cpuMs / relay.messages;
   const rows: string[][] = [
     ['', ...all.map(([name]) => name)],
     ['pass latency p50 (4th commit → all four hold the next step)', ...all.map(([, r]) => fmt(r.latency.p50))],
@@ -403,11 +431,16 @@ try {
     ['errors', ...all.map(([, r]) => String(r.errors))],
     ['server memory after a full collection: started / connected / end', ...all.map(([, r]) => `${(r.baseline / 1024).toFixed(0)} / ${(r.connected / 1024).toFixed(0)} / ${(r.peak / 1024).toFixed(0)} MB`)],
     ['server memory per table (end − start) / tables', ...all.map(([, r]) => `${((r.peak - r.baseline) / TABLES).toFixed(0)} KB`)],
+    ['server CPU over play, user+system (share of one core)', ...all.map(([, r]) => `${(r.cpuMs / 1000).toFixed(2)} s (${((r.cpuMs / (r.seconds * 1000)) * 100).toFixed(0)}%)`)],
+    ['server CPU per resolved pass (ms)', ...all.map(([, r]) => cpuPerPass(r).toFixed(3))],
+    ['relay CPU per relayed message (ms)', relayCpuPerMessage.toFixed(4), ...runs.map(() => '')],
+    ['server CPU per pass / relay CPU per message', '', ...runs.map(([, r]) => `${(cpuPerPass(r) / relayCpuPerMessage).toFixed(1)}x`)],
   ];
   if (runs.length > 1) rows.push([`passes per second, ${PROCESSES} processes / 1`, '', '', `${(perSecond(runs[1][1]) / perSecond(runs[0][1])).toFixed(2)}x`]);
   const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => (r[c] ?? '').length)));
   for (const r of rows) console.log(r.map((cell, c) => (cell ?? '').padEnd(widths[c])).join('  ').trimEnd());
   const ratio = runs[0][1].latency.p99 / relay.latency.p99;
+  const one = runs[0][1];
   console.log(
     [
       '',
@@ -422,6 +455,17 @@ try {
       'groups its states by stored write, so it may send fewer (see "states sent"). A ratio near or below 1x',
       'says Rackside adds little over the transport at this load; read any single run with the machine\'s',
       'other work in mind.',
+      '',
+      'What the CPU figures mean: each server process\'s own CPU time, user + system, over every thread of that',
+      'process (the event loop, libuv\'s pool where SQLite runs, V8\'s helpers), read by this bench from',
+      '/proc/<pid>/stat when the first table is dealt and again when the last one has finished. The clients run',
+      'in another process and are not counted; neither is a PostgreSQL or Redis server. Rackside\'s CPU is',
+      `divided by the passes resolved (${one.resolved}, huddled ones included), the relay's by the states it sent to a`,
+      `client (${relay.messages} by its own count, ${(relay.messages / relay.resolved).toFixed(1)} per pass). A pass cost Rackside ${cpuPerPass(one).toFixed(3)} ms of CPU, as much as`,
+      `the relay spends sending ${(cpuPerPass(one) / relayCpuPerMessage).toFixed(1)} states (relay CPU per pass: ${cpuPerPass(relay).toFixed(3)} ms). Time spent waiting for a core is not`,
+      'CPU time, so unlike latency this hardly depends on how busy the client process or the machine is. It',
+      'still moves a little with how many actions reach a server in one turn of its event loop, as both send one',
+      'state per seat per turn (Rackside per stored group), and with what else shares the cores\' caches.',
     ].join('\n'),
   );
 } finally {
