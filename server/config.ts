@@ -203,6 +203,8 @@ export function loadConfigOrExit(): Config {
     return loadConfig();
   } catch (err) {
     if (!(err instanceof ConfigError)) throw err;
+    // Plain text for the person starting Rackside, not a log line: the JSON log may be silenced
+    // by LOG_LEVEL, and this message is all they need to fix the settings.
     console.error(err.message);
     process.exit(1);
   }

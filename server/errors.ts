@@ -1,7 +1,8 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { UniqueConstraintError } from 'sequelize';
 import type { ZodError } from 'zod';
-import { issueFieldErrors } from '../shared/issue-words';
+import { fieldErrors } from '../shared/field-errors';
+import { log } from './log';
 
 /** An error meant for the person on the other end: a stable code, a plain message, a status. */
 export class HttpError extends Error {
@@ -13,11 +14,6 @@ export class HttpError extends Error {
   ) {
     super(message);
   }
-}
-
-/** Field errors from a zod error, each in Rackside's words (shared/issue-words.ts), the first per field. */
-export function fieldErrors(error: ZodError): Record<string, string> {
-  return issueFieldErrors(error.issues);
 }
 
 export function badInput(error: ZodError): HttpError {
@@ -53,6 +49,6 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, next) => {
     res.status(e.status).json({ error: { code: 'BAD_REQUEST', message: 'The request could not be read.' } });
     return;
   }
-  console.error('Unexpected error', err);
+  log.error({ err }, 'Unexpected error');
   res.status(500).json({ error: { code: 'SERVER_ERROR', message: 'Something went wrong on our side. Please try again.' } });
 };

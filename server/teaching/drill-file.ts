@@ -11,9 +11,9 @@
  */
 import { z } from 'zod';
 import { drillDealErrors, drillInputSchema, presetRacksOf, type DrillData } from '../../shared/drills';
-import { issueMessage } from '../../shared/issue-words';
+import { issueProblems } from '../../shared/field-errors';
 import { STARTER_LIST_ID } from '../../shared/pattern-lists';
-import { fieldPath, FileRejected, parseJsonFile, type FileProblem } from './json-text';
+import { fieldPath, FileRejected, parseJsonFile } from './json-text';
 
 export const DRILL_FORMAT = 'rackside-drill';
 export const DRILL_VERSION = 1;
@@ -60,8 +60,7 @@ export function readDrillJson(text: string): { drill: DrillData; listName: strin
   const data = parseJsonFile(text);
   const parsed = fileSchema.safeParse(data);
   if (!parsed.success) {
-    const problems: FileProblem[] = parsed.error.issues.map((issue) => ({ where: fieldPath(issue.path), message: issueMessage(issue) }));
-    throw new FileRejected(problems.slice(0, 50));
+    throw new FileRejected(issueProblems(parsed.error.issues, fieldPath).slice(0, 50));
   }
   const f = parsed.data;
   const drill: DrillData = {

@@ -18,7 +18,7 @@
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
 import { buildsWithoutCalls, patternValue, withCurrentFields, type Group, type Pattern } from '../../shared/analysis/pattern';
-import { issueMessage } from '../../shared/issue-words';
+import { issueProblems } from '../../shared/field-errors';
 import { PATTERN_LIST_LIMITS, patternListInputSchema, patternProblems, type PatternProblem } from '../../shared/pattern-lists';
 import { fieldPath, FileRejected, jsonValueLines, parseJsonFile, type FileProblem } from './json-text';
 
@@ -126,7 +126,7 @@ function checkList(candidate: { name: unknown; description: unknown; patterns: u
   const problems = [...earlier];
   const parsed = patternListInputSchema.safeParse({ name: candidate.name, description: candidate.description ?? '', patterns: candidate.patterns });
   if (!parsed.success) {
-    for (const issue of parsed.error.issues) problems.push({ where: places.field(issue.path.join('.')), message: issueMessage(issue) });
+    problems.push(...issueProblems(parsed.error.issues, (path) => places.field(path.join('.'))));
   }
   const patterns = candidate.patterns;
   if (Array.isArray(patterns) && patterns.length <= PATTERN_LIST_LIMITS.patternsMax) {

@@ -23,6 +23,7 @@
  *    Passes that were not played out rank below those that were, in price order.
  */
 import type { ExchangeView, PassRecord, Phase } from '../exchange/types';
+import { PASS_SIZE } from '../exchange/constants';
 import { isSeat, type Seat } from '../seats';
 import { rankOf, suitOf, TILE_KINDS, tileName, type TileKind } from '../tiles';
 import { countsOf, tilesAwayCounts } from './away';
@@ -35,9 +36,6 @@ import { assignmentPrices, unseenCounts } from './price';
 import { countOf, joinWords, multipleOf, numberWord, pluralName } from './words';
 
 export { DEFENCE } from './defence';
-
-/** A Charleston pass sends three tiles. */
-export const PASS_SIZE = 3;
 
 /**
  * The advice's settings. Samples, patterns and passes played out keep the whole advice within

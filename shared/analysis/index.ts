@@ -21,7 +21,6 @@ export {
   advisePass,
   adviseRack,
   DEFENCE,
-  PASS_SIZE,
   passChoices,
   type AdviceContext,
   type AdviceResult,

@@ -1,4 +1,5 @@
 /** The full pattern schema and the checker that explains, in words, what is wrong. */
+import { issueProblems } from '../field-errors';
 import { feasibilityIssues } from './compile';
 import { groupLabel, listWorkIssue, patternShape, semanticIssues, type Pattern } from './pattern';
 
@@ -24,12 +25,9 @@ export function validatePattern(candidate: unknown): string[] {
   const raw = candidate as { id?: unknown; groups?: unknown } | null;
   const id = typeof raw?.id === 'string' && raw.id ? raw.id : '(no id)';
   const count = Array.isArray(raw?.groups) ? raw.groups.length : 0;
-  return parsed.error.issues.map((issue) => {
-    const [head, index] = issue.path;
-    const where =
-      head === 'groups' && typeof index === 'number' ? `, ${groupLabel(index, count)}` : head !== undefined && head !== 'groups' ? `, ${String(head)}` : '';
-    return `Pattern "${id}"${where}: ${issue.message}`;
-  });
+  const part = ([head, index]: readonly PropertyKey[]) =>
+    head === 'groups' && typeof index === 'number' ? `, ${groupLabel(index, count)}` : head !== undefined && head !== 'groups' ? `, ${String(head)}` : '';
+  return issueProblems(parsed.error.issues, part).map(({ where, message }) => `Pattern "${id}"${where}: ${message}`);
 }
 
 /** The patterns of a list whose structure is sound, for reckoning the list's work before checking each one. */

@@ -1,7 +1,7 @@
 /** Every zod issue that reaches a person is in Rackside's own words: what is wrong and what to do. */
 import { afterEach, beforeEach, expect, test } from 'vitest';
 import { z } from 'zod';
-import { fieldErrors } from '../../server/errors';
+import { fieldErrors } from '../../shared/field-errors';
 import { issueMessage } from '../../shared/issue-words';
 import { smallList, teachingApp, upload, windsPattern } from './teaching-helpers';
 

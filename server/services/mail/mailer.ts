@@ -2,6 +2,7 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Config } from '../../config';
 import { HttpError } from '../../errors';
+import { log } from '../../log';
 
 export interface OutgoingMail {
   to: string;
@@ -49,7 +50,7 @@ export function createMailer(config: Config): Mailer {
           headers: { 'X-Rackside-Kind': mail.kind, ...(mail.senderId ? { 'X-Rackside-Sender': String(mail.senderId) } : {}) },
         });
       } catch (err) {
-        console.error('Sending mail failed', err);
+        log.error({ err }, 'Sending mail failed');
         throw new HttpError(502, 'MAIL_FAILED', 'The mail server did not take the message. Please try again in a minute.');
       }
     },
