@@ -1,6 +1,6 @@
 import bcrypt from 'bcryptjs';
 import { Router, type Request } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { ipKeyGenerator } from 'express-rate-limit';
 import type { Logger } from 'pino';
 import { UniqueConstraintError } from 'sequelize';
 import type { createPassport } from '../auth/passport';
@@ -8,25 +8,12 @@ import { loginSchema, registerSchema } from '../../shared/protocol';
 import type { Config } from '../config';
 import { User } from '../db/models';
 import { badInput, HttpError } from '../errors';
+import { httpRateLimit } from '../security/rate-limits';
 
 async function logIn(req: Request, user: User): Promise<void> {
   // passport 0.7 regenerates the session id here, so a session fixed before sign-in is worthless.
   await new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
   req.session.signedInAt = Date.now();
-}
-
-function limiter(limit: { max: number; windowMs: number }, key: (req: Request) => string, message: string, onLimit?: (req: Request) => void) {
-  return rateLimit({
-    windowMs: limit.windowMs,
-    limit: limit.max,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    keyGenerator: key,
-    handler: (req, res) => {
-      onLimit?.(req);
-      res.status(429).json({ error: { code: 'RATE_LIMITED', message } });
-    },
-  });
 }
 
 const byAddress = (req: Request) => ipKeyGenerator(req.ip ?? '');
@@ -41,21 +28,21 @@ export function authRouter(
   const log = hooks.log;
 
   // Count sign-in attempts per address and e-mail, so one guessed account cannot be hammered from one place.
-  const loginLimiter = rateLimit({
-    windowMs: config.loginRateLimit.windowMs,
-    limit: config.loginRateLimit.max,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    keyGenerator: byAddressAndEmail,
+  const loginLimiter = httpRateLimit(config, {
+    name: 'sign-in',
+    limit: config.loginRateLimit,
+    key: byAddressAndEmail,
+    message: 'Too many sign-in attempts. Please wait a few minutes and try again.',
     skipSuccessfulRequests: true,
-    handler: (req, res) => {
-      log?.warn({ event: 'sign-in-locked', email: String(req.body?.email ?? ''), ip: req.ip }, 'sign-in attempts over the limit');
-      res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many sign-in attempts. Please wait a few minutes and try again.' } });
-    },
+    onLimit: (req) => log?.warn({ event: 'sign-in-locked', email: String(req.body?.email ?? ''), ip: req.ip }, 'sign-in attempts over the limit'),
   });
-  const registerLimiter = limiter(config.rateLimits.register, byAddress, 'Too many new accounts from here. Please try again later.', (req) =>
-    log?.warn({ event: 'register-limited', ip: req.ip }, 'registrations over the limit'),
-  );
+  const registerLimiter = httpRateLimit(config, {
+    name: 'register',
+    limit: config.rateLimits.register,
+    key: byAddress,
+    message: 'Too many new accounts from here. Please try again later.',
+    onLimit: (req) => log?.warn({ event: 'register-limited', ip: req.ip }, 'registrations over the limit'),
+  });
 
   router.post('/register', registerLimiter, async (req, res) => {
     const parsed = registerSchema.safeParse(req.body ?? {});

@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import { Op, type Sequelize } from 'sequelize';
 import { invitationsInputSchema, lessonInputSchema, roomInputSchema } from '../../shared/lessons';
 import { requireTeacher, requireUser } from '../auth/guards';
@@ -8,6 +7,7 @@ import { DrillRow, Enrollment, Lesson, User } from '../db/models';
 import { badInput, HttpError } from '../errors';
 import type { TableRegistry } from '../realtime/registry';
 import type { TableMaster } from '../realtime/table-master';
+import { httpRateLimit } from '../security/rate-limits';
 import { lessonDetail, lessonDto, lessonEnd, lessonFor, requireLessonTeacher } from '../services/lessons';
 import { createRoom, roomTables, startRoom } from '../services/lesson-room';
 import { publicBase } from '../services/links';
@@ -51,15 +51,11 @@ export function lessonsRouter({ config, sequelize, mailer, registry, tableChange
   const router = Router();
   router.use(requireUser);
 
-  const inviteLimiter = rateLimit({
-    windowMs: config.rateLimits.invitations.windowMs,
-    limit: config.rateLimits.invitations.max,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    keyGenerator: (req) => `invite|${req.user?.id ?? 0}`,
-    handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'That is a lot of invitations in a short time. Please wait a while and try again.' } });
-    },
+  const inviteLimiter = httpRateLimit(config, {
+    name: 'invitations',
+    limit: config.rateLimits.invitations,
+    key: (req) => `invite|${req.user?.id ?? 0}`,
+    message: 'That is a lot of invitations in a short time. Please wait a while and try again.',
   });
 
   router.get('/', async (req, res) => {

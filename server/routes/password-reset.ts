@@ -5,7 +5,7 @@
  */
 import bcrypt from 'bcryptjs';
 import { Router } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { ipKeyGenerator } from 'express-rate-limit';
 import { randomBytes } from 'node:crypto';
 import { Op } from 'sequelize';
 import { passwordResetConfirmSchema, passwordResetRequestSchema } from '../../shared/lessons';
@@ -14,6 +14,7 @@ import { PasswordReset, User } from '../db/models';
 import { badInput, HttpError } from '../errors';
 import { userSessionsOf } from '../auth/user-sessions';
 import { log } from '../log';
+import { httpRateLimit } from '../security/rate-limits';
 import { publicBase } from '../services/links';
 import type { Mailer } from '../services/mail/mailer';
 import { passwordResetMail } from '../services/mail/messages';
@@ -24,15 +25,11 @@ const SENT = 'If an account uses that address, we have sent it a link to choose 
 export function passwordResetRouter({ config, mailer }: { config: Config; mailer: Mailer }) {
   const router = Router();
 
-  const limiter = rateLimit({
-    windowMs: config.rateLimits.passwordReset.windowMs,
-    limit: config.rateLimits.passwordReset.max,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
-    handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many reset requests. Please wait a while and try again.' } });
-    },
+  const limiter = httpRateLimit(config, {
+    name: 'password-reset',
+    limit: config.rateLimits.passwordReset,
+    key: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    message: 'Too many reset requests. Please wait a while and try again.',
   });
 
   async function usable(token: string) {
