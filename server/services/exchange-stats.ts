@@ -10,7 +10,7 @@ import type { ExchangeOptions, LogEntry, Phase } from '../../shared/exchange/typ
 import { SEATS, type Seat } from '../../shared/seats';
 import type { TileKind } from '../../shared/tiles';
 import { TableRow, type ExchangeRow } from '../db/models';
-import { patternsForTable } from '../teaching/pattern-source';
+import { patternsForTable } from '../teaching/pattern-lists';
 import { storedLogs } from './exchange-log';
 
 /** One pass of one seat, with the rack it was chosen from. */

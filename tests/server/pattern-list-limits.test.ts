@@ -6,7 +6,7 @@ import request from 'supertest';
 import { afterEach, beforeEach, expect, test } from 'vitest';
 import { bestAway } from '../../shared/analysis';
 import { PATTERN_WORK_LIMITS } from '../../shared/analysis/pattern';
-import { patternsForTable } from '../../server/teaching/pattern-source';
+import { patternsForTable } from '../../server/teaching/pattern-lists/service';
 import { PatternListRow } from '../../server/db/models';
 import { eightLetters, worstAllowed, worstAllowedList } from '../unit/analysis/limit-patterns';
 import { teachingApp, upload } from './teaching-helpers';

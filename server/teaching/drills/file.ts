@@ -10,10 +10,10 @@
  * one of the importer's own lists, and otherwise replaced by the starter list with a note.
  */
 import { z } from 'zod';
-import { drillDealErrors, drillInputSchema, presetRacksOf, type DrillData } from '../../shared/drills';
-import { issueProblems } from '../../shared/field-errors';
-import { STARTER_LIST_ID } from '../../shared/pattern-lists';
-import { fieldPath, FileRejected, parseJsonFile } from './json-text';
+import { drillDealErrors, drillInputSchema, presetRacksOf, type DrillData } from '../../../shared/drills';
+import { issueProblems } from '../../../shared/field-errors';
+import { STARTER_LIST_ID } from '../../../shared/pattern-lists';
+import { fieldPath, FileRejected, parseJsonFile } from '../files/json-text';
 
 export const DRILL_FORMAT = 'rackside-drill';
 export const DRILL_VERSION = 1;

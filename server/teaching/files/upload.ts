@@ -1,9 +1,9 @@
 /** One uploaded file per request, in memory, with size and type limits; anything else is refused before a route sees it. */
 import type { RequestHandler } from 'express';
 import multer from 'multer';
-import { HttpError } from '../errors';
+import { HttpError } from '../../errors';
 import { FileRejected } from './json-text';
-import { TYPED_CONTROL } from '../security/control-characters';
+import { TYPED_CONTROL } from '../../security/control-characters';
 
 export const UPLOAD_MAX_BYTES = 256 * 1024;
 

@@ -1,8 +1,8 @@
 /** Checking and presenting drills; shared by the drill routes and the table route that deals from one. */
-import { drillDealErrors, drillInputSchema, presetRacksOf, type DrillData, type DrillDto } from '../../shared/drills';
-import { DrillRow } from '../db/models';
-import { badInput, HttpError } from '../errors';
-import { listName, mayUseList } from './pattern-source';
+import { drillDealErrors, drillInputSchema, presetRacksOf, type DrillData, type DrillDto } from '../../../shared/drills';
+import { DrillRow } from '../../db/models';
+import { badInput, HttpError } from '../../errors';
+import { listName, mayUseList } from '../pattern-lists/service';
 
 export const drillNotFound = () => new HttpError(404, 'NOT_FOUND', 'There is no drill with that id among yours.');
 

@@ -3,7 +3,7 @@
  * (JSON.parse does not always say where), and field paths are written as a reader sees them.
  * JSON.parse reads the file; only when it refuses does the scanner below look for the place.
  */
-import { controlCharacterAt } from '../security/control-characters';
+import { controlCharacterAt } from '../../security/control-characters';
 
 export interface FileProblem {
   /** "line 4, column 12", "line 7, column size", or a field path such as "patterns[2].groups[0].size". */
