@@ -8,8 +8,12 @@
  * events of that exchange in the same group are not written, so a log never gets a hole. An event is
  * reported stored only after the commit that holds it returns.
  */
-import sqlite3 from 'sqlite3';
+import { createRequire } from 'node:module';
+import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
+import sqlite3 from 'sqlite3';
+import { log } from '../log';
+import { databaseUrlOf, isPostgresUrl, SQLITE_FILE_PRAGMAS, sqliteStorage } from './index';
 
 export interface EventRecord {
   exchangeId: string;
@@ -53,7 +57,10 @@ export const noEventWriter: EventWriter = {
   close: async () => undefined,
 };
 
-const INSERT = 'INSERT INTO "ExchangeEvents" ("exchangeId", "seq", "type", "seat", "payload", "userId", "createdAt") VALUES (?, ?, ?, ?, ?, ?, ?)';
+const COLUMNS = '"ExchangeEvents" ("exchangeId", "seq", "type", "seat", "payload", "userId", "createdAt")';
+/** The insert in each driver's own placeholders: `?` for sqlite3, `$1…` for PostgreSQL and Sequelize's bind. */
+export const INSERT_QUESTION_MARKS = `INSERT INTO ${COLUMNS} VALUES (?, ?, ?, ?, ?, ?, ?)`;
+export const INSERT_NUMBERED = `INSERT INTO ${COLUMNS} VALUES ($1, $2, $3, $4, $5, $6, $7)`;
 /** A group larger than this is split, so one commit never holds the file for long. */
 const MAX_GROUP = 2000;
 
@@ -67,11 +74,14 @@ interface Entry {
 
 type Run = (sql: string, params?: unknown[]) => Promise<void>;
 
+/** The driver's own error, also when Sequelize wrapped it. */
+const cause = (err: unknown) => ((err as { original?: unknown })?.original ?? err) as { code?: string; message?: string } | undefined;
+
 /** SQLite's and PostgreSQL's words for a unique key refusing a row. */
-const isConflict = (err: unknown) => (err as { code?: string })?.code === '23505' || /UNIQUE constraint failed|duplicate key value/i.test(String((err as Error)?.message));
+const isConflict = (err: unknown) => cause(err)?.code === '23505' || /UNIQUE constraint failed|duplicate key value/i.test(String(cause(err)?.message));
 
 /** PostgreSQL's deadlock and serialization failures, and SQLite's locked file. */
-const isContention = (err: unknown) => ['40P01', '40001', 'SQLITE_BUSY'].includes(String((err as { code?: string })?.code)) || /deadlock detected|database is locked/i.test(String((err as Error)?.message));
+const isContention = (err: unknown) => ['40P01', '40001', 'SQLITE_BUSY'].includes(String(cause(err)?.code)) || /deadlock detected|database is locked/i.test(String(cause(err)?.message));
 
 export interface GroupOptions {
   /** How a group's transaction starts. */
@@ -81,6 +91,10 @@ export interface GroupOptions {
    * savepoint there, and a refused one is rolled back to it while the rest of the group goes on.
    */
   savepoints: boolean;
+  /** The insert in the connection's placeholders; `?` unless given. */
+  insert?: string;
+  /** Where a failed stored hook is reported; the app's log unless given. */
+  logger?: Logger;
 }
 
 /** Groups appends and writes them through `run`; `transactions` says whether a group is one transaction. */
@@ -138,7 +152,7 @@ export class GroupWriter implements EventWriter {
         const savepoint = this.transactions && this.options.savepoints;
         try {
           if (savepoint) await this.run('SAVEPOINT event');
-          await this.run(INSERT, [record.exchangeId, record.seq, record.type, record.seat, record.payload, record.userId, record.createdAt]);
+          await this.run(this.options.insert ?? INSERT_QUESTION_MARKS, [record.exchangeId, record.seq, record.type, record.seat, record.payload, record.userId, record.createdAt]);
           if (savepoint) await this.run('RELEASE SAVEPOINT event');
           written.push(entry);
         } catch (err) {
@@ -166,7 +180,7 @@ export class GroupWriter implements EventWriter {
       try {
         entry.hooks.stored?.();
       } catch (err) {
-        console.error('A stored-event hook failed', err);
+        (this.options.logger ?? log).error({ exchangeId: entry.record.exchangeId, seq: entry.record.seq, error: (err as Error).message }, 'a stored-event hook failed');
       }
     }
     for (const entry of group) {
@@ -179,90 +193,104 @@ export class GroupWriter implements EventWriter {
     while (this.writing) await this.writing;
   }
 
-  async close() {
+  private closing: Promise<void> | null = null;
+
+  /** Writes what waits, then closes the connection; a second call waits for the first. */
+  close() {
     this.closed = true;
-    await this.drain();
-    await this.onClose();
+    return (this.closing ??= this.drain().then(() => this.onClose()));
   }
-}
-
-function promisedRun(db: { run(sql: string, params: unknown[], done: (err: Error | null) => void): unknown }): Run {
-  return (sql, params = []) => new Promise<void>((resolve, reject) => db.run(sql, params, (err) => (err ? reject(err) : resolve())));
 }
 
 /**
- * The event writer for a database. A SQLite file gets a connection of its own, so that its
- * BEGIN IMMEDIATE … COMMIT never takes in a query of the rest of the app; IMMEDIATE takes the write
- * lock at the start, so a group never fails half-way on a lock (it waits, under busy_timeout).
- * An in-memory database has only the one connection, so its events are written one by one on it.
+ * The event writer for the database `sequelize` was opened on (same URL), on connections of its own.
+ *
+ * A SQLite file gets its own sqlite3 connection, so that its BEGIN IMMEDIATE … COMMIT never takes in
+ * a query of the rest of the app; IMMEDIATE takes the write lock at the start, so a group never fails
+ * half-way on a lock (it waits, under busy_timeout). PostgreSQL gets its own pool of one connection.
+ * An in-memory SQLite database exists only on the app's one connection, which no other connection can
+ * open, so there the events are written one by one through Sequelize's query.
  */
-export function createEventWriter(sequelize: Sequelize): EventWriter {
-  if (sequelize.getDialect() === 'postgres') return postgresWriter(sequelize);
-  const storage = ((sequelize as unknown as { options: { storage?: string } }).options).storage ?? ':memory:';
-  if (storage === ':memory:' || storage === '') {
-    const manager = sequelize.connectionManager as unknown as { getConnection(options: object): Promise<Parameters<typeof promisedRun>[0]> };
-    const shared = manager.getConnection({}).then(promisedRun);
-    return new GroupWriter(async (sql, params) => (await shared)(sql, params), false);
+export function createEventWriter(sequelize: Sequelize, logger: Logger = log): EventWriter {
+  const url = databaseUrlOf(sequelize);
+  if (isPostgresUrl(url)) return postgresWriter(url, logger);
+  const storage = sqliteStorage(url);
+  if (storage === ':memory:') {
+    const run: Run = async (sql, bind = []) => void (await sequelize.query(sql, { bind }));
+    return new GroupWriter(run, false, undefined, { begin: 'BEGIN', savepoints: false, insert: INSERT_NUMBERED, logger });
   }
-  let db: sqlite3.Database | null = null;
-  const ready = new Promise<Run>((resolve, reject) => {
-    const opened: sqlite3.Database = new sqlite3.Database(storage, (err) => (err ? reject(err) : resolve(promisedRun(opened))));
-    db = opened;
-  }).then(async (run) => {
-    for (const pragma of ['PRAGMA busy_timeout = 5000', 'PRAGMA foreign_keys = ON', 'PRAGMA journal_mode = WAL', 'PRAGMA synchronous = NORMAL']) await run(pragma);
-    return run;
+  return sqliteFileWriter(storage, logger);
+}
+
+const onConnection = (db: sqlite3.Database): Run => (sql, params = []) => new Promise<void>((resolve, reject) => db.run(sql, params, (err) => (err ? reject(err) : resolve())));
+
+function sqliteFileWriter(storage: string, logger: Logger): EventWriter {
+  const opened = new Promise<sqlite3.Database>((resolve, reject) => {
+    const db: sqlite3.Database = new sqlite3.Database(storage, (err) => (err ? reject(err) : resolve(db)));
   });
+  const ready = opened.then(async (db) => {
+    for (const pragma of SQLITE_FILE_PRAGMAS) await onConnection(db)(pragma);
+    return onConnection(db);
+  });
+  // A file that cannot be opened fails every group that tries it; nobody else waits on this promise.
   ready.catch(() => undefined);
-  return new GroupWriter(
-    async (sql, params) => (await ready)(sql, params),
-    true,
-    () => new Promise<void>((resolve) => (db ? db.close(() => resolve()) : resolve())),
-  );
+  const close = async () => {
+    const db = await opened.catch(() => null);
+    await new Promise<void>((resolve) => (db ? db.close((err) => (err && logger.error({ error: err.message }, 'the event log connection did not close cleanly'), resolve())) : resolve()));
+  };
+  return new GroupWriter(async (sql, params) => (await ready)(sql, params), true, close, { begin: 'BEGIN IMMEDIATE', savepoints: false, insert: INSERT_QUESTION_MARKS, logger });
 }
 
-interface PgClient {
-  query(text: string, values?: unknown[]): Promise<unknown>;
+/** The parts of `pg` used here (the package ships no types). `DatabaseError` is a statement the server refused. */
+type OnError = (event: 'error', listener: (err: Error) => void) => unknown;
+type PgClient = { query(text: string, values?: unknown[]): Promise<unknown>; release(destroy?: Error): void; on: OnError; off: OnError };
+interface PgModule {
+  Pool: new (config: { connectionString: string; application_name: string; max: number; idleTimeoutMillis: number; connectionTimeoutMillis: number }) => { connect(): Promise<PgClient>; end(): Promise<void>; on: OnError };
+  DatabaseError: new (...args: never[]) => Error;
 }
 
-/** `?` placeholders as PostgreSQL writes them: $1, $2, … */
-const numbered = (sql: string) => {
-  let n = 0;
-  return sql.replace(/\?/g, () => `$${++n}`);
-};
+/** The connection a group holds; `broken` once it failed (not a statement refused): it is then thrown away, not given back. */
+type Held = { client: PgClient; broken?: Error; onError: (err: Error) => void };
 
 /**
- * On PostgreSQL the writer keeps one connection of the pool for itself (a group's transaction must
- * stay on one connection). If that connection breaks, the group fails and the next group takes a
- * fresh one.
+ * PostgreSQL: a pool of one connection of the writer's own (groups are written one after another). A
+ * group takes the connection at its BEGIN and gives it back at its COMMIT or ROLLBACK; a connection that
+ * broke is thrown away, its group fails, and the next group connects afresh.
  */
-function postgresWriter(sequelize: Sequelize): EventWriter {
-  const manager = sequelize.connectionManager as unknown as { getConnection(options: object): Promise<PgClient>; releaseConnection(c: PgClient): Promise<void> };
-  let held: Promise<PgClient> | null = null;
-  const connection = () =>
-    (held ??= manager.getConnection({ type: 'write' }).catch((err) => {
-      held = null;
-      throw err;
-    }));
+function postgresWriter(url: string, logger: Logger): EventWriter {
+  const { Pool, DatabaseError } = createRequire(import.meta.url)('pg') as PgModule;
+  const pool = new Pool({ connectionString: url, application_name: 'rackside event log', max: 1, idleTimeoutMillis: 10_000, connectionTimeoutMillis: 10_000 });
+  pool.on('error', (err) => logger.warn({ error: err.message }, 'an idle event log connection broke; the next group opens another'));
+  let held: Held | null = null;
+  const letGo = () => {
+    if (!held) return;
+    const { client, broken, onError } = held;
+    held = null;
+    client.off('error', onError);
+    client.release(broken);
+  };
   const run: Run = async (sql, params = []) => {
-    const client = await connection();
+    if (!held) {
+      // The group's connection is already gone (it broke): there is nothing to roll back.
+      if (sql === 'ROLLBACK') return;
+      const client = await pool.connect();
+      const taken: Held = { client, onError: (err) => (taken.broken ??= err) };
+      client.on('error', taken.onError);
+      held = taken;
+    }
+    const current = held;
     try {
-      await client.query(numbered(sql), params);
+      await current.client.query(sql, params);
     } catch (err) {
-      // A statement refused by the database keeps the connection; a broken connection is let go.
-      if (!(err as { code?: string }).code) {
-        held = null;
-        manager.releaseConnection(client).catch(() => undefined);
-      }
+      if (!(err instanceof DatabaseError)) current.broken ??= err as Error;
       throw err;
+    } finally {
+      if (sql === 'COMMIT' || sql === 'ROLLBACK' || current.broken) letGo();
     }
   };
-  return new GroupWriter(
-    run,
-    true,
-    async () => {
-      if (held) await manager.releaseConnection(await held).catch(() => undefined);
-      held = null;
-    },
-    { begin: 'BEGIN', savepoints: true },
-  );
+  const close = async () => {
+    letGo();
+    await pool.end();
+  };
+  return new GroupWriter(run, true, close, { begin: 'BEGIN', savepoints: true, insert: INSERT_NUMBERED, logger });
 }
