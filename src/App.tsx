@@ -1,6 +1,6 @@
 import { QueryClientProvider } from '@tanstack/react-query';
 import { RouterProvider } from 'react-router-dom';
-import { makeQueryClient } from './queryClient';
+import { makeQueryClient } from './lib/query-client';
 import { router } from './router';
 
 const queryClient = makeQueryClient();

@@ -1,11 +1,11 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
-import { Layout } from './routes/Layout';
+import { Layout } from './components/ui/Layout';
 import { HomePage } from './routes/HomePage';
 import { SignInPage } from './routes/SignInPage';
 import { RegisterPage } from './routes/RegisterPage';
 import { AdminUsersPage } from './routes/AdminUsersPage';
-import { NotFoundPage } from './routes/NotFoundPage';
-import { RouteErrorPage } from './routes/RouteErrorPage';
+import { NotFoundPage } from './components/ui/NotFoundPage';
+import { RouteErrorPage } from './components/ui/RouteErrorPage';
 
 export const routes: RouteObject[] = [
   {

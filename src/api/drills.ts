@@ -1,7 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { DrillDto, DrillInput } from '../../shared/drills';
-import { api } from './client';
-import { uploadFile } from './upload';
+import { api } from '../lib/api/client';
+import { uploadFile } from '../lib/api/upload';
 
 export const drillsQuery = queryOptions({
   queryKey: ['drills'],

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { ExchangeReplayDto, ExchangeSummaryDto } from '../../shared/protocol';
-import { api } from './client';
+import { api } from '../lib/api/client';
 
 export const exchangesQuery = queryOptions({
   queryKey: ['exchanges'],

@@ -1,8 +1,8 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { Pattern } from '../../shared/analysis/pattern';
 import type { PatternListDto, PatternListInput, PatternListSummaryDto } from '../../shared/pattern-lists';
-import { api } from './client';
-import { uploadFile } from './upload';
+import { api } from '../lib/api/client';
+import { uploadFile } from '../lib/api/upload';
 
 export const patternListsQuery = queryOptions({
   queryKey: ['pattern-lists'],

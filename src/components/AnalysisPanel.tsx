@@ -2,11 +2,11 @@ import { useMemo, useState } from 'react';
 import { BOT_STRATEGIES, starterPatterns, summarizeRack, type AdviceContext, type Pattern, type PassAdvice, type Reason } from '../../shared/analysis';
 import type { Phase } from '../../shared/exchange';
 import { tileName, type TileKind } from '../../shared/tiles';
-import type { AnalysisRequest } from '../analysis/requests';
-import { useRackAnalysis } from '../analysis/useRackAnalysis';
-import { PatternRow } from './PatternRow';
-import { Tile } from './Tile';
-import { oddsWord } from './phaseWords';
+import type { AnalysisRequest } from '../lib/analysis/requests';
+import { useRackAnalysis } from '../lib/analysis/use-rack-analysis';
+import { PatternRow } from './ui/PatternRow';
+import { Tile } from './ui/Tile';
+import { oddsWord } from '../lib/phase-words';
 
 interface Props {
   hand: readonly TileKind[];

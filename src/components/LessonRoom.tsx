@@ -2,12 +2,12 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { SEATS } from '../../shared/seats';
 import type { RoomTableDto } from '../../shared/lessons';
-import { ApiError } from '../api/client';
+import { ApiError } from '../lib/api/client';
 import { useRoom, useSplitRoom, useStartRoom } from '../api/lessons';
-import { Button } from './Button';
-import { FormMessage } from './FormMessage';
-import { SelectField } from './SelectField';
-import { TextField } from './TextField';
+import { Button } from './ui/Button';
+import { FormMessage } from './ui/FormMessage';
+import { SelectField } from './ui/SelectField';
+import { TextField } from './ui/TextField';
 
 const STATUS = { lobby: 'Waiting to start', playing: 'Playing', done: 'Finished', closed: 'Closed' } as const;
 

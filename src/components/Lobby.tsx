@@ -2,11 +2,11 @@ import { useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import type { TableDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
-import { useTables } from '../api/tables';
-import { Button } from './Button';
-import { Card } from './Card';
+import { useTables } from '../lib/api/tables';
+import { Button } from './ui/Button';
+import { Card } from './ui/Card';
 import { CreateTableForm } from './CreateTableForm';
-import { TextField } from './TextField';
+import { TextField } from './ui/TextField';
 
 const STATUS_WORDS = { lobby: 'Seating', playing: 'Passing', done: 'Finished', closed: 'Closed' } as const;
 

@@ -2,8 +2,8 @@ import { useState } from 'react';
 import { BOT_STRATEGIES } from '../../shared/analysis';
 import type { TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
-import { capitalise } from '../realtime/seating';
-import { Button } from './Button';
+import { capitalise } from '../lib/seating';
+import { Button } from './ui/Button';
 import { TableTop } from './TableTop';
 
 interface Props {

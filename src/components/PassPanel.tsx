@@ -2,8 +2,8 @@ import { useId } from 'react';
 import type { CourtesyCount } from '../../shared/exchange';
 import type { TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
-import { Button } from './Button';
-import { tilesWord } from './phaseWords';
+import { Button } from './ui/Button';
+import { tilesWord } from '../lib/phase-words';
 
 export interface PassHandlers {
   onSend: () => void;

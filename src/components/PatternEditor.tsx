@@ -3,7 +3,7 @@ import { buildsWithoutCalls, patternValue, type Group, type Pattern } from '../.
 import { TILE_KINDS, tileName, type TileKind } from '../../shared/tiles';
 import { GROUP_NAMES } from './patternExample';
 import { PatternTiles } from './PatternTiles';
-import { TextField } from './TextField';
+import { TextField } from './ui/TextField';
 
 type GroupType = 'tile' | 'suit' | 'dragon';
 const SUIT_CHOICES = [

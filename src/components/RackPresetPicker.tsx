@@ -2,7 +2,7 @@ import { useId, useState } from 'react';
 import type { PresetRacks } from '../../shared/drills';
 import { dealtRackSize, SEATS, type Seat } from '../../shared/seats';
 import { copiesInSet, DRAGON_KINDS, SUIT_KINDS, tileName, WIND_KINDS, type TileKind } from '../../shared/tiles';
-import { Tile } from './Tile';
+import { Tile } from './ui/Tile';
 
 const ROWS: { label: string; kinds: readonly TileKind[] }[] = [
   { label: 'Bams', kinds: SUIT_KINDS.filter((k) => k.startsWith('bam')) },

@@ -1,7 +1,7 @@
 /**
- * The session this tab was using has ended elsewhere: a 401 from the API (src/api/client.ts) or a
+ * The session this tab was using has ended elsewhere: a 401 from the API (src/lib/api/client.ts) or a
  * socket refused at its handshake (src/realtime/socket.ts) says so. The layout listens, and tells the
- * person "You were signed out" on the page they were on (src/routes/Layout.tsx).
+ * person "You were signed out" on the page they were on (src/components/ui/Layout.tsx).
  */
 import { create } from 'zustand';
 

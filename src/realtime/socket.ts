@@ -1,7 +1,7 @@
 import { io, type Socket } from 'socket.io-client';
 import type { Ack, ClientEventName, ClientPayload, ClientToServerEvents, ServerToClientEvents } from '../../shared/protocol';
-import { sessionEnded } from '../api/sessionEnd';
-import { onSessionChange } from './session';
+import { sessionEnded } from '../lib/session-end';
+import { onSessionChange } from '../lib/session-change';
 import { useTableStore } from './tableStore';
 
 type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;

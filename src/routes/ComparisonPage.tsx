@@ -2,13 +2,13 @@ import { Link, useParams, useSearchParams } from 'react-router-dom';
 import type { ComparedPassDto, ComparedTableDto, DealComparisonDto } from '../../shared/comparisons';
 import { SEATS, type Seat } from '../../shared/seats';
 import { tileName } from '../../shared/tiles';
-import { useMe } from '../api/auth';
+import { useMe } from '../lib/api/auth';
 import { useComparison, type ComparisonOf } from '../api/comparisons';
-import { Card } from '../components/Card';
-import { FormMessage } from '../components/FormMessage';
-import { PHASE_TITLES, tilesWord } from '../components/phaseWords';
-import { Tile } from '../components/Tile';
-import { SignInFirst } from './SignInFirst';
+import { Card } from '../components/ui/Card';
+import { FormMessage } from '../components/ui/FormMessage';
+import { PHASE_TITLES, tilesWord } from '../lib/phase-words';
+import { Tile } from '../components/ui/Tile';
+import { SignInFirst } from '../components/ui/SignInFirst';
 
 const seatName = (seat: Seat) => seat[0].toUpperCase() + seat.slice(1);
 

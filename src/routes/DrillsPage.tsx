@@ -3,13 +3,13 @@ import { useNavigate } from 'react-router-dom';
 import type { DrillDto } from '../../shared/drills';
 import { SEATS } from '../../shared/seats';
 import { drillExportUrl, useDrills, useImportDrill } from '../api/drills';
-import { useCreateTable } from '../api/tables';
-import { Button } from '../components/Button';
-import { Card } from '../components/Card';
+import { useCreateTable } from '../lib/api/tables';
+import { Button } from '../components/ui/Button';
+import { Card } from '../components/ui/Card';
 import { FileImport } from '../components/FileImport';
-import { FormMessage } from '../components/FormMessage';
-import { DownloadLink, LinkButton } from '../components/LinkButton';
-import { TeacherOnly } from '../components/TeacherOnly';
+import { FormMessage } from '../components/ui/FormMessage';
+import { DownloadLink, LinkButton } from '../components/ui/LinkButton';
+import { TeacherOnly } from '../components/ui/TeacherOnly';
 
 /** "Open a table with this drill": one click, then the table page. */
 export function OpenTableButton({ drill }: { drill: Pick<DrillDto, 'id' | 'name'> }) {

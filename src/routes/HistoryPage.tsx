@@ -1,11 +1,11 @@
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { ExchangeSummaryDto } from '../../shared/protocol';
-import { useMe } from '../api/auth';
+import { useMe } from '../lib/api/auth';
 import { useExchanges } from '../api/exchanges';
-import { Button } from '../components/Button';
-import { SignInFirst } from './SignInFirst';
-import { oddsWord } from '../components/phaseWords';
+import { Button } from '../components/ui/Button';
+import { SignInFirst } from '../components/ui/SignInFirst';
+import { oddsWord } from '../lib/phase-words';
 
 const PAGE_SIZE = 10;
 

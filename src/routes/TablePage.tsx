@@ -10,24 +10,24 @@ import { isPassPhase, PASS_DIRECTION, type CourtesyCount } from '../../shared/ex
 import type { ClientEventName, ClientPayload, TableStateDto } from '../../shared/protocol';
 import type { TileKind } from '../../shared/tiles';
 import { SEATS, seatTo } from '../../shared/seats';
-import { useMe } from '../api/auth';
+import { useMe } from '../lib/api/auth';
 import { tablePatternsQuery } from '../api/pattern-lists';
 import { AnalysisPanel } from '../components/AnalysisPanel';
-import { Button } from '../components/Button';
+import { Button } from '../components/ui/Button';
 import { Chat } from '../components/Chat';
-import { FormMessage } from '../components/FormMessage';
+import { FormMessage } from '../components/ui/FormMessage';
 import { HuddlePanel } from '../components/HuddlePanel';
 import { LobbySeats } from '../components/LobbySeats';
 import { PassArrow } from '../components/PassArrow';
 import { PassPanel } from '../components/PassPanel';
-import { PHASE_TITLES } from '../components/phaseWords';
-import { Rack } from '../components/Rack';
+import { PHASE_TITLES } from '../lib/phase-words';
+import { Rack } from '../components/ui/Rack';
 import { useRackOrder } from '../components/rackOrder';
 import { TableTop } from '../components/TableTop';
 import { joinTable, leaveTable, send } from '../realtime/socket';
 import { useTableStore } from '../realtime/tableStore';
 import { VoteTally, voteResult } from '../components/VoteBoard';
-import { SignInFirst } from './SignInFirst';
+import { SignInFirst } from '../components/ui/SignInFirst';
 
 function stepKey(table: TableStateDto) {
   return `${table.exchangeId}:${table.view?.phase}:${table.view?.history.length}`;

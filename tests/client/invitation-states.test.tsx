@@ -3,8 +3,8 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { render, screen } from '@testing-library/react';
 import { expect, test } from 'vitest';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
-import { ApiError } from '../../src/api/client';
-import { makeQueryClient, retryUnlessAnswered } from '../../src/queryClient';
+import { ApiError } from '../../src/lib/api/client';
+import { makeQueryClient, retryUnlessAnswered } from '../../src/lib/query-client';
 import { routes } from '../../src/router';
 import { fakeApi, signedOut } from './render';
 

@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { expect, test, vi } from 'vitest';
 import type { TableDto } from '../../shared/protocol';
 import { fakeApi, renderAt, signedInAs } from './render';
-import { OPTIONS } from './fakeTable';
+import { OPTIONS } from './fake-table';
 
 vi.mock('../../src/realtime/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
 

@@ -6,9 +6,9 @@ import { starterPatterns } from '../../shared/analysis';
 import type { DrillDto } from '../../shared/drills';
 import { SEATS } from '../../shared/seats';
 import { LobbySeats } from '../../src/components/LobbySeats';
-import { Rack } from '../../src/components/Rack';
+import { Rack } from '../../src/components/ui/Rack';
 import { fakeApi, renderAt, signedInAs } from './render';
-import { finishedReplay, tableState } from './fakeTable';
+import { finishedReplay, tableState } from './fake-table';
 
 vi.mock('../../src/realtime/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
 

@@ -2,8 +2,8 @@ import { readFileSync } from 'node:fs';
 import { render, screen } from '@testing-library/react';
 import { expect, test } from 'vitest';
 import { MATCHING_DRAGON, SUITS, TILE_KINDS, tileName } from '../../shared/tiles';
-import { DRAGON_COLOURS, SUIT_COLOURS, TILE_FACE, TILE_INK } from '../../src/components/palette';
-import { Tile } from '../../src/components/Tile';
+import { DRAGON_COLOURS, SUIT_COLOURS, TILE_FACE, TILE_INK } from '../../src/components/ui/palette';
+import { Tile } from '../../src/components/ui/Tile';
 
 type Rgb = [number, number, number];
 const hex = (h: string): Rgb => [1, 3, 5].map((i) => parseInt(h.slice(i, i + 2), 16)) as Rgb;

@@ -1,6 +1,6 @@
 /** Counts on screen take the singular for one: "1 pattern", "1 pass", "1 of 1 seat taken". */
 import { expect, test } from 'vitest';
-import { countWord, patternsWord, tilesWord } from '../../src/components/phaseWords';
+import { countWord, patternsWord, tilesWord } from '../../src/lib/phase-words';
 import { seatWords } from '../../src/components/LessonList';
 
 test('countWord and its named forms say one thing, or many', () => {

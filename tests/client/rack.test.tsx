@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { useState } from 'react';
 import { expect, test, vi } from 'vitest';
 import type { Tile } from '../../shared/tiles';
-import { JOKER_REFUSAL, Rack } from '../../src/components/Rack';
+import { JOKER_REFUSAL, Rack } from '../../src/components/ui/Rack';
 import { useRackOrder } from '../../src/components/rackOrder';
 
 const TILES: Tile[] = [

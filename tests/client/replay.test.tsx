@@ -4,7 +4,7 @@ import { beforeAll, expect, test } from 'vitest';
 import { replay } from '../../shared/exchange';
 import { replaySteps } from '../../src/components/replaySteps';
 import { fakeApi, renderAt, signedInAs } from './render';
-import { finishedReplay } from './fakeTable';
+import { finishedReplay } from './fake-table';
 
 const dto = finishedReplay();
 

@@ -1,8 +1,8 @@
 import { expect, test } from 'vitest';
 import { SEATS, seatTo } from '../../shared/seats';
 import { receivedAnnouncement } from '../../src/realtime/announce';
-import { sideOf } from '../../src/realtime/seating';
-import { fresh, passAll, tableState } from './fakeTable';
+import { sideOf } from '../../src/lib/seating';
+import { fresh, passAll, tableState } from './fake-table';
 
 test('the table is drawn with the viewer at the bottom and each neighbour on the side the rules name', () => {
   // The player to a seat's right is the next seat in turn order: east's right is south (PRODUCT.md, common practice).

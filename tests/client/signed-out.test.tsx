@@ -5,10 +5,10 @@
 import { act, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { beforeEach, expect, test, vi } from 'vitest';
-import { useSignedOutNotice } from '../../src/api/sessionEnd';
+import { useSignedOutNotice } from '../../src/lib/session-end';
 import { useTableStore } from '../../src/realtime/tableStore';
-import { safeReturnPath } from '../../src/routes/returnPath';
-import { tableState } from './fakeTable';
+import { safeReturnPath } from '../../src/lib/return-path';
+import { tableState } from './fake-table';
 import { fakeApi, renderAt, signedInAs, signedOut } from './render';
 
 /** A stand-in for the Socket.IO client: the test fires what the server would send. */

@@ -2,7 +2,7 @@ import { act as reactAct, screen, waitFor, within } from '@testing-library/react
 import { beforeEach, expect, test, vi } from 'vitest';
 import { useTableStore } from '../../src/realtime/tableStore';
 import { fakeApi, renderAt, signedInAs } from './render';
-import { fresh, tableState } from './fakeTable';
+import { fresh, tableState } from './fake-table';
 
 const socket = vi.hoisted(() => ({
   send: vi.fn(async () => ({ ok: true }) as const),

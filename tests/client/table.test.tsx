@@ -5,7 +5,7 @@ import { act, createExchange, viewFor } from '../../shared/exchange';
 import type { TableStateDto } from '../../shared/protocol';
 import { useTableStore } from '../../src/realtime/tableStore';
 import { fakeApi, renderAt, signedInAs } from './render';
-import { fresh, must, OPTIONS, passAll, tableState } from './fakeTable';
+import { fresh, must, OPTIONS, passAll, tableState } from './fake-table';
 
 const socket = vi.hoisted(() => ({
   send: vi.fn(async (..._args: unknown[]) => ({ ok: true }) as const),

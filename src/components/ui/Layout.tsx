@@ -1,12 +1,12 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useRef, useState } from 'react';
 import { Link, NavLink, Outlet, useLocation, useMatches, useNavigate } from 'react-router-dom';
-import { meQuery, useMe, useSignOut } from '../api/auth';
-import { onSessionEnded, useSignedOutNotice } from '../api/sessionEnd';
-import { Button } from '../components/Button';
-import { Card } from '../components/Card';
-import { TEXT_SIZES, usePreferences, type TextSize } from '../preferences';
-import { signInPath } from './returnPath';
+import { meQuery, useMe, useSignOut } from '../../lib/api/auth';
+import { onSessionEnded, useSignedOutNotice } from '../../lib/session-end';
+import { Button } from './Button';
+import { Card } from './Card';
+import { TEXT_SIZES, usePreferences, type TextSize } from '../../lib/preferences';
+import { signInPath } from '../../lib/return-path';
 
 const SIZE_LABELS: Record<TextSize, string> = { standard: 'A', large: 'A+', largest: 'A++' };
 

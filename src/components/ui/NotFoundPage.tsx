@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { Card } from '../components/Card';
+import { Card } from './Card';
 
 export function NotFoundPage() {
   return (

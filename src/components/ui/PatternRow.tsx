@@ -1,7 +1,7 @@
-import type { RankedPattern } from '../../shared/analysis';
-import { tileName, type TileKind } from '../../shared/tiles';
+import type { RankedPattern } from '../../../shared/analysis';
+import { tileName, type TileKind } from '../../../shared/tiles';
 import { Tile } from './Tile';
-import { oddsWord } from './phaseWords';
+import { oddsWord } from '../../lib/phase-words';
 
 function TileStrip({ kinds, label }: { kinds: readonly TileKind[]; label: string }) {
   if (kinds.length === 0) return null;

@@ -1,5 +1,5 @@
 import { useRef, useState, type DragEvent, type KeyboardEvent } from 'react';
-import { tileName, type Tile as TileData } from '../../shared/tiles';
+import { tileName, type Tile as TileData } from '../../../shared/tiles';
 import { Tile } from './Tile';
 
 export const JOKER_REFUSAL = "Jokers can't be passed. Pick another tile.";

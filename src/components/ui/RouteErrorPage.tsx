@@ -1,6 +1,6 @@
 import { useRouteError } from 'react-router-dom';
-import { Button } from '../components/Button';
-import { Card } from '../components/Card';
+import { Button } from './Button';
+import { Card } from './Card';
 
 /** Shown when a page fails to load or draw, for instance an old tab after Rackside was updated. */
 export function RouteErrorPage() {

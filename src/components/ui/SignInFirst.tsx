@@ -1,5 +1,5 @@
 import { Navigate, useLocation } from 'react-router-dom';
-import { signInPath } from './returnPath';
+import { signInPath } from '../../lib/return-path';
 
 /** For a page that needs an account: off to sign in, and back to this very page afterwards. */
 export function SignInFirst() {

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
-import { useMe } from '../api/auth';
+import { useMe } from '../../lib/api/auth';
 import { Card } from './Card';
-import { SignInFirst } from '../routes/SignInFirst';
+import { SignInFirst } from './SignInFirst';
 
 /** Pages for teachers (and admins): others are told why, signed-out visitors go to sign in. */
 export function TeacherOnly({ what, children }: { what: string; children: ReactNode }) {

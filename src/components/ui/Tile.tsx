@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { rankOf, suitOf, tileName, type DragonKind, type TileKind, type WindKind } from '../../shared/tiles';
+import { rankOf, suitOf, tileName, type DragonKind, type TileKind, type WindKind } from '../../../shared/tiles';
 import { DRAGON_COLOURS, SUIT_COLOURS, TILE_EDGE, TILE_FACE, TILE_INK } from './palette';
 
 /** Our own faces: an index in the top-left corner, a mark of our own in the middle. All drawn on a 60 × 80 grid. */

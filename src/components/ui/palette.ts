@@ -1,4 +1,4 @@
-import { MATCHING_DRAGON, type DragonKind, type Suit } from '../../shared/tiles';
+import { MATCHING_DRAGON, type DragonKind, type Suit } from '../../../shared/tiles';
 
 /**
  * Rackside's own suit colours: raspberry bams, cobalt cracks, umber dots. Chosen to stay far apart

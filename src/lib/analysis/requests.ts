@@ -1,6 +1,6 @@
 /** What the page asks of the rack analysis, and what it answers: plain data, so it crosses to a worker. */
-import { adviseRack, completionOdds, rackFocus, type AdviceContext, type AdviceResult, type Pattern, type RackFocus } from '../../shared/analysis';
-import type { TileKind } from '../../shared/tiles';
+import { adviseRack, completionOdds, rackFocus, type AdviceContext, type AdviceResult, type Pattern, type RackFocus } from '../../../shared/analysis';
+import type { TileKind } from '../../../shared/tiles';
 
 export type AnalysisRequest =
   | { kind: 'advice'; hand: TileKind[]; patterns: Pattern[]; context: AdviceContext }

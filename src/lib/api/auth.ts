@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { LoginInput, RegisterInput, UserDto } from '../../shared/protocol';
-import { sessionChanged } from '../realtime/session';
+import type { LoginInput, RegisterInput, UserDto } from '../../../shared/protocol';
+import { sessionChanged } from '../session-change';
 import { api, ApiError } from './client';
 
 export async function getMe(): Promise<UserDto | null> {

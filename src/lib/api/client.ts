@@ -1,5 +1,5 @@
-import type { ApiErrorBody } from '../../shared/protocol';
-import { sessionEnded } from './sessionEnd';
+import type { ApiErrorBody } from '../../../shared/protocol';
+import { sessionEnded } from '../session-end';
 
 /** Where a 401 is the ordinary answer to a wrong password, not news that a session ended. */
 const SIGNING_IN = ['/auth/login', '/auth/register'];

@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateTableInput, TableDto } from '../../shared/protocol';
+import type { CreateTableInput, TableDto } from '../../../shared/protocol';
 import { api } from './client';
 
 export const tablesQuery = queryOptions({
@@ -23,7 +23,7 @@ export function useTables() {
  * it) loads only when a form is sent, so the home page stays small.
  */
 export async function createTableErrors(input: CreateTableInput): Promise<Record<string, string>> {
-  const { createTableSchema } = await import('../../shared/protocol');
+  const { createTableSchema } = await import('../../../shared/protocol');
   const parsed = createTableSchema.safeParse(input);
   if (parsed.success) return {};
   const fields: Record<string, string> = {};

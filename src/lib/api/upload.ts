@@ -1,4 +1,4 @@
-import type { ApiErrorBody } from '../../shared/protocol';
+import type { ApiErrorBody } from '../../../shared/protocol';
 import { ApiError } from './client';
 
 /** Sends one file as a form upload (field "file"), the way the import routes read it. */
