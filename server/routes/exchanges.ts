@@ -7,7 +7,7 @@ import { ExchangeRow, HuddleNoteRow, isParticipant } from '../db/models';
 import { HttpError } from '../errors';
 import { storedLog } from '../services/exchange-log';
 import { figuresFor, listsFor, seatOfUser as seatOf } from '../services/exchange-stats';
-import { dealKey, dealsStillToPlay } from '../services/comparisons';
+import { dealKey, dealsStillToPlay } from '../teaching/comparisons';
 
 /** Peers read at most: far more than any host's tables on one seed. */
 const PEERS_MAX = 5000;

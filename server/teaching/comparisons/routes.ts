@@ -5,12 +5,12 @@
  */
 import { Router } from 'express';
 import { Op } from 'sequelize';
-import { requireUser } from '../auth/guards';
-import { DrillRow, ExchangeRow, isParticipant, LessonTable, TableRow } from '../db/models';
-import { HttpError } from '../errors';
-import { compareExchanges, dealKey } from '../services/comparisons';
-import { listsFor } from '../services/exchange-stats';
-import { lessonFor } from '../services/lessons';
+import { requireUser } from '../../auth/guards';
+import { DrillRow, ExchangeRow, isParticipant, LessonTable, TableRow } from '../../db/models';
+import { HttpError } from '../../errors';
+import { listsFor } from '../../services/exchange-stats';
+import { lessonFor } from '../../services/lessons';
+import { compareExchanges, dealKey } from './service';
 
 const MAX_ROWS = 200;
 const SEED_MAX = 120;

@@ -3,12 +3,12 @@
  * jokers and pattern list), each table's seats side by side and every seat in one standings list.
  */
 import { Op } from 'sequelize';
-import type { ComparedSeatDto, ComparedTableDto, ComparisonDto, DealComparisonDto, StandingDto } from '../../shared/comparisons';
-import type { ExchangeOptions } from '../../shared/exchange/types';
-import { SEATS } from '../../shared/seats';
-import { ExchangeRow, isParticipant, TableRow } from '../db/models';
-import { dealScope, dealSeed } from './deal-seed';
-import { figuresFor, listsFor } from './exchange-stats';
+import type { ComparedSeatDto, ComparedTableDto, ComparisonDto, DealComparisonDto, StandingDto } from '../../../shared/comparisons';
+import type { ExchangeOptions } from '../../../shared/exchange/types';
+import { SEATS } from '../../../shared/seats';
+import { ExchangeRow, isParticipant, TableRow } from '../../db/models';
+import { dealScope, dealSeed } from '../../services/deal-seed';
+import { figuresFor, listsFor } from '../../services/exchange-stats';
 
 export interface Viewer {
   id: number;
