@@ -30,3 +30,11 @@ export const RACK_SIZE = 13;
 export function dealtRackSize(seat: Seat): number {
   return seat === DEALER ? DEALER_RACK_SIZE : RACK_SIZE;
 }
+
+/** The seat a user sits in, or null: the one answer to "where is this person" for any seats record. */
+export function seatOfUser(seats: Readonly<Partial<Record<Seat, { kind: string; userId?: number } | null>>>, userId: number): Seat | null {
+  return SEATS.find((seat) => {
+    const occupant = seats[seat];
+    return occupant?.kind === 'user' && occupant.userId === userId;
+  }) ?? null;
+}

@@ -1,19 +1,25 @@
-import { TableRow } from '../db/models';
 import { TableError, TableMaster, type MasterHooks } from './table-master';
+import { sequelizeTableStore, type TableStore } from './table-store';
 
 const BROKEN_MESSAGE = 'This table could not be restored after a restart: its stored passes no longer add up. Its host can open a new table; finished exchanges are safe in your history.';
 
 /** Every table this process owns, loaded once and kept. */
 export class TableRegistry {
   private masters = new Map<string, Promise<TableMaster | null>>();
+  private readonly store: TableStore;
+  private readonly hooks: MasterHooks;
 
-  constructor(private hooks: MasterHooks) {}
+  /** Without a store in `hooks`, tables are kept in the app's database (exchange events through `hooks.events`). */
+  constructor(hooks: MasterHooks) {
+    this.store = hooks.store ?? sequelizeTableStore(hooks.events!);
+    this.hooks = { ...hooks, store: this.store };
+  }
 
   get(tableId: string): Promise<TableMaster | null> {
     let master = this.masters.get(tableId);
     if (master) void master.then((m) => m && (m.lastUsed = Date.now())).catch(() => undefined);
     if (!master) {
-      master = TableRow.findByPk(tableId).then(async (row) => {
+      master = this.store.table(tableId).then(async (row) => {
         if (!row) return null;
         const loaded = await TableMaster.load(row, this.hooks);
         if (row.status === 'playing') {
@@ -40,7 +46,7 @@ export class TableRegistry {
    * no longer applies is logged and closed to its players (a join says so); the others start.
    */
   async restoreOpenTables(onBroken: (tableId: string, err: unknown) => void = () => undefined): Promise<number> {
-    const rows = await TableRow.findAll({ where: { status: 'playing' } });
+    const rows = await this.store.openTables();
     let restored = 0;
     for (const row of rows) {
       try {

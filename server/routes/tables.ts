@@ -1,31 +1,24 @@
-import { noEventWriter } from '../db/event-writer';
 import { randomBytes, randomUUID } from 'node:crypto';
 import { Router, type Request } from 'express';
 import { Op } from 'sequelize';
 import { z } from 'zod';
 import { createTableSchema } from '../../shared/protocol';
 import { BOT_STRATEGIES } from '../../shared/analysis/bots';
-import { SEATS } from '../../shared/seats';
+import { SEATS, seatOfUser } from '../../shared/seats';
+import { defaultTableOptions } from '../../shared/table';
 import { requireUser } from '../auth/guards';
 import { TableRow } from '../db/models';
 import { badInput, HttpError } from '../errors';
 import type { TableRegistry } from '../realtime/registry';
-import { defaultTableOptions, TableMaster } from '../realtime/table-master';
+import { absentPresence, tableDto } from '../realtime/table-views';
 import { drillNotFound, drillTableOptions, findOwnDrill, listNotYours } from '../teaching/drills';
-import { mayUseList, patternsForTable } from '../teaching/pattern-source';
+import { mayUseList, patternsForTable } from '../teaching/pattern-lists';
 import type { StoredTableOptions } from '../db/models';
 
 /** The bot a practice table seats: the one that passes as the advice would. */
 const PRACTICE_BOT = 'advised';
 
-const noHooks = { changed: () => undefined, botDelayMs: 0, events: noEventWriter };
-
-function seatedAt(row: TableRow, userId: number) {
-  return SEATS.some((s) => {
-    const o = row.seats[s];
-    return o?.kind === 'user' && o.userId === userId;
-  });
-}
+const seatedAt = (row: TableRow, userId: number) => seatOfUser(row.seats, userId) !== null;
 
 /** The table named in the path, if this user may see it: its host, its players, admins, or anyone with a public table or the invite. */
 async function visibleTable(req: Request): Promise<TableRow> {
@@ -43,10 +36,10 @@ export function tablesRouter(registry: TableRegistry) {
   const router = Router();
   router.use(requireUser);
 
-  /** The live owner when this process has loaded the table, else a read-only view of the row. */
+  /** The live owner's view when this process has loaded the table, else the row's as stored (nobody counted present). */
   async function dtoOf(row: TableRow, userId: number) {
-    const master = (await registry.peek(row.id)) ?? new TableMaster(row, noHooks);
-    return master.tableDto(userId);
+    const master = await registry.peek(row.id);
+    return master ? master.tableDto(userId) : tableDto(row, absentPresence(), userId);
   }
 
   router.post('/', async (req, res) => {
