@@ -102,6 +102,7 @@ export class GroupWriter implements EventWriter {
   private waiting: Entry[] = [];
   private writing: Promise<void> | null = null;
   private closed = false;
+  private closing: Promise<void> | null = null;
 
   constructor(
     private readonly run: Run,
@@ -192,8 +193,6 @@ export class GroupWriter implements EventWriter {
   async drain() {
     while (this.writing) await this.writing;
   }
-
-  private closing: Promise<void> | null = null;
 
   /** Writes what waits, then closes the connection; a second call waits for the first. */
   close() {
