@@ -20,7 +20,8 @@ export function freePort(): Promise<number> {
   });
 }
 
-async function waitFor(check: () => boolean | Promise<boolean>, what: string, ms = 20_000) {
+/** Waits until check() is true (an error counts as not yet), trying every 100 ms; fails after ms. */
+export async function waitFor(check: () => boolean | Promise<boolean>, what: string, ms = 20_000) {
   const until = Date.now() + ms;
   for (;;) {
     try {

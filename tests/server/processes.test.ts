@@ -1,11 +1,12 @@
 /**
  * Several Rackside processes on one database, fanning out through one Redis: real processes, a real
- * redis-server, and SQLite or a real PostgreSQL server, all on loopback.
+ * redis-server, SQLite or a real PostgreSQL server, and HAProxy with the configuration kept for
+ * production (server/deploy/haproxy.cfg), all on loopback.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { createConnection, createServer, type Server as NetServer, type Socket as NetSocket } from 'node:net';
 import { tmpdir } from 'node:os';
+import { performance } from 'node:perf_hooks';
 import { join } from 'node:path';
 import { io as connect } from 'socket.io-client';
 import request from 'supertest';
@@ -13,6 +14,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, test } from 'vitest';
 import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
 import { freePort, startPostgres, startRedis, type Running, type RunningPostgres } from './backing-servers';
+import { startHaproxy, type RunningHaproxy } from './haproxy';
 import { autoPlayer, Client, expectAckedInLog } from './live';
 
 let redis: Running;
@@ -20,16 +22,19 @@ let postgres: RunningPostgres;
 const running: ChildProcess[] = [];
 const folders: string[] = [];
 const openClients: Client[] = [];
-const balancers: NetServer[] = [];
+const balancers: RunningHaproxy[] = [];
 
 beforeAll(async () => {
   [redis, postgres] = await Promise.all([startRedis(), startPostgres()]);
 }, 60_000);
 
-afterEach(() => {
+afterEach(async (context) => {
   openClients.splice(0).forEach((c) => c.socket.disconnect());
   running.splice(0).forEach((p) => p.exitCode === null && p.kill('SIGKILL'));
-  balancers.splice(0).forEach((b) => b.close());
+  const fronts = balancers.splice(0);
+  // A failing test shows what HAProxy logged: each request, and each server it marked up or down.
+  if (context.task.result?.state === 'fail') fronts.forEach((f) => process.stderr.write(`HAProxy said:\n${f.output()}\n`));
+  await Promise.all(fronts.map((f) => f.stop()));
 });
 
 afterAll(async () => {
@@ -46,8 +51,10 @@ interface Proc {
 /** One Rackside process, as it runs in production: its own port, the shared database and Redis. */
 async function rackside(databaseUrl: string): Promise<Proc> {
   const port = await freePort();
+  // Every test here registers four new people from one address, and the limit on new accounts
+  // counts in the one Redis the whole file shares: raise it.
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, PORT: String(port), DATABASE_URL: databaseUrl, REDIS_URL: redis.url, WEBSOCKET_ONLY: 'true', BCRYPT_ROUNDS: '4', SESSION_SECRET: 'shared-by-every-process', SEED_DEMO: 'false', BOT_DELAY_MS: '0', CLIENT_DIR: 'none', LOG_LEVEL: 'error' },
+    env: { ...process.env, REGISTER_RATE_MAX: '1000', PORT: String(port), DATABASE_URL: databaseUrl, REDIS_URL: redis.url, WEBSOCKET_ONLY: 'true', BCRYPT_ROUNDS: '4', SESSION_SECRET: 'shared-by-every-process', SEED_DEMO: 'false', BOT_DELAY_MS: '0', CLIENT_DIR: 'none', LOG_LEVEL: 'error' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   running.push(child);
@@ -87,8 +94,9 @@ async function register(url: string, name: string) {
   return (res.headers['set-cookie'] as unknown as string[])[0].split(';')[0];
 }
 
-function socketTo(url: string, cookie: string, reconnect: boolean) {
-  return connect(url, { transports: ['websocket'], reconnection: reconnect, reconnectionDelay: 100, reconnectionDelayMax: 300, extraHeaders: { Cookie: cookie } });
+/** A socket straight to one process, or, with a table, through the balancer as the client does: the table's id in the handshake query. */
+function socketTo(url: string, cookie: string, reconnect: boolean, table?: string) {
+  return connect(url, { transports: ['websocket'], reconnection: reconnect, reconnectionDelay: 100, reconnectionDelayMax: 300, extraHeaders: { Cookie: cookie }, ...(table ? { query: { table } } : {}) });
 }
 
 /** A client of live.ts's, kept to be closed after the test. */
@@ -120,32 +128,40 @@ async function replayOf(url: string, cookie: string, exchangeId: string) {
   return res.body.replay as ExchangeReplayDto;
 }
 
-/** A plain TCP balancer in front of the processes: each new connection goes to the next process that answers. */
-async function balancer(ports: number[]) {
-  let next = 0;
-  const server = createServer((incoming: NetSocket) => {
-    incoming.pause();
-    const tryPort = (left: number) => {
-      if (left === 0) return incoming.destroy();
-      const port = ports[next++ % ports.length];
-      const outgoing = createConnection({ port, host: '127.0.0.1' });
-      let joined = false;
-      outgoing.once('connect', () => {
-        joined = true;
-        incoming.pipe(outgoing).pipe(incoming);
-        incoming.once('error', () => outgoing.destroy());
-        incoming.once('close', () => outgoing.destroy());
-        outgoing.once('close', () => incoming.destroy());
-        incoming.resume();
-      });
-      // A process that refuses the connection is skipped; one that dies later ends the client's connection too.
-      outgoing.once('error', () => (joined ? incoming.destroy() : tryPort(left - 1)));
-    };
-    tryPort(ports.length);
+/** HAProxy in front of the two processes (the config's servers a and b), stopped after the test. */
+async function balancer(a: Proc, b: Proc) {
+  const front = await startHaproxy({ a: a.port, b: b.port });
+  balancers.push(front);
+  return front;
+}
+
+/** The URL a table's sockets use through the balancer: Socket.IO sends its query on the upgrade and on every polling request. */
+const tableUrl = (front: RunningHaproxy, tableId: string) => `${front.url}/?table=${encodeURIComponent(tableId)}`;
+
+/**
+ * Which process HAProxy sent a table's sockets to, read from HAProxy itself: its open connections per
+ * server in the `tables` backend (only this table's sockets are open there).
+ */
+async function tableSockets(front: RunningHaproxy) {
+  const servers = (await front.servers()).filter((s) => s.backend === 'tables');
+  return Object.fromEntries(servers.map((s) => [s.server, s.current])) as Record<'a' | 'b', number>;
+}
+
+/**
+ * Resolves with the time from `since` to the first action acked to a player on a connection opened
+ * after `since` (an ack still on its way from a process being killed does not count).
+ */
+function nextAckOnNewConnection(players: { acked: unknown[]; seen: { connects: number } }[], since: number) {
+  return new Promise<number>((resolve) => {
+    for (const p of players) {
+      const connectsBefore = p.seen.connects;
+      const push = p.acked.push.bind(p.acked);
+      p.acked.push = (...items: unknown[]) => {
+        if (p.seen.connects > connectsBefore) resolve(performance.now() - since);
+        return push(...items);
+      };
+    }
   });
-  balancers.push(server);
-  const port = await new Promise<number>((resolve) => server.listen(0, '127.0.0.1', () => resolve((server.address() as { port: number }).port)));
-  return `http://127.0.0.1:${port}`;
 }
 
 describe.each(Object.keys(databases) as (keyof typeof databases)[])('two processes on %s with one Redis', (kind) => {
@@ -174,20 +190,50 @@ describe.each(Object.keys(databases) as (keyof typeof databases)[])('two process
     expect(players.every((p) => p.acked.length > 0)).toBe(true);
   }, 90_000);
 
-  test('SIGKILL one process mid-exchange: its players reconnect through the balancer to the other by themselves, and nothing acked is lost', async () => {
+  test('through HAProxy, the four players of one table all reach the same process: HAProxy counts them there, and only killing that process drops them', async () => {
     const [a, b] = await twoProcesses(databases[kind]());
-    const front = await balancer([a.port, b.port]);
+    const front = await balancer(a, b);
     const { names, cookies, table } = await seatedTable([a.url, b.url]);
-    const players = names.map((n, i) => player(n, cookies[i], front, table.id, true));
+    const people = names.map((n, i) => new Client(n, cookies[i], socketTo(front.url, cookies[i], false, table.id)));
+    openClients.push(...people);
+    for (const c of people) await c.ok('table:join', { tableId: table.id, as: 'player' });
+    // HAProxy's own count of open connections: four on one server of the `tables` backend, none on the other.
+    const counts = await tableSockets(front);
+    expect(Object.values(counts).sort()).toEqual([0, 4]);
+    const owner = counts.a === 4 ? a : b;
+    const other = owner === a ? b : a;
+    const dropped = people.map((c) => new Promise<void>((resolve) => c.socket.once('disconnect', () => resolve())));
+    // Seen from the clients: with the other process gone, every one of them is still answered...
+    other.child.kill('SIGKILL');
+    await new Promise((resolve) => other.child.once('exit', resolve));
+    for (const c of people) await c.ok('table:join', { tableId: table.id, as: 'player' });
+    expect(people.every((c) => c.socket.connected)).toBe(true);
+    // ...and with the owner gone, every one of them is dropped.
+    owner.child.kill('SIGKILL');
+    await Promise.all(dropped);
+  }, 90_000);
+
+  test('SIGKILL the process that owns the table mid-exchange: its players reconnect through HAProxy to the other by themselves, and nothing acked is lost', async () => {
+    const [a, b] = await twoProcesses(databases[kind]());
+    const front = await balancer(a, b);
+    const { names, cookies, table } = await seatedTable([a.url, b.url]);
+    const players = names.map((n, i) => player(n, cookies[i], tableUrl(front, table.id), table.id, true));
     await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby')));
     await players[0].c.ok('table:start');
     await players[0].c.until((s) => (s.view?.history.length ?? 0) >= 2, 20_000);
-    a.child.kill('SIGKILL');
-    await new Promise((resolve) => a.child.once('exit', resolve));
+    const counts = await tableSockets(front);
+    expect(Object.values(counts).sort()).toEqual([0, 4]);
+    const [owner, survivor] = counts.a === 4 ? [a, b] : [b, a];
+    const killedAt = performance.now();
+    const resumed = nextAckOnNewConnection(players, killedAt);
+    owner.child.kill('SIGKILL');
+    await new Promise((resolve) => owner.child.once('exit', resolve));
+    const ms = await resumed;
+    process.stdout.write(`[${kind}] the table's process SIGKILLed: the next action was stored ${ms.toFixed(0)} ms later, on the other process\n`);
     await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 45_000)));
-    // The balancer gave the first process half of the players; they came back through it, to the second.
-    expect(players.filter((p) => p.seen.connects > 1).length).toBe(2);
-    const replay = await replayOf(b.url, cookies[0], players[0].c.state.exchangeId!);
+    // All four were on the process that died; all four came back through HAProxy, to the other.
+    expect(players.filter((p) => p.seen.connects > 1).length).toBe(4);
+    const replay = await replayOf(survivor.url, cookies[0], players[0].c.state.exchangeId!);
     expectAckedInLog(replay, players);
     const resolves = replay.log.filter((e) => !('seat' in e)).length;
     expect(resolves).toBeGreaterThanOrEqual(players[0].c.state.view!.history.length);
