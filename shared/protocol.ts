@@ -4,7 +4,7 @@ import type { CommittedPass, ExchangeOptions, ExchangeView, LogEntry, Phase } fr
 import type { Seat } from './seats';
 import type { Tile } from './tiles';
 import type { Pattern } from './analysis/pattern';
-import { BOT_STRATEGIES } from './analysis/bots';
+import { BOT_STRATEGY_IDS } from './bot-ids';
 
 export const ROLE_NAMES = ['player', 'teacher', 'admin'] as const;
 export type RoleName = (typeof ROLE_NAMES)[number];
@@ -63,7 +63,6 @@ export interface ApiErrorBody {
 
 
 export const SEAT_NAMES = ['east', 'south', 'west', 'north'] as const;
-export const BOT_STRATEGY_IDS = BOT_STRATEGIES.map((s) => s.id) as [string, ...string[]];
 
 export const TABLE_LIMITS = { nameMax: 80, seedMax: 120, chatMax: 500, noteMax: 2000 } as const;
 
@@ -234,6 +233,8 @@ export interface ExchangeReplayDto {
 
 // Socket payloads. Every client event answers through an ack.
 const seat = z.enum(SEAT_NAMES, { error: 'A seat is east, south, west or north.' });
+// Widened to string for what the client sends (its bot picker holds a string); the server still takes only these ids.
+const botStrategyIds: readonly [string, ...string[]] = BOT_STRATEGY_IDS;
 const tileIds = z.array(z.string().min(1).max(16)).max(3);
 
 export const actionSchema = z.discriminatedUnion(
@@ -251,7 +252,7 @@ export const clientEventSchemas = {
   'table:join': z.object({ tableId: z.string().min(1).max(64), as: z.enum(['player', 'spectator']).default('player'), invite: z.string().max(64).optional() }).strict(),
   'table:sit': z.object({ seat }).strict(),
   'table:stand': z.object({}).strict().default({}),
-  'table:bot': z.object({ seat, strategy: z.enum(BOT_STRATEGY_IDS, { error: `A bot strategy is one of: ${BOT_STRATEGY_IDS.join(', ')}.` }) }).strict(),
+  'table:bot': z.object({ seat, strategy: z.enum(botStrategyIds, { error: `A bot strategy is one of: ${BOT_STRATEGY_IDS.join(', ')}.` }) }).strict(),
   'table:start': z.object({}).strict().default({}),
   'exchange:act': z.object({ action: actionSchema, version: z.number().int().nonnegative().optional() }).strict(),
   'huddle:call': z.object({}).strict().default({}),
@@ -270,11 +271,40 @@ export type ClientEventName = keyof typeof clientEventSchemas;
 export type ClientPayload<E extends ClientEventName> = z.input<(typeof clientEventSchemas)[E]>;
 
 export type AckError = { ok: false; code: string; message: string };
+/** An answer with any payload; `AckOf` names the one a given event answers with. */
 export type Ack<T extends object = object> = ({ ok: true } & T) | AckError;
-type AckFn = (ack: Ack) => void;
+
+type Versioned = {
+  /** The table's version once the change is stored and shown. */
+  version: number;
+};
+type Nothing = Record<never, never>;
+
+/** What each client event answers with when it succeeds (a refusal is an `AckError`). */
+export type AckPayloads = {
+  /** The joiner's own view of the table, as sent to them. */
+  'table:join': { state: TableStateDto };
+  'table:sit': Versioned;
+  'table:stand': Versioned;
+  'table:bot': Versioned;
+  'table:start': Versioned;
+  'exchange:act': Versioned;
+  'huddle:call': Versioned;
+  'huddle:reveal': Versioned;
+  'huddle:note': Versioned;
+  'huddle:release': Versioned;
+  'table:leave': Nothing;
+  'table:advice': Versioned;
+  'table:close': Versioned;
+  /** The id the message was sent with, as every reader gets it in `chat:message`. */
+  'chat:send': { id: string };
+};
+
+/** The ack of one client event. */
+export type AckOf<E extends ClientEventName> = Ack<AckPayloads[E]>;
 
 export type ClientToServerEvents = {
-  [E in ClientEventName]: (payload: ClientPayload<E>, ack: AckFn) => void;
+  [E in ClientEventName]: (payload: ClientPayload<E>, ack: (ack: AckOf<E>) => void) => void;
 };
 
 export interface ServerToClientEvents {

@@ -6,6 +6,7 @@
  * When the seat has nothing to do (it already committed, its courtesy count is 0, the exchange
  * is done, or the viewer is not a seat), `chooseAction` returns null; a caller should not ask then.
  */
+import type { BotStrategyId } from '../bot-ids';
 import type { Action, CourtesyCount, ExchangeView, Phase } from '../exchange/types';
 import { randomInt, rngFor, type Rng } from '../random';
 import { isSeat, type Seat } from '../seats';
@@ -27,7 +28,7 @@ export const STOP_WHEN_ODDS = 0.3;
 /** The most tiles a courtesy ask may name. */
 export const COURTESY_ASK_MAX = 3;
 
-export type BotStrategyId = 'random' | 'multiples' | 'advised';
+export type { BotStrategyId } from '../bot-ids';
 
 export interface Bot {
   readonly strategy: BotStrategyId;
