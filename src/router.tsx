@@ -1,6 +1,6 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { Layout } from './components/ui/Layout';
-import { HomePage } from './routes/HomePage';
+import { HomePage } from './features/table/routes/HomePage';
 import { SignInPage } from './routes/SignInPage';
 import { RegisterPage } from './routes/RegisterPage';
 import { AdminUsersPage } from './routes/AdminUsersPage';
@@ -17,7 +17,7 @@ export const routes: RouteObject[] = [
       { path: '/register', element: <RegisterPage /> },
       { path: '/admin/users', element: <AdminUsersPage /> },
       // The live table, replays and history load their own code, so sign-in and home stay small.
-      { path: '/tables/:id', handle: { wide: true }, lazy: async () => ({ Component: (await import('./routes/TablePage')).TablePage }) },
+      { path: '/tables/:id', handle: { wide: true }, lazy: async () => ({ Component: (await import('./features/table/routes/TablePage')).TablePage }) },
       { path: '/replays/:id', handle: { wide: true }, lazy: async () => ({ Component: (await import('./routes/ReplayPage')).ReplayPage }) },
       { path: '/progress', lazy: async () => ({ Component: (await import('./routes/ProgressPage')).ProgressPage }) },
       { path: '/progress/:userId', lazy: async () => ({ Component: (await import('./routes/ProgressPage')).ProgressPage }) },

@@ -1,5 +1,4 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Pattern } from '../../shared/analysis/pattern';
 import type { PatternListDto, PatternListInput, PatternListSummaryDto } from '../../shared/pattern-lists';
 import { api } from '../lib/api/client';
 import { uploadFile } from '../lib/api/upload';
@@ -13,16 +12,6 @@ export function patternListQuery(id: string) {
   return queryOptions({
     queryKey: ['pattern-lists', id],
     queryFn: async () => (await api<{ list: PatternListDto }>(`/pattern-lists/${encodeURIComponent(id)}`)).list,
-  });
-}
-
-/** The list a table's analysis judges by (the starter list unless the host picked another). */
-export function tablePatternsQuery(tableId: string, invite?: string) {
-  return queryOptions({
-    queryKey: ['tables', tableId, 'patterns'],
-    queryFn: async () =>
-      (await api<{ list: { id: string; name: string; patterns: Pattern[] } }>(`/tables/${encodeURIComponent(tableId)}/patterns${invite ? `?invite=${encodeURIComponent(invite)}` : ''}`)).list,
-    staleTime: 5 * 60_000,
   });
 }
 

@@ -1,6 +1,6 @@
 /**
  * The session this tab was using has ended elsewhere: a 401 from the API (src/lib/api/client.ts) or a
- * socket refused at its handshake (src/realtime/socket.ts) says so. The layout listens, and tells the
+ * socket refused at its handshake (src/features/table/api/socket.ts) says so. The layout listens, and tells the
  * person "You were signed out" on the page they were on (src/components/ui/Layout.tsx).
  */
 import { create } from 'zustand';

@@ -1,7 +1,7 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { expect, test, vi } from 'vitest';
-import { Chat } from '../../src/components/Chat';
+import { Chat } from '../../src/features/table/components/Chat';
 import { InviteForm } from '../../src/components/InviteForm';
 import { renderAt, signedOut } from './render';
 

@@ -5,7 +5,7 @@ import type { TableDto } from '../../shared/protocol';
 import { fakeApi, renderAt, signedInAs } from './render';
 import { OPTIONS } from './fake-table';
 
-vi.mock('../../src/realtime/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
+vi.mock('../../src/features/table/api/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
 
 const table = (id: string, name: string, extra: Partial<TableDto> = {}): TableDto => ({
   id,

@@ -5,12 +5,12 @@ import { beforeAll, expect, test, vi } from 'vitest';
 import { starterPatterns } from '../../shared/analysis';
 import type { DrillDto } from '../../shared/drills';
 import { SEATS } from '../../shared/seats';
-import { LobbySeats } from '../../src/components/LobbySeats';
+import { LobbySeats } from '../../src/features/table/components/LobbySeats';
 import { Rack } from '../../src/components/ui/Rack';
 import { fakeApi, renderAt, signedInAs } from './render';
 import { finishedReplay, tableState } from './fake-table';
 
-vi.mock('../../src/realtime/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
+vi.mock('../../src/features/table/api/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
 
 beforeAll(async () => {
   await import('../../src/routes/ReplayPage');

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { expect, test, vi } from 'vitest';
 import type { Tile } from '../../shared/tiles';
 import { JOKER_REFUSAL, Rack } from '../../src/components/ui/Rack';
-import { useRackOrder } from '../../src/components/rackOrder';
+import { useRackOrder } from '../../src/features/table/rack-order';
 
 const TILES: Tile[] = [
   { id: 'a', kind: 'bam3' },

@@ -1,6 +1,6 @@
 import { expect, test } from 'vitest';
 import { SEATS, seatTo } from '../../shared/seats';
-import { receivedAnnouncement } from '../../src/realtime/announce';
+import { receivedAnnouncement } from '../../src/features/table/api/announce';
 import { sideOf } from '../../src/lib/seating';
 import { fresh, passAll, tableState } from './fake-table';
 

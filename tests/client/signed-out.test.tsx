@@ -6,7 +6,7 @@ import { act, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { beforeEach, expect, test, vi } from 'vitest';
 import { useSignedOutNotice } from '../../src/lib/session-end';
-import { useTableStore } from '../../src/realtime/tableStore';
+import { useTableStore } from '../../src/features/table/api/table-store';
 import { safeReturnPath } from '../../src/lib/return-path';
 import { tableState } from './fake-table';
 import { fakeApi, renderAt, signedInAs, signedOut } from './render';

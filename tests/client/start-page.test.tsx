@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { expect, test, vi } from 'vitest';
 import { fakeApi, renderAt, signedInAs, signedOut } from './render';
 
-vi.mock('../../src/realtime/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
+vi.mock('../../src/features/table/api/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
 
 test('a signed-out visitor is told what Rackside and a Charleston are, sees a table, then can sign in or register', async () => {
   fakeApi(signedOut);

@@ -1,6 +1,6 @@
 import { act as reactAct, screen, waitFor, within } from '@testing-library/react';
 import { beforeEach, expect, test, vi } from 'vitest';
-import { useTableStore } from '../../src/realtime/tableStore';
+import { useTableStore } from '../../src/features/table/api/table-store';
 import { fakeApi, renderAt, signedInAs } from './render';
 import { fresh, tableState } from './fake-table';
 
@@ -9,7 +9,7 @@ const socket = vi.hoisted(() => ({
   joinTable: vi.fn(async () => ({ ok: true }) as const),
   leaveTable: vi.fn(),
 }));
-vi.mock('../../src/realtime/socket', () => socket);
+vi.mock('../../src/features/table/api/socket', () => socket);
 
 beforeEach(() => useTableStore.getState().reset());
 

@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { beforeEach, expect, test, vi } from 'vitest';
 import { act, createExchange, viewFor } from '../../shared/exchange';
 import type { TableStateDto } from '../../shared/protocol';
-import { useTableStore } from '../../src/realtime/tableStore';
+import { useTableStore } from '../../src/features/table/api/table-store';
 import { fakeApi, renderAt, signedInAs } from './render';
 import { fresh, must, OPTIONS, passAll, tableState } from './fake-table';
 
@@ -12,7 +12,7 @@ const socket = vi.hoisted(() => ({
   joinTable: vi.fn(async () => ({ ok: true }) as const),
   leaveTable: vi.fn(),
 }));
-vi.mock('../../src/realtime/socket', () => socket);
+vi.mock('../../src/features/table/api/socket', () => socket);
 
 beforeEach(() => {
   // Picks are kept in the tab per table and step; every test starts a fresh tab.

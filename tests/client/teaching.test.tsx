@@ -5,7 +5,7 @@ import { starterPatterns } from '../../shared/analysis';
 import type { DrillDto } from '../../shared/drills';
 import { renderAt, signedInAs } from './render';
 
-vi.mock('../../src/realtime/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
+vi.mock('../../src/features/table/api/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
 
 type Reply = { status: number; body: unknown };
 type Answers = Record<string, Reply | ((body: unknown) => Reply)>;

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { kindOrder, rankOf, type Tile } from '../../shared/tiles';
+import { kindOrder, rankOf, type Tile } from '../../../shared/tiles';
 
 export type RackSort = 'suit' | 'number';
 

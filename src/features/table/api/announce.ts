@@ -1,8 +1,8 @@
-import { PASS_DIRECTION } from '../../shared/exchange';
-import type { TableStateDto } from '../../shared/protocol';
-import { seatFrom } from '../../shared/seats';
-import { tileName } from '../../shared/tiles';
-import { sideOf, SIDE_WORDS } from '../lib/seating';
+import { PASS_DIRECTION } from '../../../../shared/exchange';
+import type { TableStateDto } from '../../../../shared/protocol';
+import { seatFrom } from '../../../../shared/seats';
+import { tileName } from '../../../../shared/tiles';
+import { sideOf, SIDE_WORDS } from '../../../lib/seating';
 
 /** "You received 3 tiles from across: 2 dot, north wind, flower." when a pass has just landed. */
 export function receivedAnnouncement(before: TableStateDto | null, after: TableStateDto): string | null {

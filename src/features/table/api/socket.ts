@@ -1,8 +1,8 @@
 import { io, type Socket } from 'socket.io-client';
-import type { Ack, ClientEventName, ClientPayload, ClientToServerEvents, ServerToClientEvents } from '../../shared/protocol';
-import { sessionEnded } from '../lib/session-end';
-import { onSessionChange } from '../lib/session-change';
-import { useTableStore } from './tableStore';
+import type { Ack, ClientEventName, ClientPayload, ClientToServerEvents, ServerToClientEvents } from '../../../../shared/protocol';
+import { sessionEnded } from '../../../lib/session-end';
+import { onSessionChange } from '../../../lib/session-change';
+import { useTableStore } from './table-store';
 
 type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 

@@ -1,5 +1,5 @@
 import { create } from 'zustand';
-import type { ChatMessageDto, TableStateDto } from '../../shared/protocol';
+import type { ChatMessageDto, TableStateDto } from '../../../../shared/protocol';
 import { receivedAnnouncement } from './announce';
 
 /** 'signed-out': the server refused this tab's session; nothing is retried until the person signs in again. */
@@ -25,7 +25,7 @@ interface TableStore {
 
 const CHAT_KEEP = 200;
 
-/** The live table, written only by the socket (src/realtime/socket.ts). */
+/** The live table, written only by the socket (src/features/table/api/socket.ts). */
 export const useTableStore = create<TableStore>()((set) => ({
   table: null,
   chat: [],

@@ -1,12 +1,12 @@
 import { useMemo, useState } from 'react';
-import { BOT_STRATEGIES, starterPatterns, summarizeRack, type AdviceContext, type Pattern, type PassAdvice, type Reason } from '../../shared/analysis';
-import type { Phase } from '../../shared/exchange';
-import { tileName, type TileKind } from '../../shared/tiles';
-import type { AnalysisRequest } from '../lib/analysis/requests';
-import { useRackAnalysis } from '../lib/analysis/use-rack-analysis';
-import { PatternRow } from './ui/PatternRow';
-import { Tile } from './ui/Tile';
-import { oddsWord } from '../lib/phase-words';
+import { BOT_STRATEGIES, starterPatterns, summarizeRack, type AdviceContext, type Pattern, type PassAdvice, type Reason } from '../../../../shared/analysis';
+import type { Phase } from '../../../../shared/exchange';
+import { tileName, type TileKind } from '../../../../shared/tiles';
+import type { AnalysisRequest } from '../../../lib/analysis/requests';
+import { useRackAnalysis } from '../../../lib/analysis/use-rack-analysis';
+import { PatternRow } from '../../../components/ui/PatternRow';
+import { Tile } from '../../../components/ui/Tile';
+import { oddsWord } from '../../../lib/phase-words';
 
 interface Props {
   hand: readonly TileKind[];

@@ -1,7 +1,7 @@
 import { useRef, useState } from 'react';
-import type { ChatMessageDto } from '../../shared/protocol';
-import { TABLE_LIMITS } from '../../shared/protocol';
-import { Button } from './ui/Button';
+import type { ChatMessageDto } from '../../../../shared/protocol';
+import { TABLE_LIMITS } from '../../../../shared/protocol';
+import { Button } from '../../../components/ui/Button';
 
 /** The table's conversation: a log that reads new messages aloud politely, and a box to add one. */
 export function Chat({ messages, onSend }: { messages: readonly ChatMessageDto[]; onSend: (text: string) => Promise<boolean> }) {

@@ -1,13 +1,13 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
-import type { TableOptionsInput } from '../../shared/protocol';
-import { useMe } from '../lib/api/auth';
-import { ApiError } from '../lib/api/client';
-import { createTableErrors, useCreateTable } from '../lib/api/tables';
-import { Button } from './ui/Button';
-import { FormMessage } from './ui/FormMessage';
-import { TextField } from './ui/TextField';
-import { CheckField } from './ui/CheckField';
+import type { TableOptionsInput } from '../../../../shared/protocol';
+import { useMe } from '../../../lib/api/auth';
+import { ApiError } from '../../../lib/api/client';
+import { createTableErrors, useCreateTable } from '../../../lib/api/tables';
+import { Button } from '../../../components/ui/Button';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { TextField } from '../../../components/ui/TextField';
+import { CheckField } from '../../../components/ui/CheckField';
 
 /** The on-or-off options. */
 type Switch = { [K in keyof TableOptionsInput]-?: NonNullable<TableOptionsInput[K]> extends boolean ? K : never }[keyof TableOptionsInput];

@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import type { TableStateDto } from '../../shared/protocol';
-import { SEATS, type Seat } from '../../shared/seats';
-import { Button } from './ui/Button';
-import { Rack } from './ui/Rack';
-import { capitalise } from '../lib/seating';
+import type { TableStateDto } from '../../../../shared/protocol';
+import { SEATS, type Seat } from '../../../../shared/seats';
+import { Button } from '../../../components/ui/Button';
+import { Rack } from '../../../components/ui/Rack';
+import { capitalise } from '../../../lib/seating';
 
 interface Props {
   table: TableStateDto;

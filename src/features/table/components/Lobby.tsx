@@ -1,12 +1,12 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import type { TableDto } from '../../shared/protocol';
-import { SEATS } from '../../shared/seats';
-import { useTables } from '../lib/api/tables';
-import { Button } from './ui/Button';
-import { Card } from './ui/Card';
+import type { TableDto } from '../../../../shared/protocol';
+import { SEATS } from '../../../../shared/seats';
+import { useTables } from '../../../lib/api/tables';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
 import { CreateTableForm } from './CreateTableForm';
-import { TextField } from './ui/TextField';
+import { TextField } from '../../../components/ui/TextField';
 
 const STATUS_WORDS = { lobby: 'Seating', playing: 'Passing', done: 'Finished', closed: 'Closed' } as const;
 

@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { BOT_STRATEGIES } from '../../shared/analysis';
-import type { TableStateDto } from '../../shared/protocol';
-import { SEATS, type Seat } from '../../shared/seats';
-import { capitalise } from '../lib/seating';
-import { Button } from './ui/Button';
+import { BOT_STRATEGIES } from '../../../../shared/analysis';
+import type { TableStateDto } from '../../../../shared/protocol';
+import { SEATS, type Seat } from '../../../../shared/seats';
+import { capitalise } from '../../../lib/seating';
+import { Button } from '../../../components/ui/Button';
 import { TableTop } from './TableTop';
 
 interface Props {

@@ -1,5 +1,5 @@
-import type { Direction, Seat } from '../../shared/seats';
-import { DIRECTION_SIDE, SIDE_WORDS } from '../lib/seating';
+import type { Direction, Seat } from '../../../../shared/seats';
+import { DIRECTION_SIDE, SIDE_WORDS } from '../../../lib/seating';
 
 const PATHS: Record<Direction, string> = {
   right: 'M50 88 C 70 80, 84 68, 88 50',

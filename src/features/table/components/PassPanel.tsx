@@ -1,9 +1,9 @@
 import { useId } from 'react';
-import type { CourtesyCount } from '../../shared/exchange';
-import type { TableStateDto } from '../../shared/protocol';
-import { SEATS } from '../../shared/seats';
-import { Button } from './ui/Button';
-import { tilesWord } from '../lib/phase-words';
+import type { CourtesyCount } from '../../../../shared/exchange';
+import type { TableStateDto } from '../../../../shared/protocol';
+import { SEATS } from '../../../../shared/seats';
+import { Button } from '../../../components/ui/Button';
+import { tilesWord } from '../../../lib/phase-words';
 
 export interface PassHandlers {
   onSend: () => void;

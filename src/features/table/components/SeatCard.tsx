@@ -1,7 +1,7 @@
-import type { SeatStateDto } from '../../shared/protocol';
-import type { Seat } from '../../shared/seats';
-import { capitalise, SIDE_WORDS, type Side } from '../lib/seating';
-import { tilesWord } from '../lib/phase-words';
+import type { SeatStateDto } from '../../../../shared/protocol';
+import type { Seat } from '../../../../shared/seats';
+import { capitalise, SIDE_WORDS, type Side } from '../../../lib/seating';
+import { tilesWord } from '../../../lib/phase-words';
 
 interface Props {
   seat: Seat;

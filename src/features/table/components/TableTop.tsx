@@ -1,6 +1,6 @@
-import { SEATS, type Seat } from '../../shared/seats';
-import type { TableStateDto } from '../../shared/protocol';
-import { sideOf, type Side } from '../lib/seating';
+import { SEATS, type Seat } from '../../../../shared/seats';
+import type { TableStateDto } from '../../../../shared/protocol';
+import { sideOf, type Side } from '../../../lib/seating';
 import { SeatCard } from './SeatCard';
 
 /**

@@ -1,6 +1,6 @@
-import type { TableStateDto } from '../../shared/protocol';
-import { SEATS, type Seat } from '../../shared/seats';
-import { capitalise } from '../lib/seating';
+import type { TableStateDto } from '../../../../shared/protocol';
+import { SEATS, type Seat } from '../../../../shared/seats';
+import { capitalise } from '../../../lib/seating';
 
 /** "North (bot)", "South (Mina Castellanos)", "East (you)". */
 export function seatLabel(table: TableStateDto, seat: Seat): string {

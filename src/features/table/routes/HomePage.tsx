@@ -1,14 +1,14 @@
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import type { TileKind } from '../../shared/tiles';
-import { useMe } from '../lib/api/auth';
-import { api, ApiError } from '../lib/api/client';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { LinkButton } from '../components/ui/LinkButton';
+import type { TileKind } from '../../../../shared/tiles';
+import { useMe } from '../../../lib/api/auth';
+import { api, ApiError } from '../../../lib/api/client';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { LinkButton } from '../../../components/ui/LinkButton';
 import { Lobby } from '../components/Lobby';
-import { Tile } from '../components/ui/Tile';
+import { Tile } from '../../../components/ui/Tile';
 
 const ROLE_WORDS = { player: 'Player', teacher: 'Teacher', admin: 'Organiser (admin)' } as const;
 
