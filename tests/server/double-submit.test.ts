@@ -2,7 +2,7 @@
 import request from 'supertest';
 import { afterEach, beforeEach, expect, test } from 'vitest';
 import { Enrollment, Invitation, User } from '../../server/db/models';
-import { inviteOnce } from '../../server/services/invitations';
+import { inviteOnce } from '../../server/teaching/invitations/service';
 import { createUser, signedIn } from './helpers';
 import { createLesson, inviteToken, lessonApp, linkIn, mailsTo } from './lesson-helpers';
 

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { afterEach, beforeEach, expect, test } from 'vitest';
 import { Enrollment, Invitation, Mail } from '../../server/db/models';
-import { zonedToUtc } from '../../server/services/time';
+import { zonedToUtc } from '../../server/teaching/lessons/time';
 import { createUser, signedIn } from './helpers';
 import { createLesson, inviteToken, lessonBody, mailsTo, lessonApp } from './lesson-helpers';
 

@@ -9,7 +9,7 @@ import { requireUser } from '../../auth/guards';
 import { DrillRow, ExchangeRow, isParticipant, LessonTable, TableRow } from '../../db/models';
 import { HttpError } from '../../errors';
 import { listsFor } from '../../services/exchange-stats';
-import { lessonFor } from '../../services/lessons';
+import { lessonFor } from '../lessons/service';
 import { compareExchanges, dealKey } from './service';
 
 const MAX_ROWS = 200;

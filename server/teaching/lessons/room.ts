@@ -5,16 +5,16 @@
  */
 import { randomBytes, randomUUID } from 'node:crypto';
 import { Op, type Sequelize } from 'sequelize';
-import { BOT_STRATEGIES } from '../../shared/analysis/bots';
-import type { RoomTableDto } from '../../shared/lessons';
-import { TABLE_LIMITS } from '../../shared/protocol';
-import { SEATS, type Seat } from '../../shared/seats';
-import { DrillRow, Enrollment, LessonTable, TableRow, User, type Lesson, type StoredSeats, type StoredTableOptions } from '../db/models';
-import { HttpError } from '../errors';
-import type { TableRegistry } from '../realtime/registry';
-import { defaultTableOptions, TableError, type TableMaster } from '../realtime/table-master';
+import { BOT_STRATEGIES } from '../../../shared/analysis/bots';
+import type { RoomTableDto } from '../../../shared/lessons';
+import { TABLE_LIMITS } from '../../../shared/protocol';
+import { SEATS, type Seat } from '../../../shared/seats';
+import { DrillRow, Enrollment, LessonTable, TableRow, User, type Lesson, type StoredSeats, type StoredTableOptions } from '../../db/models';
+import { HttpError } from '../../errors';
+import type { TableRegistry } from '../../realtime/registry';
+import { defaultTableOptions, TableError, type TableMaster } from '../../realtime/table-master';
+import { drillTableOptions } from '../drills/service';
 import { seatedStatuses } from './seats';
-import { drillTableOptions } from '../teaching/drills';
 
 const PER_TABLE = SEATS.length;
 

@@ -8,8 +8,8 @@
  */
 import { createHash } from 'node:crypto';
 import { Op, UniqueConstraintError } from 'sequelize';
-import { Enrollment, Invitation } from '../db/models';
-import { hashToken, signToken } from './tokens';
+import { Enrollment, Invitation } from '../../db/models';
+import { hashToken, signToken } from '../../services/tokens';
 
 const CLAIM = 'sending-';
 /** A claim this old belongs to a send that stopped half-way (a process that died): it is cleared. */

@@ -1,15 +1,15 @@
 /** Opening and accepting an e-mailed invitation: `/api/invitations/:token`. */
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
-import type { InvitationPreviewDto } from '../../shared/lessons';
-import { requireUser } from '../auth/guards';
-import type { Config } from '../config';
-import { Enrollment, Invitation, Lesson, User } from '../db/models';
-import { HttpError } from '../errors';
-import { lessonDto } from '../services/lessons';
-import { replacedByNewer } from '../services/invitations';
-import { seatsTaken, seatTransaction } from '../services/seats';
-import { hashToken, readToken } from '../services/tokens';
+import type { InvitationPreviewDto } from '../../../shared/lessons';
+import { requireUser } from '../../auth/guards';
+import type { Config } from '../../config';
+import { Enrollment, Invitation, Lesson, User } from '../../db/models';
+import { HttpError } from '../../errors';
+import { hashToken, readToken } from '../../services/tokens';
+import { lessonDto } from '../lessons/service';
+import { seatsTaken, seatTransaction } from '../lessons/seats';
+import { replacedByNewer } from './service';
 
 const day = (d: Date) => d.toUTCString().replace(/ GMT$/, ' UTC');
 

@@ -1,9 +1,9 @@
 /** Reading lessons for a viewer: who may see what, and the DTOs. */
 import type { Request } from 'express';
 import { Op } from 'sequelize';
-import type { EnrollmentDto, InvitationDto, LessonDetailDto, LessonDto } from '../../shared/lessons';
-import { Enrollment, Invitation, Lesson, User } from '../db/models';
-import { HttpError } from '../errors';
+import type { EnrollmentDto, InvitationDto, LessonDetailDto, LessonDto } from '../../../shared/lessons';
+import { Enrollment, Invitation, Lesson, User } from '../../db/models';
+import { HttpError } from '../../errors';
 import { seatCounts } from './seats';
 
 export type LessonRole = 'teacher' | 'student';

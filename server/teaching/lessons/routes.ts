@@ -1,20 +1,20 @@
 import { Router } from 'express';
 import { Op, type Sequelize } from 'sequelize';
-import { invitationsInputSchema, lessonInputSchema, roomInputSchema } from '../../shared/lessons';
-import { requireTeacher, requireUser } from '../auth/guards';
-import type { Config } from '../config';
-import { DrillRow, Enrollment, Lesson, User } from '../db/models';
-import { badInput, HttpError } from '../errors';
-import type { TableRegistry } from '../realtime/registry';
-import type { TableMaster } from '../realtime/table-master';
-import { httpRateLimit } from '../security/rate-limits';
-import { lessonDetail, lessonDto, lessonEnd, lessonFor, requireLessonTeacher } from '../services/lessons';
-import { createRoom, roomTables, startRoom } from '../services/lesson-room';
-import { publicBase } from '../services/links';
-import type { Mailer } from '../services/mail/mailer';
-import { invitationMail } from '../services/mail/messages';
-import { isTimeZone, zonedToUtc } from '../services/time';
-import { enrollInvited, inviteOnce } from '../services/invitations';
+import { invitationsInputSchema, lessonInputSchema, roomInputSchema } from '../../../shared/lessons';
+import { requireTeacher, requireUser } from '../../auth/guards';
+import type { Config } from '../../config';
+import { DrillRow, Enrollment, Lesson, User } from '../../db/models';
+import { badInput, HttpError } from '../../errors';
+import type { TableRegistry } from '../../realtime/registry';
+import type { TableMaster } from '../../realtime/table-master';
+import { httpRateLimit } from '../../security/rate-limits';
+import { publicBase } from '../../services/links';
+import type { Mailer } from '../../services/mail/mailer';
+import { invitationMail } from '../../services/mail/messages';
+import { enrollInvited, inviteOnce } from '../invitations/service';
+import { lessonDetail, lessonDto, lessonEnd, lessonFor, requireLessonTeacher } from './service';
+import { createRoom, roomTables, startRoom } from './room';
+import { isTimeZone, zonedToUtc } from './time';
 
 export interface LessonDeps {
   config: Config;

@@ -5,7 +5,7 @@
  * on PostgreSQL the lesson's row is locked (SELECT … FOR UPDATE) to the same end.
  */
 import { Op, Transaction, type Sequelize } from 'sequelize';
-import { Enrollment, Lesson, Payment } from '../db/models';
+import { Enrollment, Lesson, Payment } from '../../db/models';
 
 const queues = new Map<number, Promise<unknown>>();
 
