@@ -13,7 +13,7 @@ import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, test } from 'vitest';
 import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
-import { freePort, startPostgres, startRedis, type Running, type RunningPostgres } from './backing-servers';
+import { freePort, startPostgres, startRedis, waitFor, type Running, type RunningPostgres } from './backing-servers';
 import { startHaproxy, type RunningHaproxy } from './haproxy';
 import { autoPlayer, Client, expectAckedInLog } from './live';
 
@@ -223,17 +223,20 @@ describe.each(Object.keys(databases) as (keyof typeof databases)[])('two process
     await players[0].c.until((s) => (s.view?.history.length ?? 0) >= 2, 20_000);
     const counts = await tableSockets(front);
     expect(Object.values(counts).sort()).toEqual([0, 4]);
-    const [owner, survivor] = counts.a === 4 ? [a, b] : [b, a];
+    const owner = counts.a === 4 ? a : b;
+    const ownerName = owner === a ? 'a' : 'b';
     const killedAt = performance.now();
     const resumed = nextAckOnNewConnection(players, killedAt);
     owner.child.kill('SIGKILL');
     await new Promise((resolve) => owner.child.once('exit', resolve));
-    const ms = await resumed;
-    process.stdout.write(`[${kind}] the table's process SIGKILLed: the next action was stored ${ms.toFixed(0)} ms later, on the other process\n`);
+    const markedDown = waitFor(async () => (await front.servers()).some((s) => s.backend === 'tables' && s.server === ownerName && s.status === 'DOWN'), 'HAProxy marking the killed process down').then(() => performance.now() - killedAt);
+    const [ms, downMs] = await Promise.all([resumed, markedDown]);
+    process.stdout.write(`[${kind}] the table's process SIGKILLed: the next action was stored ${ms.toFixed(0)} ms later, on the other process; HAProxy marked it down after ${downMs.toFixed(0)} ms\n`);
     await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 45_000)));
     // All four were on the process that died; all four came back through HAProxy, to the other.
     expect(players.filter((p) => p.seen.connects > 1).length).toBe(4);
-    const replay = await replayOf(survivor.url, cookies[0], players[0].c.state.exchangeId!);
+    // The replay through HAProxy too: REST goes to the process left.
+    const replay = await replayOf(front.url, cookies[0], players[0].c.state.exchangeId!);
     expectAckedInLog(replay, players);
     const resolves = replay.log.filter((e) => !('seat' in e)).length;
     expect(resolves).toBeGreaterThanOrEqual(players[0].c.state.view!.history.length);
