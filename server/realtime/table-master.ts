@@ -2,11 +2,12 @@
  * The authority for one table in this process. It orders the table's work (one task at a time, a
  * p-queue of concurrency one), checks each command in a fixed order (dispatch.ts), applies it with
  * the table reducer (shared/table), stores it ahead of what anyone is shown (table-store.ts), then
- * tells the viewers (the `changed` hook; their views are table-views.ts). Presence, the host's seat
- * hand-off and bot timers live here too, because they are work this table orders.
+ * tells the viewers (the `changed` hook; their views are table-views.ts). Storing ahead is
+ * table-ahead.ts; who is away, the host's seat hand-off and bot delays are table-timers.ts.
  *
- * Longer than 300 lines because storing ahead (pending, shown, epoch and the rollback after a
- * refused write) is one mechanism whose parts must be read together.
+ * Longer than 300 lines because one table's work is one sequence read top to bottom: the queue,
+ * the checked command, the reducer, the store (and the retry after a conflict), finishing an
+ * exchange, and catching up with the store when another process moved the table.
  */
 import { randomUUID } from 'node:crypto';
 import PQueue from 'p-queue';
@@ -14,13 +15,15 @@ import type { Logger } from 'pino';
 import { starterPatterns, type Pattern } from '../../shared/analysis';
 import type { Action } from '../../shared/exchange/types';
 import { SEATS, seatOfUser, type Seat } from '../../shared/seats';
-import { botAction, dueEvent, foldLog, reduceTable, restoreExchange, toRecord, type LogEvent, type Table, type TableEvent, type TableExchange } from '../../shared/table';
+import { botAction, dueEvent, foldLog, reduceTable, restoreExchange, type LogEvent, type Table, type TableEvent, type TableExchange } from '../../shared/table';
 import type { EventWriter } from '../db/event-writer';
 import { log } from '../log';
 import { nextDealSeed } from '../services/deal-seed';
 import { decide, TableError, type Plan, type TableCommand } from './dispatch';
+import { StoredAhead } from './table-ahead';
 import { sequelizeTableStore, StoreRefused, type StoredExchangeOptions, type TableChanges, type TableRecord, type TableStore } from './table-store';
-import { stateFor, tableDto, type Member, type Sight } from './table-views';
+import { TableTimers } from './table-timers';
+import { stateFor, tableDto, type Member } from './table-views';
 
 export { TableError, type TableCommand } from './dispatch';
 export { notesFor, publicTableOptions, type Member } from './table-views';
@@ -75,32 +78,11 @@ export class TableMaster {
   private readonly queue = new PQueue({ concurrency: 1 });
   private readonly store: TableStore;
   private readonly logger: Logger;
-  private closed = false;
-  private botTimers = new Map<Seat, NodeJS.Timeout>();
-  private handOffTimer: NodeJS.Timeout | null = null;
-  private awaySince = new Map<number, number>();
-  private readonly loadedAt = Date.now();
-  private step = { key: '', version: 0 };
-  /**
-   * The table runs ahead of its storage. A queued action is checked and applied to the in-memory
-   * state at once, and its event is appended to the next group write; the next action of the table
-   * may be checked against that state before the write returns. Nobody hears of an event before it
-   * is stored: views are built from `shown`, the state as of the last stored event, and acks wait for
-   * the store. If a write fails, everything after the last stored event is thrown away (`epoch`
-   * moves on, so still-waiting events are dropped) and the next task rebuilds the table from its log.
-   */
-  private pending = 0;
-  private shown: { exchange: TableExchange; version: number } | null = null;
-  private epoch = 0;
-  private broken = false;
-  /** Whether the last thrown-away guesses lost their place to another process (so the actions behind them may be retried). */
-  private lostToConflict = false;
-  private lastWrite: Promise<void> = Promise.resolve();
-  /** The same, but refused if that write was. */
-  private lastStored: Promise<void> = Promise.resolve();
+  private readonly ahead: StoredAhead;
+  private readonly timers: TableTimers;
   /** Marking a finished exchange done, which the next task waits for. */
   private finishing: Promise<void> = Promise.resolve();
-  private announcing = false;
+  private step = { key: '', version: 0 };
 
   constructor(
     public row: TableRecord,
@@ -108,6 +90,21 @@ export class TableMaster {
   ) {
     this.store = hooks.store ?? sequelizeTableStore(hooks.events!);
     this.logger = hooks.logger ?? log;
+    const tell = () => hooks.changed(this);
+    const ahead = { id: row.id, exchange: () => this.exchange, setExchange: (x: TableExchange) => (this.exchange = x), version: () => this.version, moved: () => this.noteStep(), announce: tell };
+    this.ahead = new StoredAhead(ahead, this.store, this.logger);
+    const timed = {
+      id: row.id,
+      row: () => this.row,
+      hasExchange: () => this.exchange !== null,
+      connected: this.connected,
+      changed: tell,
+      queue: (task: () => Promise<void>) => this.run(task),
+      botMove: (seat: Seat) => this.botMove(seat),
+      moveBot: (seat: Seat) => this.moveBot(seat),
+      standIn: (seat: Seat) => this.saveRow({ seats: this.reduce({ type: 'bot', seat, strategy: 'advised' }).seats }),
+    };
+    this.timers = new TableTimers(timed, { botDelayMs: hooks.botDelayMs, seatGraceMs: hooks.seatGraceMs ?? 60_000, logger: this.logger });
   }
 
   /** Rebuilds the open exchange from its stored events (after a restart or leaving memory). */
@@ -116,7 +113,7 @@ export class TableMaster {
     const stored = row.currentExchangeId ? await master.store.exchange(row.currentExchangeId) : null;
     if (stored) {
       master.exchange = restoreExchange(stored.id, stored.options, stored.records, stored.notes);
-      master.showLive();
+      master.ahead.showLive();
       master.patterns = await master.store.patterns(row.options.patternListId);
     }
     return master;
@@ -136,7 +133,8 @@ export class TableMaster {
    * and be read back from the database when it is next asked for.
    */
   get quiet(): boolean {
-    return this.queue.size + this.queue.pending === 0 && this.pending === 0 && this.botTimers.size === 0 && this.connected.size === 0 && this.spectators === 0 && !this.broken;
+    const { ahead, queue } = this;
+    return queue.size + queue.pending === 0 && ahead.pending === 0 && !ahead.broken && this.timers.bots.size === 0 && this.connected.size === 0 && this.spectators === 0;
   }
 
   /**
@@ -150,13 +148,12 @@ export class TableMaster {
 
   /** The version a viewer is shown: the live one once everything is stored. */
   get shownVersion(): number {
-    return this.pending === 0 ? this.version : (this.shown?.version ?? this.version);
+    return this.ahead.shownVersion;
   }
 
   /** Where this table's stored state stands, as told to the other processes. */
   get position(): TablePosition {
-    const seq = (this.pending === 0 ? this.exchange?.seq : this.shown?.exchange.seq) ?? 0;
-    return { revision: this.row.revision ?? 0, exchangeId: this.exchange?.id ?? null, seq };
+    return { revision: this.row.revision ?? 0, exchangeId: this.exchange?.id ?? null, seq: this.ahead.shownSeq };
   }
 
   seatOf(userId: number): Seat | null {
@@ -165,6 +162,21 @@ export class TableMaster {
 
   isHost(userId: number) {
     return this.row.hostId === userId;
+  }
+
+  /** When a seated player's last connection closed; a table read back after a restart counts from then. */
+  awayTime(userId: number): number | null {
+    return this.timers.awayTime(userId);
+  }
+
+  /** Called whenever who is connected changes (see TableTimers.presenceChanged). */
+  presenceChanged(now = Date.now()) {
+    this.timers.presenceChanged(now);
+  }
+
+  /** Lets every bot whose seat has something to do act, one after another, through the queue. */
+  wakeBots() {
+    this.timers.wakeBots();
   }
 
   // ───────────── commands ─────────────
@@ -208,7 +220,7 @@ export class TableMaster {
   }
 
   private situation(movesPerExchange: number) {
-    return { table: this.table(), hostId: this.row.hostId, present: (userId: number) => this.connected.has(userId), graceLeft: (userId: number) => this.graceLeft(userId), stepVersion: this.step.version, movesPerExchange };
+    return { table: this.table(), hostId: this.row.hostId, present: (userId: number) => this.connected.has(userId), graceLeft: (userId: number) => this.timers.graceLeft(userId), stepVersion: this.step.version, movesPerExchange };
   }
 
   /** The reducer, with a refusal as a TableError. */
@@ -249,8 +261,8 @@ export class TableMaster {
   private logged(event: LogEvent, userId: number | null): Appended {
     const next = this.reduce(event).exchange!;
     // Nothing changed (a seat shown again): answered once the last write is.
-    if (next === this.exchange) return { stored: this.lastStored };
-    const stored = [this.append(event, next, userId)];
+    if (next === this.exchange) return { stored: this.ahead.lastStored };
+    const stored = [this.ahead.append(event, next, userId)];
     try {
       const settled = this.settle();
       if (settled) stored.push(settled);
@@ -264,7 +276,7 @@ export class TableMaster {
   /** After a change: hold the pass in a huddle, or resolve it. Hands back the store of what it appended, if anything. */
   private settle(): Promise<void> | null {
     const event = this.exchange && dueEvent(this.exchange, this.row.options.huddleEveryPass);
-    return event ? this.append(event, this.reduce(event).exchange!, null) : null;
+    return event ? this.ahead.append(event, this.reduce(event).exchange!, null) : null;
   }
 
   private async deal() {
@@ -288,7 +300,7 @@ export class TableMaster {
       throw err;
     }
     this.exchange = next.exchange;
-    this.showLive();
+    this.ahead.showLive();
   }
 
   /** The last resolve ended the exchange: once it is stored, mark the exchange and table done (before the next task). */
@@ -323,7 +335,7 @@ export class TableMaster {
     const next = this.queue.add(async () => {
       try {
         await this.finishing;
-        if (this.broken) {
+        if (this.ahead.broken) {
           await this.reload();
           await this.finishing;
         }
@@ -336,75 +348,8 @@ export class TableMaster {
     // A refusal is answered once what the table shows has caught up with what it checked against,
     // so the asker already holds the state that explains it.
     return next.catch(async (err) => {
-      await this.lastWrite;
+      await this.ahead.lastWrite;
       throw err;
-    });
-  }
-
-  /**
-   * Moves the exchange on to `next` and appends the event that does so at the next place of its
-   * log. The returned promise settles when the event is stored (or refused); only then is the new
-   * state shown to anyone.
-   */
-  private append(event: LogEvent, next: TableExchange, userId: number | null): Promise<void> {
-    if (this.pending === 0) this.showLive();
-    const seq = next.seq - 1;
-    this.exchange = next;
-    this.noteStep();
-    const snapshot = { exchange: next, version: this.version };
-    const epoch = this.epoch;
-    this.pending += 1;
-    const stored = this.store.append(
-      { exchangeId: next.id, seq, userId, ...toRecord(event) },
-      {
-        wanted: () => epoch === this.epoch,
-        stored: () => {
-          if (epoch !== this.epoch) return;
-          this.pending -= 1;
-          this.shown = snapshot;
-          this.announce();
-        },
-      },
-    );
-    const guarded = stored.catch((err: Error) => {
-      const conflict = err instanceof StoreRefused && err.conflict;
-      if (epoch === this.epoch) {
-        // Throw away every guess after the last stored event: the table goes back to what it last
-        // showed (so nothing unstored is shown meanwhile), and the next task reads the log again.
-        this.epoch += 1;
-        this.pending = 0;
-        this.broken = true;
-        const shown = this.shown;
-        if (shown && this.exchange && shown.exchange.id === this.exchange.id) {
-          this.exchange = { ...shown.exchange, notes: this.exchange.notes };
-          this.noteStep();
-        }
-        this.lostToConflict = conflict;
-        // Another process storing first is expected when several serve one table; anything else is not.
-        if (!conflict) this.logger.error({ tableId: this.id, error: err.message }, 'an event was not stored, so the table reloads its log');
-      }
-      // An event dropped because an earlier guess lost its place is behind for the same reason.
-      if (conflict || (epoch !== this.epoch && this.lostToConflict)) {
-        throw new TableError('LOG_CONFLICT', 'The table moved on elsewhere before that move was stored. Look at the table again and resend it.');
-      }
-      throw new TableError('NOT_STORED', 'Rackside could not store that move. Look at the table again and resend it.');
-    });
-    this.lastStored = guarded;
-    this.lastWrite = guarded.catch(() => undefined);
-    return guarded;
-  }
-
-  /** One notice per stored group: every event of the group is marked stored before the viewers hear. */
-  private announce() {
-    if (this.announcing) return;
-    this.announcing = true;
-    queueMicrotask(() => {
-      this.announcing = false;
-      try {
-        this.hooks.changed(this);
-      } catch (err) {
-        this.logger.error({ err, tableId: this.id }, 'telling the viewers of a stored change failed');
-      }
     });
   }
 
@@ -417,15 +362,10 @@ export class TableMaster {
     try {
       this.row = await this.store.saveTable(this.row, changes);
     } catch (err) {
-      this.broken = true;
+      this.ahead.broken = true;
       if (!(err instanceof StoreRefused && err.conflict)) throw err;
       throw new TableError('ROW_CONFLICT', 'The table changed elsewhere just now. Look at it again and retry.');
     }
-  }
-
-  /** Nothing is waiting to be stored: what the table holds is what it shows. */
-  private showLive() {
-    this.shown = this.exchange ? { exchange: this.exchange, version: this.version } : null;
   }
 
   /** Called after every task: remembers the table version at which the current step (phase and passes resolved) began. */
@@ -439,13 +379,11 @@ export class TableMaster {
 
   /** After a failed write, or when another process moved the table on: read the row and the log again. */
   private async reload(fromPeer = false) {
-    await this.lastWrite;
+    await this.ahead.lastWrite;
     this.row = (await this.store.table(this.row.id)) ?? this.row;
     const stored = this.row.currentExchangeId ? await this.store.exchange(this.row.currentExchangeId) : null;
     if (stored) this.exchange = restoreExchange(stored.id, stored.options, stored.records, stored.notes);
-    this.pending = 0;
-    this.broken = false;
-    this.showLive();
+    this.ahead.caughtUp();
     this.hooks.changed(this, fromPeer);
     await this.settleDue();
   }
@@ -457,15 +395,15 @@ export class TableMaster {
    */
   catchUp(told?: TablePosition & { whole?: boolean }): Promise<void> {
     return this.run(async () => {
-      await this.lastWrite;
+      await this.ahead.lastWrite;
       const live = this.exchange;
-      if (told && !told.whole && live && !this.broken && told.exchangeId === live.id && told.revision === (this.row.revision ?? 0)) {
+      if (told && !told.whole && live && !this.ahead.broken && told.exchangeId === live.id && told.revision === (this.row.revision ?? 0)) {
         if (told.seq <= live.seq) return;
         const records = await this.store.recordsFrom(live.id, live.seq);
         try {
           if (records.some((r, i) => r.seq !== live.seq + i)) throw new Error('a gap in the log');
           this.exchange = foldLog(live, records);
-          this.showLive();
+          this.ahead.showLive();
           this.hooks.changed(this, true);
           await this.settleDue();
           return;
@@ -498,108 +436,42 @@ export class TableMaster {
     }
   }
 
-  // ───────────── who is away, bots ─────────────
-
-  private get seatGraceMs() {
-    return this.hooks.seatGraceMs ?? 60_000;
-  }
-
-  /** When a seated player's last connection closed; a table read back after a restart counts from then. */
-  awayTime(userId: number): number | null {
-    if (this.connected.has(userId)) return null;
-    return this.awaySince.get(userId) ?? this.loadedAt;
-  }
-
-  /** How long, in ms, until a bot may take this player's seat (0: now). */
-  private graceLeft(userId: number, now = Date.now()): number {
-    const since = this.awayTime(userId);
-    return since === null ? 0 : Math.max(0, since + this.seatGraceMs - now);
-  }
-
-  /**
-   * Called whenever who is connected changes: notes when seated players go and come back, and if
-   * the host is the one gone mid-exchange, hands the host's seat to a bot once the grace time is
-   * over (nobody else could), which the host takes back on return.
-   */
-  presenceChanged(now = Date.now()) {
-    for (const seat of SEATS) {
-      const o = this.row.seats[seat];
-      if (o?.kind !== 'user') continue;
-      if (this.connected.has(o.userId)) this.awaySince.delete(o.userId);
-      else if (!this.awaySince.has(o.userId)) this.awaySince.set(o.userId, now);
-    }
-    if (this.handOffTimer) clearTimeout(this.handOffTimer);
-    this.handOffTimer = null;
-    const hostId = this.row.hostId;
-    if (this.closed || this.row.status !== 'playing' || !this.seatOf(hostId) || this.connected.has(hostId)) return;
-    this.handOffTimer = setTimeout(() => {
-      this.handOffTimer = null;
-      this.run(async () => {
-        const seat = this.seatOf(hostId);
-        if (this.closed || !seat || this.row.status !== 'playing' || this.graceLeft(hostId) > 0) return;
-        await this.saveRow({ seats: this.reduce({ type: 'bot', seat, strategy: 'advised' }).seats });
-      })
-        .then(() => this.hooks.changed(this))
-        .catch((err) => this.logger.error({ err, tableId: this.id }, "handing the host's seat to a bot failed"));
-    }, this.graceLeft(hostId, now));
-    this.handOffTimer.unref?.();
-  }
-
-  /** Lets every bot whose seat has something to do act, one after another, through the queue. */
-  wakeBots() {
-    if (this.closed || !this.exchange || this.row.status !== 'playing') return;
-    for (const seat of SEATS) {
-      if (this.row.seats[seat]?.kind !== 'bot' || this.botTimers.has(seat) || !this.botMove(seat)) continue;
-      const timer = setTimeout(() => {
-        this.run(async () => {
-          this.botTimers.delete(seat);
-          const action = !this.closed && this.row.status === 'playing' ? this.botMove(seat) : null;
-          if (!action) return;
-          try {
-            return this.logged({ type: 'act', seat, action }, null);
-          } catch (err) {
-            this.logger.error({ err, tableId: this.id, seat }, 'a bot made a move the engine refused');
-          }
-        })
-          .then((appended) => appended?.stored)
-          .catch((err) => this.logger.error({ err, tableId: this.id }, "a bot's move was not stored"));
-      }, this.hooks.botDelayMs);
-      this.botTimers.set(seat, timer);
-    }
-  }
+  // ───────────── bots, the end ─────────────
 
   private botMove(seat: Seat): Action | null {
     return botAction(this.table(), seat, this.patterns, this.row.options.botsPlaySecond);
   }
 
+  private moveBot(seat: Seat): Promise<void> {
+    return this.run(async (): Promise<Appended> => {
+      const action = this.timers.botDue(seat) ? this.botMove(seat) : null;
+      if (!action) return;
+      try {
+        return this.logged({ type: 'act', seat, action }, null);
+      } catch (err) {
+        this.logger.error({ err, tableId: this.id, seat }, 'a bot made a move the engine refused');
+      }
+    }).then((appended) => appended?.stored);
+  }
+
   /** Resolves once every task queued so far has finished and its events are stored. */
   async idle(): Promise<void> {
     await this.run(() => undefined);
-    await this.lastWrite;
+    await this.ahead.lastWrite;
     await this.finishing;
   }
 
   close() {
-    this.closed = true;
-    if (this.handOffTimer) clearTimeout(this.handOffTimer);
-    this.botTimers.forEach((t) => clearTimeout(t));
-    this.botTimers.clear();
+    this.timers.close();
   }
 
   // ───────────── views ─────────────
-
-  /** The table as it may be shown: its exchange as of the last stored event. */
-  private sight(): Sight {
-    const live = this.exchange;
-    const shown = this.pending > 0 && this.shown && live && this.shown.exchange.id === live.id ? { ...this.shown.exchange, notes: live.notes } : live;
-    return { row: this.row, exchange: shown, version: this.shownVersion, presence: this };
-  }
 
   tableDto(forUserId: number | null) {
     return tableDto(this.row, this, forUserId);
   }
 
   stateFor(viewer: Member) {
-    return stateFor(this.sight(), viewer);
+    return stateFor({ row: this.row, exchange: this.ahead.shownExchange(), version: this.shownVersion, presence: this }, viewer);
   }
 }
