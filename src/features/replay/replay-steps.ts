@@ -1,7 +1,7 @@
-import { bestAway, rankPatterns, type Pattern } from '../../shared/analysis';
-import { act, createExchange, resolve, viewFor, PASS_DIRECTION, type ExchangeState, type PassRecord, type Phase } from '../../shared/exchange';
-import type { ExchangeReplayDto } from '../../shared/protocol';
-import { SEATS, type Seat } from '../../shared/seats';
+import { bestAway, rankPatterns, type Pattern } from '../../../shared/analysis';
+import { act, createExchange, resolve, viewFor, PASS_DIRECTION, type ExchangeState, type PassRecord, type Phase } from '../../../shared/exchange';
+import type { ExchangeReplayDto } from '../../../shared/protocol';
+import { SEATS, type Seat } from '../../../shared/seats';
 
 export interface ReplayStep {
   /** How many log entries this step has replayed. */

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ComparisonDto } from '../../shared/comparisons';
-import { api } from '../lib/api/client';
+import type { ComparisonDto } from '../../../../shared/comparisons';
+import { api } from '../../../lib/api/client';
 
 /** What a comparison is of: a lesson's tables, a drill's, the deal of one exchange, or a seed. */
 export type ComparisonOf = { lesson: string } | { drill: string } | { exchange: string } | { seed: string };

@@ -1,25 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ExchangeReplayDto, ExchangeSummaryDto } from '../../shared/protocol';
-import { api } from '../lib/api/client';
+import type { ExchangeSummaryDto } from '../../../../shared/protocol';
+import { api } from '../../../lib/api/client';
 
 export const exchangesQuery = queryOptions({
   queryKey: ['exchanges'],
   queryFn: async () => (await api<{ exchanges: ExchangeSummaryDto[] }>('/exchanges')).exchanges,
 });
 
-export function replayQuery(id: string) {
-  return queryOptions({
-    queryKey: ['exchanges', id, 'replay'],
-    queryFn: async () => (await api<{ replay: ExchangeReplayDto }>(`/exchanges/${encodeURIComponent(id)}/replay`)).replay,
-    // A finished exchange never changes.
-    staleTime: Infinity,
-  });
-}
-
 export function useExchanges() {
   return useQuery(exchangesQuery);
-}
-
-export function useReplay(id: string) {
-  return useQuery(replayQuery(id));
 }

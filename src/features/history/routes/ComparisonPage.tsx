@@ -1,14 +1,14 @@
 import { Link, useParams, useSearchParams } from 'react-router-dom';
-import type { ComparedPassDto, ComparedTableDto, DealComparisonDto } from '../../shared/comparisons';
-import { SEATS, type Seat } from '../../shared/seats';
-import { tileName } from '../../shared/tiles';
-import { useMe } from '../lib/api/auth';
+import type { ComparedPassDto, ComparedTableDto, DealComparisonDto } from '../../../../shared/comparisons';
+import { SEATS, type Seat } from '../../../../shared/seats';
+import { tileName } from '../../../../shared/tiles';
+import { useMe } from '../../../lib/api/auth';
 import { useComparison, type ComparisonOf } from '../api/comparisons';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { PHASE_TITLES, tilesWord } from '../lib/phase-words';
-import { Tile } from '../components/ui/Tile';
-import { SignInFirst } from '../components/ui/SignInFirst';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { PHASE_TITLES, tilesWord } from '../../../lib/phase-words';
+import { Tile } from '../../../components/ui/Tile';
+import { SignInFirst } from '../../../components/ui/SignInFirst';
 
 const seatName = (seat: Seat) => seat[0].toUpperCase() + seat.slice(1);
 

@@ -1,11 +1,11 @@
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
-import type { ExchangeSummaryDto } from '../../shared/protocol';
-import { useMe } from '../lib/api/auth';
+import type { ExchangeSummaryDto } from '../../../../shared/protocol';
+import { useMe } from '../../../lib/api/auth';
 import { useExchanges } from '../api/exchanges';
-import { Button } from '../components/ui/Button';
-import { SignInFirst } from '../components/ui/SignInFirst';
-import { oddsWord } from '../lib/phase-words';
+import { Button } from '../../../components/ui/Button';
+import { SignInFirst } from '../../../components/ui/SignInFirst';
+import { oddsWord } from '../../../lib/phase-words';
 
 const PAGE_SIZE = 10;
 

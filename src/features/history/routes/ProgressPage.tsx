@@ -1,12 +1,12 @@
 import { CartesianGrid, Legend, Line, LineChart, Tooltip, XAxis, YAxis } from 'recharts';
 import { Link, useParams } from 'react-router-dom';
-import type { ProgressDto, ProgressPointDto } from '../../shared/progress';
-import { useMe } from '../lib/api/auth';
+import type { ProgressDto, ProgressPointDto } from '../../../../shared/progress';
+import { useMe } from '../../../lib/api/auth';
 import { useProgress } from '../api/progress';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { countWord } from '../lib/phase-words';
-import { SignInFirst } from '../components/ui/SignInFirst';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { countWord } from '../../../lib/phase-words';
+import { SignInFirst } from '../../../components/ui/SignInFirst';
 
 const percent = (n: number | null) => (n === null ? '—' : `${Math.round(n * 100)}%`);
 const share = (n: number, of: number) => (of ? Math.round((n / of) * 100) : 0);

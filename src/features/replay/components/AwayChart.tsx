@@ -1,6 +1,6 @@
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
-import { SEATS, type Seat } from '../../shared/seats';
-import type { ReplayStep } from './replaySteps';
+import { SEATS, type Seat } from '../../../../shared/seats';
+import type { ReplayStep } from '../replay-steps';
 
 /** Each seat gets its own dash and marker as well as its own shade, so lines differ without colour. */
 const LINES: Record<Seat, { stroke: string; dash?: string; dot: 'circle' | 'square' | 'diamond' | 'triangle' }> = {

@@ -1,6 +1,6 @@
-import type { PassRecord } from '../../shared/exchange';
-import { SEATS, type Seat } from '../../shared/seats';
-import { capitalise, sideOf, type Side } from '../lib/seating';
+import type { PassRecord } from '../../../../shared/exchange';
+import { SEATS, type Seat } from '../../../../shared/seats';
+import { capitalise, sideOf, type Side } from '../../../lib/seating';
 
 const POINT: Record<Side, [number, number]> = { bottom: [120, 200], right: [210, 110], top: [120, 20], left: [30, 110] };
 

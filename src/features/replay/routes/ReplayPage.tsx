@@ -1,23 +1,23 @@
 import { useEffect, useMemo, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
-import { rankPatterns, type Pattern } from '../../shared/analysis';
-import type { ExchangeReplayDto } from '../../shared/protocol';
-import { SEATS, seatTo, type Seat } from '../../shared/seats';
-import { tileName, type Tile as TileData } from '../../shared/tiles';
-import { useMe } from '../lib/api/auth';
-import { ApiError } from '../lib/api/client';
-import { useReplay } from '../api/exchanges';
+import { rankPatterns, type Pattern } from '../../../../shared/analysis';
+import type { ExchangeReplayDto } from '../../../../shared/protocol';
+import { SEATS, seatTo, type Seat } from '../../../../shared/seats';
+import { tileName, type Tile as TileData } from '../../../../shared/tiles';
+import { useMe } from '../../../lib/api/auth';
+import { ApiError } from '../../../lib/api/client';
+import { useReplay } from '../api/replay';
 import { AwayChart } from '../components/AwayChart';
-import { Button } from '../components/ui/Button';
+import { Button } from '../../../components/ui/Button';
 import { MoveDiagram } from '../components/MoveDiagram';
-import { PatternRow } from '../components/ui/PatternRow';
-import { Rack } from '../components/ui/Rack';
-import { nearestOf, PASS_DIRECTION, replaySteps, type ReplayStep } from '../components/replaySteps';
-import { Tile } from '../components/ui/Tile';
-import { useRackAnalysis } from '../lib/analysis/use-rack-analysis';
-import { capitalise } from '../lib/seating';
-import { SignInFirst } from '../components/ui/SignInFirst';
-import { oddsWord } from '../lib/phase-words';
+import { PatternRow } from '../../../components/ui/PatternRow';
+import { Rack } from '../../../components/ui/Rack';
+import { nearestOf, PASS_DIRECTION, replaySteps, type ReplayStep } from '../replay-steps';
+import { Tile } from '../../../components/ui/Tile';
+import { useRackAnalysis } from '../../../lib/analysis/use-rack-analysis';
+import { capitalise } from '../../../lib/seating';
+import { SignInFirst } from '../../../components/ui/SignInFirst';
+import { oddsWord } from '../../../lib/phase-words';
 
 /** The three nearest patterns, worked out only when opened. */
 function RackDetail({ rack, patterns }: { rack: readonly TileData[]; patterns: readonly Pattern[] }) {
