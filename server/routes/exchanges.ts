@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import { Op } from 'sequelize';
 import type { ExchangeReplayDto, ExchangeSummaryDto } from '../../shared/protocol';
-import { SEATS, type Seat } from '../../shared/seats';
+import { SEATS, seatOfUser, type Seat } from '../../shared/seats';
 import { requireUser } from '../auth/guards';
 import { ExchangeRow, HuddleNoteRow, isParticipant } from '../db/models';
 import { HttpError } from '../errors';
 import { storedLog } from '../services/exchange-log';
-import { figuresFor, listsFor, seatOfUser as seatOf } from '../services/exchange-stats';
+import { figuresFor, listsFor } from '../services/exchange-stats';
 import { dealKey, dealsStillToPlay } from '../teaching/comparisons';
 
 /** Peers read at most: far more than any host's tables on one seed. */
@@ -46,11 +46,11 @@ export function exchangesRouter() {
       order: [['startedAt', 'DESC']],
       limit: 500,
     });
-    const seated = rows.filter((r) => r.status === 'done' && seatOf(r, userId));
-    const figures = await figuresFor(seated, (r) => [seatOf(r, userId)!], false);
+    const seated = rows.filter((r) => r.status === 'done' && seatOfUser(r.seats, userId));
+    const figures = await figuresFor(seated, (r) => [seatOfUser(r.seats, userId)!], false);
     const sameDeal = await sameDealCounts(rows);
     const exchanges: ExchangeSummaryDto[] = rows.map((r) => {
-      const seat = seatOf(r, userId);
+      const seat = seatOfUser(r.seats, userId);
       const mine = seat ? figures.get(r.id)?.seats[seat] : undefined;
       return {
         id: r.id,

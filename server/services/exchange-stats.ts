@@ -200,11 +200,3 @@ export async function figuresFor(
   }
   return out;
 }
-
-/** The seat a user held in an exchange, or null. */
-export function seatOfUser(row: Pick<ExchangeRow, 'seats'>, userId: number): Seat | null {
-  return SEATS.find((s) => {
-    const o = row.seats[s];
-    return o?.kind === 'user' && o.userId === userId;
-  }) ?? null;
-}

@@ -5,7 +5,7 @@
 import { Op } from 'sequelize';
 import type { ComparedSeatDto, ComparedTableDto, ComparisonDto, DealComparisonDto, StandingDto } from '../../../shared/comparisons';
 import type { ExchangeOptions } from '../../../shared/exchange/types';
-import { SEATS } from '../../../shared/seats';
+import { SEATS, seatOfUser } from '../../../shared/seats';
 import { ExchangeRow, isParticipant, TableRow } from '../../db/models';
 import { dealScope, dealSeed } from '../../services/deal-seed';
 import { figuresFor, listsFor } from '../../services/exchange-stats';
@@ -47,7 +47,7 @@ export async function dealsStillToPlay(viewerId: number, hostIds: readonly numbe
   const open = new Set<string>();
   if (!hostIds.length) return open;
   const tables = await TableRow.findAll({ where: { hostId: { [Op.in]: [...new Set(hostIds)] } }, attributes: ['id', 'seats', 'options', 'status', 'currentExchangeId'], limit: 500 });
-  const mine = tables.filter((t) => t.options.seed && SEATS.some((s) => t.seats[s]?.kind === 'user' && (t.seats[s] as { userId: number }).userId === viewerId));
+  const mine = tables.filter((t) => t.options.seed && seatOfUser(t.seats, viewerId) !== null);
   if (!mine.length) return open;
   const counts = (await ExchangeRow.count({ where: { tableId: { [Op.in]: mine.map((t) => t.id) } }, group: ['tableId'] })) as unknown as { tableId: string; count: number }[];
   const dealt = new Map(counts.map((c) => [c.tableId, Number(c.count)]));

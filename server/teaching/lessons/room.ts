@@ -8,7 +8,7 @@ import { Op, type Sequelize } from 'sequelize';
 import { BOT_STRATEGIES } from '../../../shared/analysis/bots';
 import type { RoomTableDto } from '../../../shared/lessons';
 import { TABLE_LIMITS } from '../../../shared/protocol';
-import { SEATS, type Seat } from '../../../shared/seats';
+import { SEATS, seatOfUser, type Seat } from '../../../shared/seats';
 import { DrillRow, Enrollment, LessonTable, TableRow, User, type Lesson, type StoredSeats, type StoredTableOptions } from '../../db/models';
 import { HttpError } from '../../errors';
 import type { TableRegistry } from '../../realtime/registry';
@@ -99,8 +99,7 @@ export async function roomTables(lesson: Lesson, viewerId: number | null): Promi
   for (const link of links) {
     const row = rows.find((r) => r.id === link.tableId);
     if (!row) continue;
-    const sits = SEATS.some((s) => row.seats[s]?.kind === 'user' && (row.seats[s] as { userId: number }).userId === viewerId);
-    if (viewerId !== null && !sits) continue;
+    if (viewerId !== null && seatOfUser(row.seats, viewerId) === null) continue;
     out.push({
       id: row.id,
       name: row.name,

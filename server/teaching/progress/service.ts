@@ -1,8 +1,9 @@
 /** A player's progress: figures per finished exchange they sat in, and their totals. */
 import { Op } from 'sequelize';
 import type { ProgressDto, ProgressPointDto } from '../../../shared/progress';
+import { seatOfUser } from '../../../shared/seats';
 import { ExchangeRow, type User } from '../../db/models';
-import { figuresFor, seatOfUser } from '../../services/exchange-stats';
+import { figuresFor } from '../../services/exchange-stats';
 
 /** The most recent exchanges counted (each takes the advice for every pass, so there is a bound). */
 const PROGRESS_MAX = 200;
@@ -16,9 +17,9 @@ export async function progressOf(user: Pick<User, 'id' | 'displayName'>): Promis
     limit: PROGRESS_MAX + 1,
   });
   const counted = rows.slice(0, PROGRESS_MAX).reverse();
-  const figures = await figuresFor(counted, (r) => [seatOfUser(r, user.id)!], true);
+  const figures = await figuresFor(counted, (r) => [seatOfUser(r.seats, user.id)!], true);
   const points = counted.map((row): ProgressPointDto => {
-    const seat = seatOfUser(row, user.id)!;
+    const seat = seatOfUser(row.seats, user.id)!;
     const f = figures.get(row.id)!.seats[seat]!;
     return {
       exchangeId: row.id,
