@@ -1,11 +1,12 @@
 import { createServer } from 'node:http';
+import type { Logger } from 'pino';
 import { createApplication } from './app';
 import { loadConfigOrExit, type Config } from './config';
 import { openDatabase } from './db';
 import { migrate } from './db/migrate';
 import { seedDemo } from './db/seed';
-import { attachRealtime } from './realtime';
-import { bindUserSockets } from './realtime/sessions';
+import { log } from './log';
+import { createRealtime } from './realtime';
 import { startLocalFakes } from './services/fakes';
 
 /** Opens the database, migrates, seeds the demo on an empty database, and listens. */
@@ -15,16 +16,17 @@ export async function startServer(givenConfig: Config) {
   const { config, fakes } = await startLocalFakes(givenConfig);
   const sequelize = await openDatabase(config.databaseUrl);
   await migrate(sequelize);
-  if (config.seedDemo && (await seedDemo(config.bcryptRounds))) console.log('Seeded the Harbor Lane demo accounts.');
+  const seeded = config.seedDemo && (await seedDemo(config.bcryptRounds));
   const application = createApplication({ config, sequelize });
+  const { logger } = application;
+  if (seeded) logger.info('Seeded the Harbor Lane demo accounts.');
   const httpServer = createServer(application.app);
-  const io = attachRealtime(httpServer, application);
-  bindUserSockets(io, application);
+  const io = createRealtime(httpServer, application);
   const registry = application.registry;
   const restored = await registry.restoreOpenTables((tableId, err) =>
     application.logger.error({ tableId, error: (err as Error).message }, 'a table could not be restored from its log; it stays closed until it is mended'),
   );
-  if (restored) console.log(`Restored ${restored} table(s) with an exchange under way.`);
+  if (restored) logger.info({ restored }, `Restored ${restored} table(s) with an exchange under way.`);
   // Finished and idle tables leave memory; they are read back from the database when next asked for.
   registry.sweepEvery(Math.max(250, Math.min(30_000, config.tableIdleMs / 2)), config.tableIdleMs, (err) => application.logger.error({ error: (err as Error).message }, 'sweeping idle tables failed'));
   await new Promise<void>((resolve) => httpServer.listen(config.port, resolve));
@@ -44,8 +46,19 @@ export async function startServer(givenConfig: Config) {
     await fakes.close();
     await sequelize.close();
   }
-  return { httpServer, io, registry, sequelize, port, close, fakes, config };
+  return { httpServer, io, registry, sequelize, port, close, fakes, config, logger };
 }
+
+/**
+ * The process's own lines (ready, could not start, did not close cleanly, unhandled rejection) are
+ * written whatever LOG_LEVEL says: a supervisor, and every test that starts Rackside as a process,
+ * waits for "ready on", and a process that stops should say why.
+ */
+function lifeLog(logger: Logger): Logger {
+  return logger.isLevelEnabled('info') ? logger : logger.child({}, { level: 'info' });
+}
+
+const reasonText = (reason: unknown) => (reason instanceof Error ? reason.message : String(reason));
 
 /** A stop after an unhandled rejection gets this long to close cleanly before the process exits anyway. */
 const FAILED_CLOSE_DEADLINE_MS = 10_000;
@@ -59,6 +72,7 @@ export function serve(config: Config) {
   let running: Awaited<ReturnType<typeof startServer>> | null = null;
   let closing: Promise<void> | null = null;
   let exitCode: number | null = null;
+  let logger = lifeLog(log);
 
   function stop(code: number) {
     exitCode = Math.max(exitCode ?? 0, code);
@@ -68,7 +82,7 @@ export function serve(config: Config) {
     closing ??= running
       .close()
       .catch((err) => {
-        console.error('Rackside did not close cleanly:', err);
+        logger.error({ err }, 'Rackside did not close cleanly.');
         exitCode = Math.max(exitCode ?? 0, 1);
       })
       .finally(() => process.exit(exitCode ?? 0));
@@ -78,19 +92,21 @@ export function serve(config: Config) {
   process.on('SIGTERM', () => stop(0));
   process.on('SIGINT', () => stop(0));
   process.on('unhandledRejection', (reason) => {
-    console.error('Unhandled rejection: Rackside stops so that its supervisor can start it afresh.', reason);
+    // The reason is in the message too, so that it reads in order on one line.
+    logger.fatal({ err: reason }, `Unhandled rejection (${reasonText(reason)}): Rackside stops so that its supervisor can start it afresh.`);
     stop(1);
   });
 
   return startServer(config)
     .then((server) => {
       running = server;
-      console.log(`Rackside is ready on http://localhost:${server.port}`);
+      logger = lifeLog(server.logger);
+      logger.info({ port: server.port }, `Rackside is ready on http://localhost:${server.port} (process ${process.pid})`);
       if (exitCode !== null) stop(exitCode);
       return server;
     })
     .catch((err) => {
-      console.error('Rackside could not start:', err);
+      logger.fatal({ err }, 'Rackside could not start.');
       process.exit(1);
     });
 }

@@ -8,6 +8,7 @@ import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { loadConfigOrExit } from './config';
 import { serve } from './index';
+import { log } from './log';
 
 function newestChange(path: string): number {
   const stat = statSync(path);
@@ -20,7 +21,7 @@ const config = loadConfigOrExit();
 const builtIndex = join(config.clientDir, 'index.html');
 const sources = ['src', 'shared', 'index.html', 'vite.config.ts'].filter((p) => existsSync(p));
 if (!existsSync(builtIndex) || statSync(builtIndex).mtimeMs < Math.max(...sources.map(newestChange))) {
-  console.log('Building the client…');
+  log.info('Building the client…');
   execSync('npx vite build', { stdio: 'inherit' });
 }
 
