@@ -3,7 +3,7 @@ import pino, { type DestinationStream, type Logger } from 'pino';
 /** Fields whose values never reach the log, at the top level or nested up to three objects deep. */
 const SECRET_KEYS = ['password', 'newPassword', 'currentPassword', 'token', 'cookie', 'authorization', 'Authorization', '["set-cookie"]'];
 
-export const REDACTED_PATHS = SECRET_KEYS.flatMap((key) => {
+const REDACTED_PATHS = SECRET_KEYS.flatMap((key) => {
   const at = (prefix: string) => (key.startsWith('[') ? `${prefix}${key}` : prefix ? `${prefix}.${key}` : key);
   return [at(''), at('*'), at('*.*'), at('*.*.*')];
 });

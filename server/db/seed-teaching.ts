@@ -2,8 +2,8 @@ import { randomUUID } from 'node:crypto';
 import { starterPatterns } from '../../shared/analysis';
 import { DrillRow, PatternListRow, User } from './models';
 
-export const DEMO_LIST_NAME = 'Harbor Lane practice list';
-export const DEMO_DRILL_NAME = 'Harbor Lane week 1';
+const DEMO_LIST_NAME = 'Harbor Lane practice list';
+const DEMO_DRILL_NAME = 'Harbor Lane week 1';
 
 /** The demo teacher's own copy of the starter list and a first drill that deals from it. */
 export async function seedTeachingDemo(teacherEmail = 'ines@harborlane.test') {

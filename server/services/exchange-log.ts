@@ -6,7 +6,7 @@ import { ExchangeEventRow } from '../db/models';
 
 type StoredEvent = Pick<ExchangeEventRow, 'type' | 'seat' | 'payload'>;
 
-export function logOf(events: readonly StoredEvent[]): LogEntry[] {
+function logOf(events: readonly StoredEvent[]): LogEntry[] {
   return events.flatMap((e): LogEntry[] => {
     if (e.type === 'act') return [{ seat: e.seat as Seat, action: e.payload as Action }];
     if (e.type === 'resolve') return [{ resolve: true }];

@@ -9,15 +9,15 @@ import { initPatternList } from './pattern-list';
 import { initTable } from './table';
 import { initUser } from './user';
 
-export { User, ROLES, type Role, type PublicUser } from './user';
+export { User, type Role } from './user';
 export { AuditEntry } from './audit';
-export { TableRow, type StoredOccupant, type StoredSeats, type StoredTableOptions } from './table';
+export { TableRow, type StoredSeats, type StoredTableOptions } from './table';
 export { PatternListRow } from './pattern-list';
 export { DrillRow } from './drill';
 export { Lesson, Enrollment, Invitation, LessonTable } from './lesson';
 export { Payment, PaymentEvent } from './payment';
 export { Mail, PasswordReset } from './mail';
-export { ExchangeRow, ExchangeEventRow, HuddleNoteRow, participantsKey, isParticipant, type EventType, type StoredExchangeOptions } from './exchange';
+export { ExchangeRow, ExchangeEventRow, HuddleNoteRow, participantsKey, isParticipant, type StoredExchangeOptions } from './exchange';
 
 export function initModels(sequelize: Sequelize) {
   initUser(sequelize);

@@ -17,8 +17,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   }
 }
 
-export type PublicUser = ReturnType<User['toPublic']>;
-
 export function initUser(sequelize: Sequelize) {
   User.init(
     {

@@ -4,7 +4,7 @@ import type { Lesson } from '../../db/models';
 
 const escape = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
-export function lessonTime(lesson: Pick<Lesson, 'startsAt' | 'timeZone'>): string {
+function lessonTime(lesson: Pick<Lesson, 'startsAt' | 'timeZone'>): string {
   const when = new Intl.DateTimeFormat('en-US', { timeZone: lesson.timeZone, dateStyle: 'full', timeStyle: 'short' }).format(lesson.startsAt);
   return `${when} (${lesson.timeZone.replace(/_/g, ' ')})`;
 }

@@ -2,8 +2,6 @@
 import Stripe from 'stripe';
 import { LOCAL_STRIPE_KEY, type Config } from '../../config';
 
-export type PaymentClient = Stripe;
-
 export function createPaymentClient(config: Config): Stripe | null {
   // The fake's key against the real service would only fail: payments stay off instead.
   if (!config.stripeApiBase && config.stripeSecretKey === LOCAL_STRIPE_KEY) return null;

@@ -47,7 +47,7 @@ export interface FakePayments {
   close(): Promise<void>;
 }
 
-export function signWebhook(payload: string, secret: string, timestamp = now()): string {
+function signWebhook(payload: string, secret: string, timestamp = now()): string {
   const v1 = createHmac('sha256', secret).update(`${timestamp}.${payload}`).digest('hex');
   return `t=${timestamp},v1=${v1}`;
 }

@@ -15,8 +15,8 @@ import { issueProblems } from '../../../shared/field-errors';
 import { STARTER_LIST_ID } from '../../../shared/pattern-lists';
 import { fieldPath, FileRejected, parseJsonFile } from '../files/json-text';
 
-export const DRILL_FORMAT = 'rackside-drill';
-export const DRILL_VERSION = 1;
+const DRILL_FORMAT = 'rackside-drill';
+const DRILL_VERSION = 1;
 
 export function drillJson(drill: DrillData, listName: string): string {
   const file = {

@@ -52,7 +52,7 @@ const ESCAPES = '"\\/bfnrt';
  * only finds the place. It keeps open objects and lists on a stack of its own rather than the
  * call stack, so no depth of nesting makes it fail.
  */
-export function locateJsonError(text: string): { line: number; column: number; message: string } | null {
+function locateJsonError(text: string): { line: number; column: number; message: string } | null {
   let i = 0;
   const fail = (message: string): never => {
     throw new JsonSyntax(message, i);

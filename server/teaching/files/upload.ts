@@ -5,7 +5,7 @@ import { HttpError } from '../../errors';
 import { FileRejected } from './json-text';
 import { TYPED_CONTROL } from '../../security/control-characters';
 
-export const UPLOAD_MAX_BYTES = 256 * 1024;
+const UPLOAD_MAX_BYTES = 256 * 1024;
 
 export type FileKind = 'json' | 'csv';
 

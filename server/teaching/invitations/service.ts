@@ -20,10 +20,6 @@ function claimKey(lessonId: number, email: string, lastFinished: number): string
   return CLAIM + digest.slice(0, 64 - CLAIM.length); // tokenHash holds 64 characters
 }
 
-export function isClaim(tokenHash: string): boolean {
-  return tokenHash.startsWith(CLAIM);
-}
-
 export type InviteOutcome = { status: 'sent' } | { status: 'already-sending' } | { status: 'failed'; error: unknown };
 
 /**

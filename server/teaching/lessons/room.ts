@@ -19,7 +19,7 @@ import { seatedStatuses } from './seats';
 const PER_TABLE = SEATS.length;
 
 /** Students dealt round the tables in turn, so table sizes differ by at most one. */
-export function splitIntoTables<T>(students: T[], tables: number): T[][] {
+function splitIntoTables<T>(students: T[], tables: number): T[][] {
   const out: T[][] = Array.from({ length: tables }, () => []);
   students.forEach((s, i) => out[i % tables].push(s));
   return out;

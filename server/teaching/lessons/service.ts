@@ -12,7 +12,7 @@ export function lessonEnd(lesson: Lesson): Date {
   return new Date(lesson.startsAt.getTime() + lesson.durationMinutes * 60_000);
 }
 
-export function parseId(raw: unknown, what = 'lesson'): number {
+function parseId(raw: unknown, what = 'lesson'): number {
   const id = Number(raw);
   if (!Number.isInteger(id) || id <= 0) throw new HttpError(404, 'NOT_FOUND', `There is no ${what} with that id.`);
   return id;

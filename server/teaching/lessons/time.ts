@@ -10,7 +10,7 @@ export function isTimeZone(name: string): boolean {
 }
 
 /** The wall-clock reading of an instant in a zone, as "YYYY-MM-DDTHH:mm". */
-export function wallClock(instant: Date, timeZone: string): string {
+function wallClock(instant: Date, timeZone: string): string {
   const parts = Object.fromEntries(
     new Intl.DateTimeFormat('en-US', { timeZone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit' })
       .formatToParts(instant)

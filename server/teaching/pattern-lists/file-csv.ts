@@ -6,9 +6,9 @@ import { PATTERN_LIST_LIMITS } from '../../../shared/pattern-lists';
 import { FileRejected, type FileProblem } from '../files/json-text';
 import { checkFormat, checkList, MAX_PROBLEMS, PATTERN_LIST_FORMAT, PATTERN_LIST_VERSION, type PatternListFile, type Places, type Version } from './file';
 
-export const CSV_COLUMNS = ['id', 'name', 'family', 'value', 'sealed', 'size', 'tile', 'suit', 'rank', 'dragon'] as const;
+const CSV_COLUMNS = ['id', 'name', 'family', 'value', 'sealed', 'size', 'tile', 'suit', 'rank', 'dragon'] as const;
 /** Version 1's header: the same columns, with `points` and `concealed` for `value` and `sealed`. */
-export const CSV_COLUMNS_V1 = ['id', 'name', 'family', 'points', 'concealed', 'size', 'tile', 'suit', 'rank', 'dragon'] as const;
+const CSV_COLUMNS_V1 = ['id', 'name', 'family', 'points', 'concealed', 'size', 'tile', 'suit', 'rank', 'dragon'] as const;
 type Column = (typeof CSV_COLUMNS)[number];
 /** A column's name in a file of the given version. */
 const columnName = (column: Column, version: Version): string => (version === 1 ? CSV_COLUMNS_V1[CSV_COLUMNS.indexOf(column)] : column);

@@ -26,7 +26,7 @@ import { FileRejected, type FileProblem } from '../files/json-text';
 export const PATTERN_LIST_FORMAT = 'rackside-pattern-list';
 export const PATTERN_LIST_VERSION = 2;
 /** Versions this Rackside reads: 1 (fields `points` and `concealed`) and 2. */
-export const READABLE_VERSIONS = [1, 2] as const;
+const READABLE_VERSIONS = [1, 2] as const;
 export type Version = (typeof READABLE_VERSIONS)[number];
 export interface PatternListFile {
   name: string;

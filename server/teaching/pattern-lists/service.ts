@@ -24,7 +24,7 @@ export function summaryOf(row: PatternListRow): PatternListSummaryDto {
  * A stored list's patterns in today's field names. Migration 0008 rewrote the rows stored
  * before `value` and `sealed`; a row written by an older process since is still read.
  */
-export function storedPatterns(row: PatternListRow): Pattern[] {
+function storedPatterns(row: PatternListRow): Pattern[] {
   return row.patterns.map((p) => withCurrentFields(p) as Pattern);
 }
 
@@ -53,7 +53,7 @@ export async function listName(id: string): Promise<string> {
  * patterns too costly to judge on the server's one thread; those are left out, and the list is
  * cut where its patterns together reach the list's budget.
  */
-export function withinWorkLimits(patterns: readonly Pattern[]): Pattern[] {
+function withinWorkLimits(patterns: readonly Pattern[]): Pattern[] {
   const kept: Pattern[] = [];
   let spent = 0;
   for (const pattern of patterns) {
