@@ -1,10 +1,4 @@
-/**
- * Paid seats. A checkout holds a seat for a while; only a webhook whose signature the SDK accepts
- * marks it paid, once, however often the event repeats; a payment that arrives for a seat that
- * is no longer free, or for a student whose seat is already paid, is refunded at once. A new
- * checkout expires the one it replaces at the payment service, so its page takes no more money.
- * The card form lives on the payment service's own page.
- */
+/** Checkout and receipts: `POST /api/payments/checkout` holds a seat and opens the payment service's page; `GET /session/:id` and `/:id` answer a receipt. */
 import { Router } from 'express';
 import type Stripe from 'stripe';
 import { checkoutInputSchema } from '../../../shared/lessons';
