@@ -1,6 +1,6 @@
 /** One concrete hand to draw a pattern with, even while it is half built: suit letters and rank variables get example values. */
-import type { Group, Pattern } from '../../shared/analysis/pattern';
-import { MATCHING_DRAGON, SUITS, suitKind, tileName, type Suit, type TileKind } from '../../shared/tiles';
+import type { Group, Pattern } from '../../../shared/analysis/pattern';
+import { MATCHING_DRAGON, SUITS, suitKind, tileName, type Suit, type TileKind } from '../../../shared/tiles';
 
 export const GROUP_NAMES: Record<number, string> = { 1: 'single', 2: 'pair', 3: 'pung', 4: 'kong', 5: 'quint', 6: 'sextet' };
 const LETTER_SUIT: Record<string, Suit> = { A: 'bam', B: 'crack', C: 'dot' };

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { RoleName, UserDto } from '../../shared/protocol';
-import { api } from '../lib/api/client';
+import type { RoleName, UserDto } from '../../../../shared/protocol';
+import { api } from '../../../lib/api/client';
 
 export const adminUsersQuery = queryOptions({
   queryKey: ['admin', 'users'],

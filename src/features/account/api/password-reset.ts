@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery } from '@tanstack/react-query';
-import { api } from '../lib/api/client';
+import { api } from '../../../lib/api/client';
 
 export function useRequestReset() {
   return useMutation({ mutationFn: (email: string) => api<{ ok: true; message: string }>('/auth/password-reset', { method: 'POST', body: { email } }) });

@@ -1,9 +1,9 @@
-import { ROLE_NAMES, type RoleName, type UserDto } from '../../shared/protocol';
+import { ROLE_NAMES, type RoleName, type UserDto } from '../../../../shared/protocol';
 import { useAdminUsers, useChangeRole } from '../api/admin';
-import { useMe } from '../lib/api/auth';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { SignInFirst } from '../components/ui/SignInFirst';
+import { useMe } from '../../../lib/api/auth';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { SignInFirst } from '../../../components/ui/SignInFirst';
 
 function RolePicker({ user, isSelf }: { user: UserDto; isSelf: boolean }) {
   const change = useChangeRole();

@@ -1,11 +1,11 @@
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
-import { ApiError } from '../lib/api/client';
-import { useRequestReset } from '../api/passwordReset';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { TextField } from '../components/ui/TextField';
+import { ApiError } from '../../../lib/api/client';
+import { useRequestReset } from '../api/password-reset';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { TextField } from '../../../components/ui/TextField';
 
 export function ForgotPasswordPage() {
   const request = useRequestReset();

@@ -1,12 +1,12 @@
 import { useRef, useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { LIMITS } from '../../shared/protocol';
-import { useRegister } from '../lib/api/auth';
-import { ApiError } from '../lib/api/client';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { TextField } from '../components/ui/TextField';
+import { LIMITS } from '../../../../shared/protocol';
+import { useRegister } from '../../../lib/api/auth';
+import { ApiError } from '../../../lib/api/client';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { TextField } from '../../../components/ui/TextField';
 
 export function RegisterPage() {
   const register = useRegister();

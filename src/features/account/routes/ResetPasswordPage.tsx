@@ -1,11 +1,11 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { ApiError } from '../lib/api/client';
-import { useConfirmReset, useResetLink } from '../api/passwordReset';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { TextField } from '../components/ui/TextField';
+import { ApiError } from '../../../lib/api/client';
+import { useConfirmReset, useResetLink } from '../api/password-reset';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { TextField } from '../../../components/ui/TextField';
 
 export function ResetPasswordPage() {
   const token = useParams().token!;

@@ -1,12 +1,12 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
-import { useSignIn } from '../lib/api/auth';
-import { ApiError } from '../lib/api/client';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { TextField } from '../components/ui/TextField';
-import { safeReturnPath } from '../lib/return-path';
+import { useSignIn } from '../../../lib/api/auth';
+import { ApiError } from '../../../lib/api/client';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { TextField } from '../../../components/ui/TextField';
+import { safeReturnPath } from '../../../lib/return-path';
 
 export function SignInPage() {
   const signIn = useSignIn();

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { InvitationPreviewDto, LessonDetailDto, LessonDto, LessonInput, RoomTableDto } from '../../shared/lessons';
-import { api } from '../lib/api/client';
+import type { InvitationPreviewDto, LessonDetailDto, LessonDto, LessonInput, RoomTableDto } from '../../../../shared/lessons';
+import { api } from '../../../lib/api/client';
 
 export const lessonsQuery = queryOptions({
   queryKey: ['lessons'],

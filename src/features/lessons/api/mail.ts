@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { MailDto } from '../../shared/lessons';
-import { api } from '../lib/api/client';
+import type { MailDto } from '../../../../shared/lessons';
+import { api } from '../../../lib/api/client';
 
 export const outboxQuery = queryOptions({ queryKey: ['mail'], queryFn: async () => (await api<{ mails: MailDto[] }>('/mail')).mails });
 export function mailQuery(id: number) {

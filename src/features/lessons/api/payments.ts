@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery } from '@tanstack/react-query';
-import type { ReceiptDto } from '../../shared/lessons';
-import { api } from '../lib/api/client';
+import type { ReceiptDto } from '../../../../shared/lessons';
+import { api } from '../../../lib/api/client';
 
 /** Sends the browser to the payment service's own checkout page. */
 export function useCheckout() {

@@ -1,8 +1,8 @@
 import { useRef, useState, type FormEvent } from 'react';
-import { ApiError } from '../lib/api/client';
+import { ApiError } from '../../../lib/api/client';
 import { useInvite, type InviteResult } from '../api/lessons';
-import { Button } from './ui/Button';
-import { FormMessage } from './ui/FormMessage';
+import { Button } from '../../../components/ui/Button';
+import { FormMessage } from '../../../components/ui/FormMessage';
 
 /** Invite by e-mail: one address a line (or separated by commas). */
 export function InviteForm({ lessonId }: { lessonId: string }) {

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
-import { formatMoney, type LessonDto } from '../../shared/lessons';
-import { lessonTimes } from './lessonTime';
-import { countWord } from '../lib/phase-words';
+import { formatMoney, type LessonDto } from '../../../../shared/lessons';
+import { lessonTimes } from '../lesson-time';
+import { countWord } from '../../../lib/phase-words';
 
 const STATUS_WORDS = { invited: 'Invited', enrolled: 'Accepted', paid: 'Paid' } as const;
 

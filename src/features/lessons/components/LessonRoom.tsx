@@ -1,13 +1,13 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { SEATS } from '../../shared/seats';
-import type { RoomTableDto } from '../../shared/lessons';
-import { ApiError } from '../lib/api/client';
+import { SEATS } from '../../../../shared/seats';
+import type { RoomTableDto } from '../../../../shared/lessons';
+import { ApiError } from '../../../lib/api/client';
 import { useRoom, useSplitRoom, useStartRoom } from '../api/lessons';
-import { Button } from './ui/Button';
-import { FormMessage } from './ui/FormMessage';
-import { SelectField } from './ui/SelectField';
-import { TextField } from './ui/TextField';
+import { Button } from '../../../components/ui/Button';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { SelectField } from '../../../components/ui/SelectField';
+import { TextField } from '../../../components/ui/TextField';
 
 const STATUS = { lobby: 'Waiting to start', playing: 'Playing', done: 'Finished', closed: 'Closed' } as const;
 

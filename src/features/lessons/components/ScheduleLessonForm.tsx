@@ -1,14 +1,14 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { CURRENCIES, type Currency } from '../../shared/lessons';
-import { ApiError } from '../lib/api/client';
-import { useDrills } from '../api/drills';
+import { CURRENCIES, type Currency } from '../../../../shared/lessons';
+import { ApiError } from '../../../lib/api/client';
+import { useDrills } from '../../../lib/api/drill-list';
 import { useScheduleLesson } from '../api/lessons';
-import { Button } from './ui/Button';
-import { FormMessage } from './ui/FormMessage';
-import { myTimeZone, timeZones, zoneLabel } from './lessonTime';
-import { SelectField } from './ui/SelectField';
-import { TextField } from './ui/TextField';
+import { Button } from '../../../components/ui/Button';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { myTimeZone, timeZones, zoneLabel } from '../lesson-time';
+import { SelectField } from '../../../components/ui/SelectField';
+import { TextField } from '../../../components/ui/TextField';
 
 /** "15", "15.5", "15.50" → 1550; anything else → null. */
 export function priceToCents(text: string): number | null {

@@ -1,14 +1,14 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { useMe, useRegister, useSignIn } from '../lib/api/auth';
-import { ApiError } from '../lib/api/client';
+import { useMe, useRegister, useSignIn } from '../../../lib/api/auth';
+import { ApiError } from '../../../lib/api/client';
 import { useAcceptInvitation, useInvitation } from '../api/lessons';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
 import { lessonPrice } from '../components/LessonList';
-import { lessonTimes } from '../components/lessonTime';
-import { TextField } from '../components/ui/TextField';
+import { lessonTimes } from '../lesson-time';
+import { TextField } from '../../../components/ui/TextField';
 
 /** Sign in or make an account without leaving the invitation. */
 function SignInHere() {

@@ -1,17 +1,17 @@
 import { Link, useParams, useSearchParams } from 'react-router-dom';
-import { useMe } from '../lib/api/auth';
-import { ApiError } from '../lib/api/client';
+import { useMe } from '../../../lib/api/auth';
+import { ApiError } from '../../../lib/api/client';
 import { useLesson } from '../api/lessons';
-import { useDrills } from '../api/drills';
+import { useDrills } from '../../../lib/api/drill-list';
 import { useCheckout } from '../api/payments';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
 import { InviteForm } from '../components/InviteForm';
 import { lessonPrice, seatWords } from '../components/LessonList';
 import { LessonRoom } from '../components/LessonRoom';
-import { lessonTimes } from '../components/lessonTime';
-import { SignInFirst } from '../components/ui/SignInFirst';
+import { lessonTimes } from '../lesson-time';
+import { SignInFirst } from '../../../components/ui/SignInFirst';
 
 const isPast = (iso: string) => new Date(iso).getTime() < Date.now();
 

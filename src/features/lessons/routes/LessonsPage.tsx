@@ -1,10 +1,10 @@
-import { useMe } from '../lib/api/auth';
+import { useMe } from '../../../lib/api/auth';
 import { useLessons } from '../api/lessons';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
 import { LessonList } from '../components/LessonList';
 import { ScheduleLessonForm } from '../components/ScheduleLessonForm';
-import { SignInFirst } from '../components/ui/SignInFirst';
+import { SignInFirst } from '../../../components/ui/SignInFirst';
 
 export function LessonsPage() {
   const { data: me, isPending } = useMe();

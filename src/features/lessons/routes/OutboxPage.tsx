@@ -1,10 +1,10 @@
 import { useState } from 'react';
 import { useMail, useOutbox } from '../api/mail';
-import { useMe } from '../lib/api/auth';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { TeacherOnly } from '../components/ui/TeacherOnly';
+import { useMe } from '../../../lib/api/auth';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { TeacherOnly } from '../../../components/ui/TeacherOnly';
 
 /** When a message was sent, on the reader's own clock and in their own way of writing dates. */
 const sentAt = (iso: string) => new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' }).format(new Date(iso));

@@ -1,11 +1,11 @@
 import { Link, useParams, useSearchParams } from 'react-router-dom';
-import { formatMoney } from '../../shared/lessons';
-import { useMe } from '../lib/api/auth';
+import { formatMoney } from '../../../../shared/lessons';
+import { useMe } from '../../../lib/api/auth';
 import { useReceipt } from '../api/payments';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { lessonTimes } from '../components/lessonTime';
-import { SignInFirst } from '../components/ui/SignInFirst';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { lessonTimes } from '../lesson-time';
+import { SignInFirst } from '../../../components/ui/SignInFirst';
 
 const HEADINGS = { pending: 'Confirming your payment…', paid: 'Receipt', 'refund-due': 'Refund on its way', refunded: 'Refunded', expired: 'Checkout expired', failed: 'Payment not matched' } as const;
 

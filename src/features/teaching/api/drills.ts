@@ -1,22 +1,14 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { DrillDto, DrillInput } from '../../shared/drills';
-import { api } from '../lib/api/client';
-import { uploadFile } from '../lib/api/upload';
-
-export const drillsQuery = queryOptions({
-  queryKey: ['drills'],
-  queryFn: async () => (await api<{ drills: DrillDto[] }>('/drills')).drills,
-});
+import type { DrillDto, DrillInput } from '../../../../shared/drills';
+import { api } from '../../../lib/api/client';
+import { drillsQuery } from '../../../lib/api/drill-list';
+import { uploadFile } from '../../../lib/api/upload';
 
 export function drillQuery(id: string) {
   return queryOptions({
     queryKey: ['drills', id],
     queryFn: async () => (await api<{ drill: DrillDto }>(`/drills/${encodeURIComponent(id)}`)).drill,
   });
-}
-
-export function useDrills(enabled = true) {
-  return useQuery({ ...drillsQuery, enabled });
 }
 
 export function useDrill(id: string | undefined) {

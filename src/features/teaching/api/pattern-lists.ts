@@ -1,7 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { PatternListDto, PatternListInput, PatternListSummaryDto } from '../../shared/pattern-lists';
-import { api } from '../lib/api/client';
-import { uploadFile } from '../lib/api/upload';
+import type { PatternListDto, PatternListInput, PatternListSummaryDto } from '../../../../shared/pattern-lists';
+import { api } from '../../../lib/api/client';
+import { uploadFile } from '../../../lib/api/upload';
 
 export const patternListsQuery = queryOptions({
   queryKey: ['pattern-lists'],

@@ -1,6 +1,6 @@
 import { useId, useRef, useState, type FormEvent, type ReactNode } from 'react';
-import { ApiError } from '../lib/api/client';
-import { Button } from './ui/Button';
+import { ApiError } from '../../../lib/api/client';
+import { Button } from '../../../components/ui/Button';
 
 interface Props {
   label: string;

@@ -1,9 +1,9 @@
 import { useId } from 'react';
-import { buildsWithoutCalls, patternValue, type Group, type Pattern } from '../../shared/analysis/pattern';
-import { TILE_KINDS, tileName, type TileKind } from '../../shared/tiles';
-import { GROUP_NAMES } from './patternExample';
+import { buildsWithoutCalls, patternValue, type Group, type Pattern } from '../../../../shared/analysis/pattern';
+import { TILE_KINDS, tileName, type TileKind } from '../../../../shared/tiles';
+import { GROUP_NAMES } from '../pattern-example';
 import { PatternTiles } from './PatternTiles';
-import { TextField } from './ui/TextField';
+import { TextField } from '../../../components/ui/TextField';
 
 type GroupType = 'tile' | 'suit' | 'dragon';
 const SUIT_CHOICES = [

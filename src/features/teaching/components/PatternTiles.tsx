@@ -1,7 +1,7 @@
-import type { Group } from '../../shared/analysis/pattern';
-import { tileName } from '../../shared/tiles';
-import { exampleFor, exampleKind, exampleWords, groupWords } from './patternExample';
-import { Tile } from './ui/Tile';
+import type { Group } from '../../../../shared/analysis/pattern';
+import { tileName } from '../../../../shared/tiles';
+import { exampleFor, exampleKind, exampleWords, groupWords } from '../pattern-example';
+import { Tile } from '../../../components/ui/Tile';
 
 /** A pattern drawn as tiles, group by group, with the example values it is shown with. */
 export function PatternTiles({ groups, size = 'w-8' }: { groups: readonly Group[]; size?: string }) {

@@ -1,8 +1,8 @@
 import { useId, useState } from 'react';
-import type { PresetRacks } from '../../shared/drills';
-import { dealtRackSize, SEATS, type Seat } from '../../shared/seats';
-import { copiesInSet, DRAGON_KINDS, SUIT_KINDS, tileName, WIND_KINDS, type TileKind } from '../../shared/tiles';
-import { Tile } from './ui/Tile';
+import type { PresetRacks } from '../../../../shared/drills';
+import { dealtRackSize, SEATS, type Seat } from '../../../../shared/seats';
+import { copiesInSet, DRAGON_KINDS, SUIT_KINDS, tileName, WIND_KINDS, type TileKind } from '../../../../shared/tiles';
+import { Tile } from '../../../components/ui/Tile';
 
 const ROWS: { label: string; kinds: readonly TileKind[] }[] = [
   { label: 'Bams', kinds: SUIT_KINDS.filter((k) => k.startsWith('bam')) },

@@ -1,21 +1,21 @@
 import { useId, useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import type { DrillDto, DrillInput, PresetRacks } from '../../shared/drills';
-import { STARTER_LIST_ID } from '../../shared/pattern-lists';
-import { ApiError } from '../lib/api/client';
+import type { DrillDto, DrillInput, PresetRacks } from '../../../../shared/drills';
+import { STARTER_LIST_ID } from '../../../../shared/pattern-lists';
+import { ApiError } from '../../../lib/api/client';
 import { drillExportUrl, useDeleteDrill, useDrill, useSaveDrill } from '../api/drills';
 import { usePatternLists } from '../api/pattern-lists';
-import { Button } from '../components/ui/Button';
-import { DeleteConfirm } from '../components/ui/DeleteConfirm';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { DownloadLink } from '../components/ui/LinkButton';
+import { Button } from '../../../components/ui/Button';
+import { DeleteConfirm } from '../../../components/ui/DeleteConfirm';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { DownloadLink } from '../../../components/ui/LinkButton';
 import { RackPresetPicker } from '../components/RackPresetPicker';
-import { TeacherOnly } from '../components/ui/TeacherOnly';
-import { TextField } from '../components/ui/TextField';
-import { OpenTableButton } from './DrillsPage';
-import { CheckField } from '../components/ui/CheckField';
-import { patternsWord } from '../lib/phase-words';
+import { TeacherOnly } from '../../../components/ui/TeacherOnly';
+import { TextField } from '../../../components/ui/TextField';
+import { OpenTableButton } from '../components/OpenTableButton';
+import { CheckField } from '../../../components/ui/CheckField';
+import { patternsWord } from '../../../lib/phase-words';
 
 type Draft = Required<Omit<DrillInput, 'racks'>> & { racks: PresetRacks };
 

@@ -1,37 +1,13 @@
-import { useState } from 'react';
-import { useNavigate } from 'react-router-dom';
-import type { DrillDto } from '../../shared/drills';
-import { SEATS } from '../../shared/seats';
-import { drillExportUrl, useDrills, useImportDrill } from '../api/drills';
-import { useCreateTable } from '../lib/api/tables';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
+import type { DrillDto } from '../../../../shared/drills';
+import { SEATS } from '../../../../shared/seats';
+import { useDrills } from '../../../lib/api/drill-list';
+import { drillExportUrl, useImportDrill } from '../api/drills';
+import { OpenTableButton } from '../components/OpenTableButton';
+import { Card } from '../../../components/ui/Card';
 import { FileImport } from '../components/FileImport';
-import { FormMessage } from '../components/ui/FormMessage';
-import { DownloadLink, LinkButton } from '../components/ui/LinkButton';
-import { TeacherOnly } from '../components/ui/TeacherOnly';
-
-/** "Open a table with this drill": one click, then the table page. */
-export function OpenTableButton({ drill }: { drill: Pick<DrillDto, 'id' | 'name'> }) {
-  const navigate = useNavigate();
-  const create = useCreateTable();
-  const [problem, setProblem] = useState('');
-  return (
-    <div className="flex flex-col gap-1">
-      <Button
-        kind="primary"
-        disabled={create.isPending}
-        onClick={() => {
-          setProblem('');
-          create.mutate({ name: drill.name, drillId: drill.id }, { onSuccess: (table) => navigate(`/tables/${table.id}`), onError: (err) => setProblem(err.message) });
-        }}
-      >
-        {create.isPending ? 'Opening…' : 'Open a table with this drill'}
-      </Button>
-      {problem && <FormMessage error>{problem}</FormMessage>}
-    </div>
-  );
-}
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { DownloadLink, LinkButton } from '../../../components/ui/LinkButton';
+import { TeacherOnly } from '../../../components/ui/TeacherOnly';
 
 export function partsWords(d: Pick<DrillDto, 'secondCharleston' | 'courtesy' | 'jokers'>) {
   return [

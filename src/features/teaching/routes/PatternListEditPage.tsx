@@ -1,19 +1,19 @@
 import { useId, useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { buildsWithoutCalls, patternValue, type Pattern } from '../../shared/analysis/pattern';
-import { READ_ONLY_NOTE, type PatternListDto } from '../../shared/pattern-lists';
-import { ApiError } from '../lib/api/client';
+import { buildsWithoutCalls, patternValue, type Pattern } from '../../../../shared/analysis/pattern';
+import { READ_ONLY_NOTE, type PatternListDto } from '../../../../shared/pattern-lists';
+import { ApiError } from '../../../lib/api/client';
 import { patternListExportUrl, useCopyPatternList, useDeletePatternList, usePatternList, useSavePatternList } from '../api/pattern-lists';
-import { Button } from '../components/ui/Button';
-import { DeleteConfirm } from '../components/ui/DeleteConfirm';
-import { Card } from '../components/ui/Card';
-import { FormMessage } from '../components/ui/FormMessage';
-import { DownloadLink } from '../components/ui/LinkButton';
+import { Button } from '../../../components/ui/Button';
+import { DeleteConfirm } from '../../../components/ui/DeleteConfirm';
+import { Card } from '../../../components/ui/Card';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { DownloadLink } from '../../../components/ui/LinkButton';
 import { PatternEditor } from '../components/PatternEditor';
 import { PatternTiles } from '../components/PatternTiles';
-import { TeacherOnly } from '../components/ui/TeacherOnly';
-import { TextField } from '../components/ui/TextField';
-import { patternsWord } from '../lib/phase-words';
+import { TeacherOnly } from '../../../components/ui/TeacherOnly';
+import { TextField } from '../../../components/ui/TextField';
+import { patternsWord } from '../../../lib/phase-words';
 
 /** Errors of pattern i, without the "patterns.<i>." prefix. */
 function errorsOf(errors: Record<string, string>, i: number): Record<string, string> {

@@ -1,13 +1,13 @@
 import { useNavigate } from 'react-router-dom';
-import { READ_ONLY_NOTE, type PatternListSummaryDto } from '../../shared/pattern-lists';
+import { READ_ONLY_NOTE, type PatternListSummaryDto } from '../../../../shared/pattern-lists';
 import { patternListExportUrl, useCopyPatternList, useImportPatternList, usePatternLists } from '../api/pattern-lists';
-import { Button } from '../components/ui/Button';
-import { Card } from '../components/ui/Card';
+import { Button } from '../../../components/ui/Button';
+import { Card } from '../../../components/ui/Card';
 import { FileImport } from '../components/FileImport';
-import { FormMessage } from '../components/ui/FormMessage';
-import { DownloadLink, LinkButton } from '../components/ui/LinkButton';
-import { TeacherOnly } from '../components/ui/TeacherOnly';
-import { patternsWord } from '../lib/phase-words';
+import { FormMessage } from '../../../components/ui/FormMessage';
+import { DownloadLink, LinkButton } from '../../../components/ui/LinkButton';
+import { TeacherOnly } from '../../../components/ui/TeacherOnly';
+import { patternsWord } from '../../../lib/phase-words';
 
 function ListRow({ list }: { list: PatternListSummaryDto }) {
   const navigate = useNavigate();
