@@ -11,7 +11,7 @@ export class TableRegistry {
 
   /** Without a store in `hooks`, tables are kept in the app's database (exchange events through `hooks.events`). */
   constructor(hooks: MasterHooks) {
-    this.store = hooks.store ?? sequelizeTableStore(hooks.events!);
+    this.store = hooks.store ?? sequelizeTableStore(hooks.events);
     this.hooks = { ...hooks, store: this.store };
   }
 

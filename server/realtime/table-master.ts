@@ -38,7 +38,7 @@ export interface MasterHooks {
   botDelayMs: number;
   /** How long a seated player may be gone mid-exchange before a bot may take the seat, in ms. */
   seatGraceMs?: number;
-  /** Where the table is kept; without one, the app's database through `events`. */
+  /** Where the table is kept; without one, the app's database, its events through `events` (without those, a table only read). */
   store?: TableStore;
   /** Where exchange events are stored, in groups (for the database store). */
   events?: EventWriter;
@@ -88,7 +88,7 @@ export class TableMaster {
     public row: TableRecord,
     private hooks: MasterHooks,
   ) {
-    this.store = hooks.store ?? sequelizeTableStore(hooks.events!);
+    this.store = hooks.store ?? sequelizeTableStore(hooks.events);
     this.logger = hooks.logger ?? log;
     const tell = () => hooks.changed(this);
     const ahead = { id: row.id, exchange: () => this.exchange, setExchange: (x: TableExchange) => (this.exchange = x), version: () => this.version, moved: () => this.noteStep(), announce: tell };
@@ -288,7 +288,10 @@ export class TableMaster {
     const id = randomUUID();
     const next = this.reduce({ type: 'deal', exchangeId: id, options });
     this.patterns = await this.store.patterns(row.options.patternListId);
-    const participantIds = SEATS.flatMap((seat) => (row.seats[seat]?.kind === 'user' ? [(row.seats[seat] as { userId: number }).userId] : []));
+    const participantIds = SEATS.flatMap((seat) => {
+      const o = row.seats[seat];
+      return o?.kind === 'user' ? [o.userId] : [];
+    });
     await this.store.createExchange({ id, tableId: row.id, tableName: row.name, hostId: row.hostId, options, seats: row.seats, participantIds });
     try {
       await this.saveRow({ status: 'playing', currentExchangeId: id });

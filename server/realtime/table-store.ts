@@ -10,7 +10,7 @@ import type { Seat } from '../../shared/seats';
 import type { LogRecord } from '../../shared/table';
 import type { StoredExchangeOptions, StoredSeats, StoredTableOptions } from '../db/models';
 import { ExchangeEventRow, ExchangeRow, HuddleNoteRow, participantsKey, TableRow } from '../db/models';
-import { EventNotStored, type EventWriter } from '../db/event-writer';
+import { EventNotStored, noEventWriter, type EventWriter } from '../db/event-writer';
 import { OptimisticLockError, Op } from 'sequelize';
 import { patternsForTable } from '../teaching/pattern-lists';
 import { starterPatterns } from '../../shared/analysis';
@@ -111,8 +111,8 @@ function noteDto(row: HuddleNoteRow): HuddleNoteDto {
 
 const storedRecord = (e: ExchangeEventRow): StoredRecord => ({ seq: e.seq, type: e.type, seat: (e.seat as Seat | null) ?? null, payload: e.payload });
 
-/** The store over the app's Sequelize models, with exchange events going through the grouped event writer. */
-export function sequelizeTableStore(events: EventWriter): TableStore {
+/** The store over the app's Sequelize models, with exchange events going through the grouped event writer (none: every append is refused). */
+export function sequelizeTableStore(events: EventWriter = noEventWriter): TableStore {
   return {
     table: async (id) => {
       const row = await TableRow.findByPk(id);
