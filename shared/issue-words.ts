@@ -97,13 +97,3 @@ export function issueMessage(issue: Issue): string {
       return `${subject} is not valid here: check it and try again.`;
   }
 }
-
-/** Field errors from zod issues, keyed by dotted path ("_" for the whole value), the first per field. */
-export function issueFieldErrors(issues: readonly Issue[]): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of issues) {
-    const key = issue.path.map(String).join('.') || '_';
-    fields[key] ??= issueMessage(issue);
-  }
-  return fields;
-}

@@ -35,7 +35,6 @@ import type { Pattern } from './pattern';
 import { assignmentPrices, unseenCounts } from './price';
 import { countOf, joinWords, multipleOf, numberWord, pluralName } from './words';
 
-export { DEFENCE } from './defence';
 
 /**
  * The advice's settings. Samples, patterns and passes played out keep the whole advice within

@@ -20,7 +20,6 @@ export {
   adviceContextFor,
   advisePass,
   adviseRack,
-  DEFENCE,
   passChoices,
   type AdviceContext,
   type AdviceResult,
@@ -28,6 +27,7 @@ export {
   type Reason,
   type ReasonKind,
 } from './advice';
+export { DEFENCE } from './defence';
 export { rackFocus, LIVE, PICK, type FamilyFocus, type FocusOptions, type RackFocus } from './focus';
 export { neighbourWords, passRisk, readNeighbours, riskSentence, RISK_LEVELS, type DefenceInput, type NeighbourRead, type PassRisk, type RiskLevel, type Trait } from './defence';
 export { summarizeRack, type RackSummary } from './summary';

@@ -40,7 +40,7 @@ import {
 } from '../../shared/analysis/tournament';
 import { ODDS_DEFAULTS } from '../../shared/analysis/odds';
 import { SEATS } from '../../shared/seats';
-import { readPatternListJson } from '../../server/teaching/pattern-list-file';
+import { readPatternListJson } from '../../server/teaching/pattern-lists/file-json';
 
 function argValue(name: string, fallback: string): string {
   const args = process.argv.slice(2);

@@ -14,7 +14,7 @@ import { readFileSync } from 'node:fs';
 import { buildsWithoutCalls, patternValue, type Pattern } from '../../shared/analysis/pattern';
 import { starterPatterns } from '../../shared/analysis/starter-patterns';
 import { BALANCE_GOALS, dealtRacks, measureBalance, onlySinglesAndPairs, valueFromOdds } from './balance-measure';
-import { readPatternListJson } from '../../server/teaching/pattern-list-file';
+import { readPatternListJson } from '../../server/teaching/pattern-lists/file-json';
 import type { TileKind } from '../../shared/tiles';
 
 function arg(name: string, fallback: string): string {
