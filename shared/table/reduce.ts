@@ -111,10 +111,3 @@ function reduceExchange(live: TableExchange, event: Exclude<TableEvent, { type: 
       return { ok: true, exchange: { ...live, notes: [...live.notes, event.note] } };
   }
 }
-
-/** Like reduceTable, for events already known to apply (a stored log): a refusal throws. */
-export function applyTableEvent(table: Table, event: TableEvent): Table {
-  const result = reduceTable(table, event);
-  if (!result.ok) throw new Error(`A ${event.type} no longer applies: ${result.message}`);
-  return result.table;
-}

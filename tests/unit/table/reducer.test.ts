@@ -126,3 +126,10 @@ test('a complete pass is due to resolve, or first to be held once on a table tha
   expect(resolved.exchange!.state.phase).toBe('first-across');
   expect(dueEvent(resolved.exchange!, true)).toBeNull();
 });
+
+test('seatOfUser finds the seat a person sits in; a bot keeping a seat warm for them is not them', () => {
+  const warm = must(dealt(), { type: 'bot', seat: 'east', strategy: 'advised' });
+  expect(seatOfUser(dealt().seats, ines.userId)).toBe('east');
+  expect(seatOfUser(warm.seats, ines.userId)).toBeNull();
+  expect(seatOfUser(warm.seats, theo.userId)).toBeNull();
+});
