@@ -59,7 +59,7 @@ test('it starts without the local mail and payment fakes and answers the health 
   expect(output).not.toMatch(/local fake/);
   const health = await request(url).get('/api/health');
   expect(health.status).toBe(200);
-  expect(health.body).toEqual({ ok: true, database: 'up', ready: true });
+  expect(health.body).toEqual({ ok: true, database: 'up', ready: true, process: expect.stringMatching(/^[0-9a-f]{8}$/) });
 });
 
 test('responses carry the secure headers', async () => {
