@@ -1,8 +1,8 @@
-import { CartesianGrid, Legend, Line, LineChart, Tooltip, XAxis, YAxis } from 'recharts';
 import { Link, useParams } from 'react-router-dom';
 import type { ProgressDto, ProgressPointDto } from '../../../../shared/progress';
 import { useMe } from '../../../lib/api/auth';
 import { useProgress } from '../api/progress';
+import { ProgressChart, type LineStyle } from '../components/ProgressChart';
 import { Card } from '../../../components/ui/Card';
 import { FormMessage } from '../../../components/ui/FormMessage';
 import { countWord } from '../../../lib/phase-words';
@@ -11,45 +11,6 @@ import { SignInFirst } from '../../../components/ui/SignInFirst';
 const percent = (n: number | null) => (n === null ? '—' : `${Math.round(n * 100)}%`);
 const share = (n: number, of: number) => (of ? Math.round((n / of) * 100) : 0);
 const dateOf = (iso: string) => new Date(iso).toLocaleDateString();
-
-/** Each line has its own dash and marker as well as its own shade, so none relies on colour alone. */
-type Shape = 'circle' | 'square' | 'diamond';
-interface LineStyle { key: string; name: string; stroke: string; dash?: string; dot: Shape }
-
-function Marker({ cx, cy, shape, stroke }: { cx?: number; cy?: number; shape: Shape; stroke: string }) {
-  if (cx === undefined || cy === undefined) return null;
-  const common = { fill: 'var(--color-card)', stroke, strokeWidth: 2 };
-  if (shape === 'square') return <rect x={cx - 4.5} y={cy - 4.5} width={9} height={9} {...common} />;
-  if (shape === 'diamond') return <path d={`M${cx} ${cy - 6} L${cx + 6} ${cy} L${cx} ${cy + 6} L${cx - 6} ${cy} Z`} {...common} />;
-  return <circle cx={cx} cy={cy} r={5} {...common} />;
-}
-
-function Chart({ data, lines, unit, domain }: { data: Record<string, string | number>[]; lines: LineStyle[]; unit?: string; domain: [number, number | string] }) {
-  return (
-    <div aria-hidden="true">
-      <LineChart accessibilityLayer={false} responsive style={{ width: '100%', height: 240 }} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
-        <CartesianGrid stroke="#d9d5cc" />
-        <XAxis dataKey="label" tick={{ fill: '#1b2430', fontSize: 13 }} />
-        <YAxis allowDecimals={false} tick={{ fill: '#1b2430', fontSize: 13 }} width={40} domain={domain} unit={unit} />
-        <Tooltip />
-        <Legend />
-        {lines.map((l) => (
-          <Line
-            key={l.key}
-            type="monotone"
-            dataKey={l.key}
-            name={l.name}
-            stroke={l.stroke}
-            strokeWidth={2.5}
-            strokeDasharray={l.dash}
-            dot={(p: { cx?: number; cy?: number; index?: number }) => <Marker key={`${l.key}-${p.index}`} cx={p.cx} cy={p.cy} shape={l.dot} stroke={l.stroke} />}
-            isAnimationActive={false}
-          />
-        ))}
-      </LineChart>
-    </div>
-  );
-}
 
 const AWAY_LINES: LineStyle[] = [
   { key: 'before', name: 'Tiles away after the deal', stroke: '#7a3b00', dash: '8 4', dot: 'square' },
@@ -190,13 +151,13 @@ export function ProgressPage() {
           <Card>
             <figure className="flex flex-col gap-2">
               <figcaption className="font-semibold">Tiles away from the nearest pattern, after the deal and at the end of each exchange</figcaption>
-              <Chart data={away} lines={AWAY_LINES} domain={[0, 'dataMax + 1']} />
+              <ProgressChart data={away} lines={AWAY_LINES} domain={[0, 'dataMax + 1']} />
             </figure>
           </Card>
           <Card>
             <figure className="flex flex-col gap-2">
               <figcaption className="font-semibold">Share of passes in each exchange: as advised, breaking a pair, with a flower</figcaption>
-              <Chart data={habits} lines={HABIT_LINES} unit="%" domain={[0, 100]} />
+              <ProgressChart data={habits} lines={HABIT_LINES} unit="%" domain={[0, 100]} />
             </figure>
           </Card>
           <section aria-labelledby="points-title" className="flex flex-col gap-2">
