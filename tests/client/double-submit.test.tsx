@@ -2,7 +2,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { expect, test, vi } from 'vitest';
 import { Chat } from '../../src/features/table/components/Chat';
-import { InviteForm } from '../../src/components/InviteForm';
+import { InviteForm } from '../../src/features/lessons/components/InviteForm';
 import { renderAt, signedOut } from './render';
 
 /** fetch that answers `held` only when released, and the rest from `answers`; counts every call. */

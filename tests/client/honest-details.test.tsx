@@ -3,8 +3,8 @@ import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { afterEach, expect, test, vi } from 'vitest';
-import { InviteForm } from '../../src/components/InviteForm';
-import { defaultTimeZone, lessonTimes, timeZones } from '../../src/components/lessonTime';
+import { InviteForm } from '../../src/features/lessons/components/InviteForm';
+import { defaultTimeZone, lessonTimes, timeZones } from '../../src/features/lessons/lesson-time';
 import { fakeApi, renderAt, signedInAs } from './render';
 
 afterEach(() => {

@@ -1,7 +1,7 @@
 /** Seats held by an open checkout are shown apart from paid seats, with when the hold ends. */
 import { screen } from '@testing-library/react';
 import { expect, test } from 'vitest';
-import { seatWords } from '../../src/components/LessonList';
+import { seatWords } from '../../src/features/lessons/components/LessonList';
 import { fakeApi, renderAt, signedInAs } from './render';
 
 const holdEndsAt = '2030-05-14T22:40:00.000Z';

@@ -1,7 +1,7 @@
 import { fireEvent, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { expect, test } from 'vitest';
-import { priceToCents } from '../../src/components/ScheduleLessonForm';
+import { priceToCents } from '../../src/features/lessons/components/ScheduleLessonForm';
 import { fakeApi, renderAt, signedInAs, signedOut } from './render';
 
 const lesson = {

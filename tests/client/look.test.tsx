@@ -13,7 +13,7 @@ import { finishedReplay, tableState } from './fake-table';
 vi.mock('../../src/features/table/api/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
 
 beforeAll(async () => {
-  await import('../../src/routes/ReplayPage');
+  await import('../../src/features/replay/routes/ReplayPage');
 }, 30_000);
 
 const css = readFileSync('src/styles.css', 'utf8');

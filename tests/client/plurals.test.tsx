@@ -1,7 +1,7 @@
 /** Counts on screen take the singular for one: "1 pattern", "1 pass", "1 of 1 seat taken". */
 import { expect, test } from 'vitest';
 import { countWord, patternsWord, tilesWord } from '../../src/lib/phase-words';
-import { seatWords } from '../../src/components/LessonList';
+import { seatWords } from '../../src/features/lessons/components/LessonList';
 
 test('countWord and its named forms say one thing, or many', () => {
   expect([0, 1, 2].map(patternsWord)).toEqual(['0 patterns', '1 pattern', '2 patterns']);

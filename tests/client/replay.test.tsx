@@ -2,7 +2,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { beforeAll, expect, test } from 'vitest';
 import { replay } from '../../shared/exchange';
-import { replaySteps } from '../../src/components/replaySteps';
+import { replaySteps } from '../../src/features/replay/replay-steps';
 import { fakeApi, renderAt, signedInAs } from './render';
 import { finishedReplay } from './fake-table';
 
@@ -10,7 +10,7 @@ const dto = finishedReplay();
 
 // The replay route loads recharts on first use; load it once here so no test pays for it.
 beforeAll(async () => {
-  await import('../../src/routes/ReplayPage');
+  await import('../../src/features/replay/routes/ReplayPage');
 }, 30_000);
 const answers = { ...signedInAs('player'), 'GET /api/exchanges/x1/replay': { status: 200, body: { replay: { ...dto, final: undefined } } } };
 const stepText = () => screen.getByText(/^Step \d+ of \d+:/).textContent;
