@@ -17,9 +17,13 @@ function rejoin(s: ClientSocket) {
   if (joined) s.emit('table:join', { tableId: joined.tableId, as: 'player', invite: joined.invite }, () => {});
 }
 
-function open(): ClientSocket {
+/**
+ * The socket carries the table's id in its handshake (`?table=`): with several processes, the
+ * balancer sends every connection of one table to the one process that runs it.
+ */
+function open(tableId: string | null): ClientSocket {
   const store = useTableStore.getState;
-  const s: ClientSocket = io({ withCredentials: true, transports: ['websocket', 'polling'] });
+  const s: ClientSocket = io({ withCredentials: true, transports: ['websocket', 'polling'], query: tableId ? { table: tableId } : {} });
   store().connectionChanged('connecting');
   s.on('connect', () => {
     store().connectionChanged('online');
@@ -57,10 +61,16 @@ function open(): ClientSocket {
   return s;
 }
 
-export function getSocket(): ClientSocket {
+export function getSocket(tableId: string | null = null): ClientSocket {
   if (!socket) {
-    socket = open();
+    socket = open(tableId);
     onSessionChange(renewSocket);
+  } else if (tableId !== null && (socket.io.opts.query as Record<string, string> | undefined)?.table !== tableId) {
+    // Another table may be run by another process: connect again with this table's id. What is sent
+    // meanwhile waits in the socket's buffer and goes out once the new connection is up.
+    socket.io.opts.query = { table: tableId };
+    socket.disconnect();
+    socket.connect();
   }
   return socket;
 }
@@ -81,6 +91,7 @@ export function send<E extends ClientEventName>(event: E, payload: ClientPayload
 export function joinTable(tableId: string, invite?: string) {
   joined = { tableId, invite };
   useTableStore.getState().watch(tableId);
+  getSocket(tableId);
   return send('table:join', { tableId, as: 'player', invite });
 }
 
