@@ -1,7 +1,8 @@
 import { bestAway, rankPatterns, type Pattern } from '../../../shared/analysis';
-import { act, createExchange, resolve, viewFor, PASS_DIRECTION, type ExchangeState, type PassRecord, type Phase } from '../../../shared/exchange';
+import { createExchange, PASS_DIRECTION, type ExchangeState, type PassRecord, type Phase } from '../../../shared/exchange';
 import type { ExchangeReplayDto } from '../../../shared/protocol';
 import { SEATS, type Seat } from '../../../shared/seats';
+import { closedHuddle, reduceTable, type Table } from '../../../shared/table';
 
 export interface ReplayStep {
   /** How many log entries this step has replayed. */
@@ -29,14 +30,16 @@ function awayOf(state: ExchangeState, patterns: readonly Pattern[]): Record<Seat
   return Object.fromEntries(SEATS.map((s) => [s, bestAway(state.racks[s].map((t) => t.kind), patterns)])) as Record<Seat, number>;
 }
 
-/** Every state of the exchange, entry by entry, as replay(options, log.slice(0, k)) would give. */
+/** Every state of the exchange, entry by entry, through the same table reducer the live table runs. */
 function statesOf(dto: ExchangeReplayDto): ExchangeState[] {
-  const states = [createExchange(dto.options)];
+  const seats = { east: null, south: null, west: null, north: null };
+  let table: Table = { status: 'playing', seats, exchange: { id: 'replay', state: createExchange(dto.options), seq: 0, huddle: closedHuddle(), notes: [] } };
+  const states = [table.exchange!.state];
   dto.log.forEach((entry, index) => {
-    const state = states[states.length - 1];
-    const result = 'resolve' in entry ? resolve(state) : act(state, entry.seat, entry.action);
+    const result = reduceTable(table, 'resolve' in entry ? { type: 'resolve' } : { type: 'act', seat: entry.seat, action: entry.action });
     if (!result.ok) throw new Error(`Entry ${index + 1} of the log can't be replayed: ${result.message}`);
-    states.push(result.state);
+    table = result.table;
+    states.push(table.exchange!.state);
   });
   return states;
 }
@@ -69,10 +72,6 @@ export function replaySteps(dto: ExchangeReplayDto): ReplayStep[] {
 /** The nearest pattern of the table's own list. */
 export function nearestOf(state: ExchangeState, seat: Seat, patterns: readonly Pattern[]) {
   return rankPatterns(state.racks[seat].map((t) => t.kind), patterns, 1)[0] ?? null;
-}
-
-export function fullView(state: ExchangeState) {
-  return viewFor(state, 'replay');
 }
 
 export { PASS_DIRECTION };
