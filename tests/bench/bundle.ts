@@ -85,8 +85,8 @@ const extra = [...fromHtml].filter((f) => !initial.has(f));
 // Route paths, read from the router, so each lazy chunk is shown with the addresses that load it.
 const routerSource = readFileSync('src/router.tsx', 'utf8');
 const pathsByModule = new Map<string, string[]>();
-for (const m of routerSource.matchAll(/path: '([^']+)'[^\n]*?import\('\.\/routes\/(\w+)'\)/g)) {
-  const key = `src/routes/${m[2]}.tsx`;
+for (const m of routerSource.matchAll(/path: '([^']+)'[^\n]*?import\('\.\/([\w/]+)'\)/g)) {
+  const key = `src/${m[2]}.tsx`;
   pathsByModule.set(key, [...(pathsByModule.get(key) ?? []), m[1]]);
 }
 
@@ -103,7 +103,7 @@ for (const [key, chunk] of Object.entries(manifest)) {
   if (!chunk.isDynamicEntry) continue;
   const added = [...staticClosure(key)].filter((f) => !initial.has(f));
   const size = total(added);
-  const name = key.replace(/^src\/(routes\/)?/, '').replace(/\.tsx?$/, '');
+  const name = key.replace(/^src\/(features\/\w+\/routes\/)?/, '').replace(/\.tsx?$/, '');
   rows.push({ name, paths: (pathsByModule.get(key) ?? ['(loaded on demand)']).join(' '), files: added.length, ...size, firstVisitGzip: 0 });
 }
 const initialSize = total(initial);
