@@ -72,7 +72,11 @@ export function serve(config: Config) {
   let running: Awaited<ReturnType<typeof startServer>> | null = null;
   let closing: Promise<void> | null = null;
   let exitCode: number | null = null;
-  let logger = lifeLog(log);
+  // A Rackside process logs at LOG_LEVEL, or info. server/log.ts keeps the log silent under the test
+  // runner for the servers tests start inside themselves; a process a test starts is read by its output.
+  log.level = process.env.LOG_LEVEL || 'info';
+  // The application's logger is this same `log` (startServer gives it no other).
+  const logger = lifeLog(log);
 
   function stop(code: number) {
     exitCode = Math.max(exitCode ?? 0, code);
@@ -100,7 +104,6 @@ export function serve(config: Config) {
   return startServer(config)
     .then((server) => {
       running = server;
-      logger = lifeLog(server.logger);
       logger.info({ port: server.port }, `Rackside is ready on http://localhost:${server.port} (process ${process.pid})`);
       if (exitCode !== null) stop(exitCode);
       return server;

@@ -1,4 +1,8 @@
-/** What travels between client and server: REST payloads and socket events, with their zod schemas. */
+/**
+ * What travels between client and server: REST payloads and socket events, with their zod schemas
+ * and one ack type per event. Long (a little over 300 lines) because the whole wire is kept in this
+ * one file on purpose; the accounts part (roles, limits, sign-in) is the first to move out if it grows.
+ */
 import { z } from 'zod';
 import type { CommittedPass, ExchangeOptions, ExchangeView, LogEntry, Phase } from './exchange/types';
 import type { Seat } from './seats';
@@ -60,7 +64,6 @@ export interface ApiErrorBody {
 }
 
 // ───────────────────────── Live tables ─────────────────────────
-
 
 export const SEAT_NAMES = ['east', 'south', 'west', 'north'] as const;
 
@@ -274,10 +277,8 @@ export type AckError = { ok: false; code: string; message: string };
 /** An answer with any payload; `AckOf` names the one a given event answers with. */
 export type Ack<T extends object = object> = ({ ok: true } & T) | AckError;
 
-type Versioned = {
-  /** The table's version once the change is stored and shown. */
-  version: number;
-};
+/** The table's version once the change is stored and shown. */
+type Versioned = { version: number };
 type Nothing = Record<never, never>;
 
 /** What each client event answers with when it succeeds (a refusal is an `AckError`). */

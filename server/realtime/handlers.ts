@@ -49,7 +49,7 @@ async function withinLimit(limiter: Limiter, key: string, limited: () => TableEr
 }
 
 /**
- * A change to the joined table, made by one method of its master; the ack is the table's version.
+ * A change to the joined table, which its master checks and makes; the ack is the table's version.
  * The change is stored, then the viewers are sure to have it, then the ack goes. An exchange action
  * (`hot`) has already been shown and told with its stored group (through the change hook), so it is
  * only sent again if that has not happened; any other change is sent and told here.
@@ -113,28 +113,31 @@ const chat: Command<'chat:send'> = async ({ text }, socket, ctx) => {
   return { id: message.id };
 };
 
-/** Every client event and its command. An event not in here is answered UNKNOWN_EVENT. */
+/**
+ * Every client event and its command. The table changes go to the master's one dispatch, which
+ * checks them in a fixed order before anything changes. An event not in here is answered UNKNOWN_EVENT.
+ */
 const commands: { [E in ClientEventName]: Command<E> } = {
   'table:join': join,
   'table:leave': leave,
-  'table:sit': change((master, who, { seat }) => master.sit(who, seat)),
-  'table:stand': change((master, who) => master.stand(who)),
-  'table:bot': change((master, who, { seat, strategy }) => master.seatBot(who, seat, strategy)),
-  'table:start': change((master, who) => master.start(who)),
-  'table:advice': change((master, who, { hidden }) => master.setAdvice(who, hidden)),
-  'table:close': change((master, who) => master.closeTable(who)),
+  'table:sit': change((master, who, { seat }) => master.dispatch({ type: 'table:sit', seat }, who)),
+  'table:stand': change((master, who) => master.dispatch({ type: 'table:stand' }, who)),
+  'table:bot': change((master, who, { seat, strategy }) => master.dispatch({ type: 'table:bot', seat, strategy }, who)),
+  'table:start': change((master, who) => master.dispatch({ type: 'table:start' }, who)),
+  'table:advice': change((master, who, { hidden }) => master.dispatch({ type: 'table:advice', hidden }, who)),
+  'table:close': change((master, who) => master.dispatch({ type: 'table:close' }, who)),
   'exchange:act': change(
     async (master, who, { action, version }, { config, limits }) => {
       const limited = () => new TableError('RATE_LIMITED', 'You are moving faster than anyone plays. Wait a moment; nothing of that move was kept.');
       await withinLimit(limits.act, `${master.id}:${who.userId}`, limited);
-      return master.act(who, action, version, config.rateLimits.actionsPerExchange);
+      return master.dispatch({ type: 'exchange:act', action, version }, who, config.rateLimits.actionsPerExchange);
     },
     { hot: true },
   ),
-  'huddle:call': change((master, who) => master.callHuddle(who)),
-  'huddle:reveal': change((master, who, { seat }) => master.reveal(who, seat)),
-  'huddle:note': change((master, who, { text, seat }) => master.note(who, text, seat)),
-  'huddle:release': change((master, who) => master.release(who)),
+  'huddle:call': change((master, who) => master.dispatch({ type: 'huddle:call' }, who)),
+  'huddle:reveal': change((master, who, { seat }) => master.dispatch({ type: 'huddle:reveal', seat }, who)),
+  'huddle:note': change((master, who, { text, seat }) => master.dispatch({ type: 'huddle:note', text, seat }, who)),
+  'huddle:release': change((master, who) => master.dispatch({ type: 'huddle:release' }, who)),
   'chat:send': chat,
 };
 
@@ -205,7 +208,7 @@ export function createHandlers(io: RacksideServer, deps: HandlersDeps, presence:
     } catch (err) {
       if (err instanceof TableError) ack({ ok: false, code: err.code, message: err.message });
       else {
-        logger.error({ err, event }, 'unexpected error in a socket handler');
+        logger.error({ err, event }, `Unexpected error in ${event}`);
         ack({ ok: false, code: 'SERVER_ERROR', message: 'Something went wrong on our side. Please try again.' });
       }
     } finally {
