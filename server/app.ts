@@ -18,12 +18,12 @@ import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { exchangesRouter } from './routes/exchanges';
 import { tablesRouter } from './routes/tables';
-import { teachingRoutes } from './routes/teaching';
-import { drillsRouter } from './routes/drills';
-import { patternListsRouter } from './routes/pattern-lists';
-import { comparisonsRouter } from './routes/comparisons';
-import { progressRouter } from './routes/progress';
+import { mailRouter } from './routes/mail';
+import { passwordResetRouter } from './routes/password-reset';
+import { createMailer } from './services/mail/mailer';
+import { teachingRoutes } from './teaching';
 import { createEventWriter } from './db/event-writer';
+import { closeRateLimits } from './security/rate-limits';
 import { TableRegistry } from './realtime/registry';
 import type { TableMaster } from './realtime/table-master';
 
@@ -56,11 +56,19 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   const onLogout = new Set<(sessionId: string) => void>();
   const onTableChange = new Set<(master: TableMaster, fromPeer?: boolean) => void>();
   // One owner per table, shared by the REST routes and the sockets.
-  const events = createEventWriter(sequelize);
+  const events = createEventWriter(sequelize, logger);
   setDealSecret(config.linkSecret);
-  const registry = new TableRegistry({ botDelayMs: config.botDelayMs, seatGraceMs: config.seatGraceMs, events, changed: (master, fromPeer) => onTableChange.forEach((fn) => fn(master, fromPeer)) });
+  const registry = new TableRegistry({
+    botDelayMs: config.botDelayMs,
+    seatGraceMs: config.seatGraceMs,
+    events,
+    logger,
+    movesPerExchange: config.rateLimits.actionsPerExchange,
+    changed: (master, fromPeer) => onTableChange.forEach((fn) => fn(master, fromPeer)),
+  });
 
-  const teaching = teachingRoutes({ config, sequelize, registry, tableChanged: (master) => onTableChange.forEach((fn) => fn(master)) });
+  const mailer = createMailer(config);
+  const teaching = teachingRoutes({ config, sequelize, mailer, registry, tableChanged: (master) => onTableChange.forEach((fn) => fn(master)) });
 
   const api = express.Router();
   // A NUL or other control character in a path parameter or the query string is a 400 on every route.
@@ -75,15 +83,12 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
   api.use(passport.session());
   api.use(absoluteLifetime(config));
   api.use('/health', healthRouter(sequelize, () => !draining));
-  api.use('/auth/password-reset', teaching.passwordReset);
+  api.use('/auth/password-reset', passwordResetRouter({ config, mailer }));
   api.use('/auth', authRouter(passport, config, { onLogout: (sid) => onLogout.forEach((fn) => fn(sid)), log: logger }));
   api.use('/admin', adminRouter(logger));
   api.use('/tables', tablesRouter(registry));
   api.use('/exchanges', exchangesRouter());
-  api.use('/drills', drillsRouter());
-  api.use('/pattern-lists', patternListsRouter());
-  api.use('/comparisons', comparisonsRouter());
-  api.use('/progress', progressRouter());
+  api.use('/mail', mailRouter());
   api.use(teaching.routes);
   api.use(notFoundApi);
   app.use('/api', api);
@@ -114,9 +119,9 @@ export function createApplication({ config, sequelize, logger = log }: AppDeps) 
     },
     /** Call once every table is idle: the event log's last group is written, then its connection closed. */
     close: async () => {
-      teaching.close();
+      mailer.close();
       session.close();
-      await events.close();
+      await Promise.all([events.close(), closeRateLimits()]);
     },
   };
 }
