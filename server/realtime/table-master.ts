@@ -19,6 +19,7 @@ import { botAction, dueEvent, foldLog, reduceTable, restoreExchange, type LogEve
 import type { EventWriter } from '../db/event-writer';
 import { log } from '../log';
 import { nextDealSeed } from '../services/deal-seed';
+import { tableCounters } from './counters';
 import { decide, TableError, type Plan, type TableCommand } from './dispatch';
 import { StoredAhead } from './table-ahead';
 import { sequelizeTableStore, StoreRefused, type StoredExchangeOptions, type TableChanges, type TableRecord, type TableStore } from './table-store';
@@ -196,8 +197,9 @@ export class TableMaster {
   dispatch(command: TableCommand, member: Member, movesPerExchange = this.hooks.movesPerExchange ?? Infinity): Promise<void> {
     const once = () => this.run(() => this.execute(decide(command, member, this.situation(movesPerExchange)), member)).then((done) => done?.stored);
     return once().catch((err) => {
-      if (err instanceof TableError && CONFLICTS.has(err.code)) return once();
-      throw err;
+      if (!(err instanceof TableError && CONFLICTS.has(err.code))) throw err;
+      tableCounters.retried += 1;
+      return once();
     });
   }
 
@@ -383,6 +385,7 @@ export class TableMaster {
   /** After a failed write, or when another process moved the table on: read the row and the log again. */
   private async reload(fromPeer = false) {
     await this.ahead.lastWrite;
+    tableCounters.rebuilt += 1;
     this.row = (await this.store.table(this.row.id)) ?? this.row;
     const stored = this.row.currentExchangeId ? await this.store.exchange(this.row.currentExchangeId) : null;
     if (stored) this.exchange = restoreExchange(stored.id, stored.options, stored.records, stored.notes);
@@ -406,6 +409,7 @@ export class TableMaster {
         try {
           if (records.some((r, i) => r.seq !== live.seq + i)) throw new Error('a gap in the log');
           this.exchange = foldLog(live, records);
+          tableCounters.caughtUp += 1;
           this.ahead.showLive();
           this.hooks.changed(this, true);
           await this.settleDue();
