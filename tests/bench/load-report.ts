@@ -118,6 +118,7 @@ export function reportProcesses(settings: LoadSettings, one: RacksideRun, two: R
     r.split ? `${r.split.map((s) => `${s.server} ${s.current}`).join(', ')}${same ? ' (a and b: the one process)' : ''}` : 'no balancer';
   printRows([
     [...commonRows(all)[0], 'two / one'],
+    ['REDIS_URL set / how clients connect', ...[one, two].map((r) => `${r.redis ? 'yes' : 'no'} / ${r.balanced ? 'HAProxy, query table=<id>' : 'straight to the process'}`)],
     ...commonRows(all).slice(1),
     ...tailRows(settings, all),
     ['Rackside CPU over play, each process', ...all.map(([, r]) => (r as RacksideRun).perProcessCpuMs.map((ms) => `${(ms / 1000).toFixed(2)} s`).join(' + '))],

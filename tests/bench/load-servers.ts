@@ -146,7 +146,22 @@ export async function benchRackside(settings: LoadSettings, layout: Layout) {
   await pg?.stop();
   const cpuMs = perProcessCpuMs.reduce((a, b) => a + b, 0);
   // Rackside's messages are the states its clients received.
-  return { ...played, errors: played.errors + seated.errors, baseline, connected, peak, cpuMs, perProcessCpuMs, haproxyCpuMs, redisCpuMs, counters, split, messages: played.states };
+  return {
+    ...played,
+    errors: played.errors + seated.errors,
+    baseline,
+    connected,
+    peak,
+    cpuMs,
+    perProcessCpuMs,
+    haproxyCpuMs,
+    redisCpuMs,
+    counters,
+    split,
+    messages: played.states,
+    redis: redis !== null,
+    balanced: front !== null,
+  };
 }
 
 export type RacksideRun = Awaited<ReturnType<typeof benchRackside>>;
