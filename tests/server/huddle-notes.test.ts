@@ -1,25 +1,15 @@
 /** Who reads a huddle note: a note for the table reaches everyone; a note on one seat is that seat's and the host's until the exchange is done. */
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import type { TableStateDto } from '../../shared/protocol';
-import { Client, client, fullTable, liveServer, type Server } from './live';
-
-let server: Server | undefined;
-const clients: Client[] = [];
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-});
+import { liveTest as test } from './live';
 
 const texts = (s: TableStateDto) => s.huddle.notes.map((n) => n.text).sort();
 
-test('a note for the table reaches every seat and spectator; a note on west reaches only west and the host', async () => {
-  server = await liveServer();
-  const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } });
-  clients.push(...t.clients);
+test('a note for the table reaches every seat and spectator; a note on west reaches only west and the host', async ({ live }) => {
+  await live.start();
+  const t = await live.fullTable({ options: { secondCharleston: false, courtesy: false } });
   const [ines, theo, mina, ruth] = t.clients; // east (host), south, west, north
-  const watcher = await client(server, 'Sol');
-  clients.push(watcher);
+  const watcher = await live.client('Sol');
   await t.host.ok('table:start');
   await watcher.ok('table:join', { tableId: t.table.id, as: 'spectator' });
   await ines.until((s) => s.phase === 'first-right');

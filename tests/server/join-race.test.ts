@@ -1,19 +1,10 @@
 /** A socket that goes away while its join is still being answered never counts as present. */
-import { afterEach, expect, test } from 'vitest';
-import { Client, fullTable, liveServer, openSocket, type Server } from './live';
+import { expect } from 'vitest';
+import { liveTest as test } from './live';
 
-let server: Server | undefined;
-const clients: Client[] = [];
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-});
-
-test('a socket that disconnects while table:join awaits is not added to the room or the count, so a bot may take the seat', async () => {
-  server = await liveServer();
-  const t = await fullTable(server);
-  clients.push(...t.clients);
+test('a socket that disconnects while table:join awaits is not added to the room or the count, so a bot may take the seat', async ({ live }) => {
+  const server = await live.start();
+  const t = await live.fullTable();
   const [host, theo] = t.clients;
   await host.ok('table:start');
   await host.until((s) => s.phase === 'first-right');
@@ -33,7 +24,7 @@ test('a socket that disconnects while table:join awaits is not added to the room
     await gone;
     return lookUp(id);
   };
-  const again = await openSocket(server, theo.cookie);
+  const again = await live.socket(theo.cookie);
   again.emit('table:join', { tableId: t.table.id, as: 'player' });
   // The server holds the join (it is waiting on the look-up); now the socket goes.
   await inJoin;
@@ -49,5 +40,5 @@ test('a socket that disconnects while table:join awaits is not added to the room
   expect(bot).toMatchObject({ ok: true });
   const master = await registry.peek(t.table.id);
   expect(master!.connected.size).toBe(3);
-  expect([...server.io.of('/').adapter.rooms.get(`table:${t.table.id}`) ?? []].every((id) => server!.io.of('/').sockets.get(id)?.connected)).toBe(true);
+  expect([...server.io.of('/').adapter.rooms.get(`table:${t.table.id}`) ?? []].every((id) => server.io.of('/').sockets.get(id)?.connected)).toBe(true);
 });

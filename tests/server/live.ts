@@ -2,7 +2,7 @@
 import type { AddressInfo } from 'node:net';
 import { io as connect, type Socket } from 'socket.io-client';
 import request from 'supertest';
-import { expect } from 'vitest';
+import { expect, test } from 'vitest';
 import type { Action } from '../../shared/exchange/types';
 import type { Ack, ClientEventName, TableStateDto, ChatMessageDto, ExchangeReplayDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
@@ -113,6 +113,80 @@ export async function fullTable(server: Server, body: object = {}, names = ['Ine
   }
   return { table, clients, host: clients[0] };
 }
+
+/**
+ * What a live test holds: the servers it started and every socket it opened through the kit. The
+ * `live` fixture closes them all after the test (sockets first, then servers, newest first), so a
+ * test cannot leave one open. Helpers work on the server started last.
+ */
+export class LiveKit {
+  private readonly servers: Server[] = [];
+  private readonly sockets: (() => Socket)[] = [];
+
+  /** Starts a server with these config overrides; closing it before the test ends is allowed. */
+  async start(overrides: Partial<Config> = {}): Promise<Server> {
+    const started = await liveServer(overrides);
+    let closing: Promise<void> | undefined;
+    const server: Server = { ...started, close: () => (closing ??= started.close()) };
+    this.servers.push(server);
+    return server;
+  }
+
+  /** The server started last. */
+  get server(): Server {
+    const latest = this.servers.at(-1);
+    if (!latest) throw new Error('No live server yet: call live.start() first');
+    return latest;
+  }
+
+  /** Disconnects these clients (their current sockets) after the test. */
+  track(...clients: Client[]) {
+    for (const c of clients) this.sockets.push(() => c.socket);
+  }
+
+  /** Signs up `name` (or uses the cookie given) and connects a socket client. */
+  async client(name: string, cookie?: string): Promise<Client> {
+    const c = await client(this.server, name, cookie);
+    this.track(c);
+    return c;
+  }
+
+  /** Another socket for someone already signed in: a second tab, or a return after leaving. */
+  async reconnect(who: { name: string; cookie: string }): Promise<Client> {
+    return new Client(who.name, who.cookie, await this.socket(who.cookie));
+  }
+
+  /** A bare signed-in socket, disconnected after the test. */
+  async socket(cookie: string): Promise<Socket> {
+    const socket = await openSocket(this.server, cookie);
+    this.sockets.push(() => socket);
+    return socket;
+  }
+
+  async fullTable(body: object = {}, names?: string[]) {
+    const t = await fullTable(this.server, body, names);
+    this.track(...t.clients);
+    return t;
+  }
+
+  async close() {
+    this.sockets.splice(0).forEach((socket) => socket().disconnect());
+    for (const server of this.servers.splice(0).reverse()) await server.close();
+  }
+}
+
+/**
+ * Tests with a live kit: `live` starts servers on demand; `server` is one started with the test
+ * defaults. Both are closed, with every client made through the kit, when the test ends.
+ */
+export const liveTest = test
+  // eslint-disable-next-line no-empty-pattern -- vitest reads a fixture's dependencies from this pattern
+  .extend('live', async ({}, { onCleanup }) => {
+    const kit = new LiveKit();
+    onCleanup(() => kit.close());
+    return kit;
+  })
+  .extend('server', async ({ live }) => live.start());
 
 /** A plain legal choice for a seat from its own latest state: the first non-joker tiles, optional blind. */
 export function simpleAction(state: TableStateDto, opts: { blind?: number; stop?: boolean; ask?: 0 | 1 | 2 | 3 } = {}): Action | null {

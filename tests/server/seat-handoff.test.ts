@@ -1,21 +1,12 @@
 /** A seat whose player left mid-exchange does not stall the table: after a grace time a bot keeps it warm, and the player takes it back on return. */
-import { afterEach, expect, test } from 'vitest';
-import { Client, fullTable, liveServer, openSocket, type Server } from './live';
-
-let server: Server | undefined;
-const clients: Client[] = [];
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-});
+import { expect } from 'vitest';
+import { liveTest as test, type Client } from './live';
 
 const away = (c: Client, seat: 'east' | 'south' | 'west' | 'north') => c.until((s) => s.seats[seat].occupant?.kind === 'user' && !(s.seats[seat].occupant as { connected: boolean }).connected);
 
-test('the host may hand an away seat to a bot only after the grace time, and the player takes it back, rack and all', async () => {
-  server = await liveServer({ seatGraceMs: 60 * 60 * 1000 });
-  const t = await fullTable(server);
-  clients.push(...t.clients);
+test('the host may hand an away seat to a bot only after the grace time, and the player takes it back, rack and all', async ({ live }) => {
+  const server = await live.start({ seatGraceMs: 60 * 60 * 1000 });
+  const t = await live.fullTable();
   const [host, theo] = t.clients;
   await host.ok('table:start');
   await theo.until((s) => s.phase === 'first-right');
@@ -29,9 +20,8 @@ test('the host may hand an away seat to a bot only after the grace time, and the
 
   // The grace time over (a server where it is nothing), the bot stands in and play goes on.
   await server.close();
-  server = await liveServer({ seatGraceMs: 0 });
-  const t2 = await fullTable(server);
-  clients.push(...t2.clients);
+  await live.start({ seatGraceMs: 0 });
+  const t2 = await live.fullTable();
   const [host2, theo2] = t2.clients;
   await host2.ok('table:start');
   const before = (await theo2.until((s) => s.phase === 'first-right')).myRack;
@@ -42,8 +32,7 @@ test('the host may hand an away seat to a bot only after the grace time, and the
   expect(warm.seats.south.occupant).toMatchObject({ kind: 'bot', standsInFor: { displayName: 'Theo' } });
 
   // Theo comes back and takes his seat again, with whatever rack the seat holds now.
-  const back = new Client('Theo', theo2.cookie, await openSocket(server, theo2.cookie));
-  clients.push(back);
+  const back = await live.reconnect(theo2);
   await back.ok('table:join', { tableId: t2.table.id, as: 'player' });
   await back.ok('table:sit', { seat: 'south' });
   const mine = await back.until((s) => s.mySeat === 'south' && s.myRack.length > 0);
@@ -51,10 +40,9 @@ test('the host may hand an away seat to a bot only after the grace time, and the
   expect(mine.myRack.length).toBe(before.length);
 });
 
-test('when the host is the one gone, the table hands the host’s seat to a bot by itself after the grace time', async () => {
-  server = await liveServer({ seatGraceMs: 50 });
-  const t = await fullTable(server);
-  clients.push(...t.clients);
+test('when the host is the one gone, the table hands the host’s seat to a bot by itself after the grace time', async ({ live }) => {
+  await live.start({ seatGraceMs: 50 });
+  const t = await live.fullTable();
   const [host, theo] = t.clients;
   await host.ok('table:start');
   await theo.until((s) => s.phase === 'first-right');
@@ -63,8 +51,7 @@ test('when the host is the one gone, the table hands the host’s seat to a bot 
   expect(handed.seats.east.occupant).toMatchObject({ kind: 'bot', standsInFor: { displayName: 'Ines' } });
   // Another player may not take the host's seat: only the host can take it back.
   expect(await theo.emit('table:sit', { seat: 'east' })).toMatchObject({ ok: false });
-  const back = new Client('Ines', host.cookie, await openSocket(server, host.cookie));
-  clients.push(back);
+  const back = await live.reconnect(host);
   await back.ok('table:join', { tableId: t.table.id, as: 'player' });
   await back.ok('table:sit', { seat: 'east' });
   await back.until((s) => s.mySeat === 'east' && s.seats.east.occupant?.kind === 'user');

@@ -3,23 +3,14 @@
  * seat per second and per exchange, refused moves store nothing, and every message name that is
  * not Rackside's (even one every object has) is answered.
  */
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { testConfig } from '../../server/config';
 import { ExchangeEventRow } from '../../server/db/models';
-import { Client, fullTable, liveServer, type Server } from './live';
+import { liveTest as test, type Client, type LiveKit } from './live';
 
-let server: Server | undefined;
-const clients: Client[] = [];
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-});
-
-async function dealt(overrides: Parameters<typeof liveServer>[0] = {}) {
-  server = await liveServer(overrides);
-  const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } });
-  clients.push(...t.clients);
+async function dealt(live: LiveKit, overrides: Parameters<LiveKit['start']>[0] = {}) {
+  await live.start(overrides);
+  const t = await live.fullTable({ options: { secondCharleston: false, courtesy: false } });
   await t.host.ok('table:start');
   await t.host.until((s) => s.phase === 'first-right');
   return t;
@@ -31,9 +22,9 @@ function toggles(c: Client, count: number) {
   return Promise.all(Array.from({ length: count }, (_, i) => c.emit('exchange:act', { action: i % 2 === 0 ? { type: 'pass', tiles } : { type: 'withdraw' } })));
 }
 
-test('a seat sending more moves than anyone plays is refused with a clear error, and nothing refused is stored', async () => {
+test('a seat sending more moves than anyone plays is refused with a clear error, and nothing refused is stored', async ({ live }) => {
   // Five moves a minute: however slowly a busy machine answers, the forty arrive within the window.
-  const { host } = await dealt({ rateLimits: { ...testConfig().rateLimits, actions: { max: 5, windowMs: 60_000 } } });
+  const { host } = await dealt(live, { rateLimits: { ...testConfig().rateLimits, actions: { max: 5, windowMs: 60_000 } } });
   const acks = await toggles(host, 40);
   const refused = acks.filter((a) => !a.ok);
   expect(refused.length).toBeGreaterThan(0);
@@ -44,8 +35,8 @@ test('a seat sending more moves than anyone plays is refused with a clear error,
   expect(stored).toBe(5);
 });
 
-test('a seat has a budget of moves per exchange; past it, moves are refused and the log stops growing', async () => {
-  const { host, clients: cs } = await dealt({ rateLimits: { ...testConfig().rateLimits, actions: { max: 1000, windowMs: 60_000 }, actionsPerExchange: 12 } });
+test('a seat has a budget of moves per exchange; past it, moves are refused and the log stops growing', async ({ live }) => {
+  const { host, clients: cs } = await dealt(live, { rateLimits: { ...testConfig().rateLimits, actions: { max: 1000, windowMs: 60_000 }, actionsPerExchange: 12 } });
   const acks = await toggles(host, 30);
   // Twelve moves, then the budget is spent: the next pass still commits (a seat is never locked out of
   // choosing), and every take-back after it is refused, so the log stops growing.
@@ -63,20 +54,18 @@ test('a seat has a budget of moves per exchange; past it, moves are refused and 
   expect((await south.emit('exchange:act', { action: { type: 'pass', tiles } })).ok).toBe(true);
 });
 
-test('a control character in a socket payload is refused as bad input, naming the field', async () => {
-  server = await liveServer();
-  const { host } = await fullTable(server);
-  clients.push(host);
+test('a control character in a socket payload is refused as bad input, naming the field', async ({ live }) => {
+  await live.start();
+  const { host } = await live.fullTable();
   expect(await host.emit('table:join', { tableId: '\u0000', as: 'player' })).toMatchObject({ ok: false, code: 'BAD_INPUT' });
   const chat = await host.emit('chat:send', { text: 'hello\u0000there' });
   expect(chat).toMatchObject({ ok: false, code: 'BAD_INPUT' });
   expect(chat.message).toMatch(/"text" holds a control character/);
 });
 
-test('a socket message of the wrong shape is answered in Rackside words, not the validator’s', async () => {
-  server = await liveServer();
-  const { host } = await fullTable(server);
-  clients.push(host);
+test('a socket message of the wrong shape is answered in Rackside words, not the validator’s', async ({ live }) => {
+  await live.start();
+  const { host } = await live.fullTable();
   const ack = await host.emit('table:sit', { seat: 7 });
   expect(ack).toMatchObject({ ok: false, code: 'BAD_INPUT' });
   expect(ack.message).not.toMatch(/Invalid input|expected .*received/);
@@ -85,10 +74,9 @@ test('a socket message of the wrong shape is answered in Rackside words, not the
   expect(wrong.message).not.toMatch(/Invalid input|expected .*received/);
 });
 
-test('message names every object has, and unknown ones, are answered UNKNOWN_EVENT', async () => {
-  server = await liveServer();
-  const { host } = await fullTable(server);
-  clients.push(host);
+test('message names every object has, and unknown ones, are answered UNKNOWN_EVENT', async ({ live }) => {
+  await live.start();
+  const { host } = await live.fullTable();
   for (const name of ['__proto__', 'constructor', 'toString', 'hasOwnProperty', 'valueOf', 'table:explode']) {
     const ack = await host.emit(name, { tableId: 'x' });
     expect(ack, name).toMatchObject({ ok: false, code: 'UNKNOWN_EVENT' });

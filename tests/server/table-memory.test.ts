@@ -1,15 +1,7 @@
 /** Tables nobody is at leave memory and come back from the database, unchanged, when next asked for. */
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { SEATS } from '../../shared/seats';
-import { Client, fullTable, liveServer, openSocket, simpleAction, type Server } from './live';
-
-let server: Server | undefined;
-const clients: Client[] = [];
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-});
+import { liveTest as test, simpleAction, type Client, type Server } from './live';
 
 async function everyoneActs(cs: Client[]) {
   await Promise.all(
@@ -30,16 +22,15 @@ async function playToEnd(c: Client) {
 }
 
 /** Waits (on the table's own state, not the clock) until nothing is under way and nobody is counted. */
-async function quiet(tableId: string) {
-  const master = (await server!.registry.peek(tableId))!;
+async function quiet(server: Server, tableId: string) {
+  const master = (await server.registry.peek(tableId))!;
   await master.idle();
   while (!master.quiet) await new Promise((resolve) => setImmediate(resolve));
 }
 
-test('a table left mid-exchange leaves memory, and its players come back to it exactly as it was and finish', async () => {
-  server = await liveServer();
-  const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } });
-  clients.push(...t.clients);
+test('a table left mid-exchange leaves memory, and its players come back to it exactly as it was and finish', async ({ live }) => {
+  const server = await live.start();
+  const t = await live.fullTable({ options: { secondCharleston: false, courtesy: false } });
   await t.host.ok('table:start');
   await Promise.all(t.clients.map((c) => c.until((s) => s.phase === 'first-right')));
   await everyoneActs(t.clients);
@@ -49,20 +40,18 @@ test('a table left mid-exchange leaves memory, and its players come back to it e
   const before = t.clients.map((c) => ({ rack: c.state.myRack, committed: SEATS.map((s) => c.state.seats[s].committed) }));
 
   // A second table where someone stays keeps its place in memory.
-  const other = await fullTable(server, {}, ['Sol', 'Pat', 'Nadia', 'Omar']);
-  clients.push(...other.clients);
+  const other = await live.fullTable({}, ['Sol', 'Pat', 'Nadia', 'Omar']);
 
   t.clients.forEach((c) => c.socket.disconnect());
-  await quiet(t.table.id);
+  await quiet(server, t.table.id);
   expect(await server.registry.sweep(0)).toBe(1);
   expect(await server.registry.peek(t.table.id)).toBeNull();
   expect(await server.registry.peek(other.table.id)).not.toBeNull();
 
   const again: Client[] = [];
   for (const c of t.clients) {
-    const next = new Client(c.name, c.cookie, await openSocket(server, c.cookie));
+    const next = await live.reconnect(c);
     again.push(next);
-    clients.push(next);
     await next.ok('table:join', { tableId: t.table.id, as: 'player' });
   }
   for (const [i, c] of again.entries()) {
@@ -74,14 +63,14 @@ test('a table left mid-exchange leaves memory, and its players come back to it e
   await Promise.all(again.map((c) => c.until((s) => s.phase === 'first-left')));
 });
 
-test('a finished table leaves memory once its players go; many tables played one after another leave the registry empty', async () => {
-  server = await liveServer();
+test('a finished table leaves memory once its players go; many tables played one after another leave the registry empty', async ({ live }) => {
+  const server = await live.start();
   for (let round = 0; round < 3; round++) {
-    const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } }, [`Ines${round}`, `Theo${round}`, `Mina${round}`, `Ruth${round}`]);
+    const t = await live.fullTable({ options: { secondCharleston: false, courtesy: false } }, [`Ines${round}`, `Theo${round}`, `Mina${round}`, `Ruth${round}`]);
     await t.host.ok('table:start');
     await Promise.all(t.clients.map((c) => playToEnd(c)));
     t.clients.forEach((c) => c.socket.disconnect());
-    await quiet(t.table.id);
+    await quiet(server, t.table.id);
   }
   expect(server.registry.size).toBe(3);
   expect(await server.registry.sweep(0)).toBe(3);

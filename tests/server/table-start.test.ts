@@ -1,20 +1,11 @@
 /** Starting a deal stores the exchange and the table's move to it together, or neither. */
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { ExchangeRow, TableRow } from '../../server/db/models';
-import { Client, fullTable, liveServer, type Server } from './live';
+import { liveTest as test } from './live';
 
-let server: Server | undefined;
-const clients: Client[] = [];
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-});
-
-test('a start whose table save loses to another process leaves no exchange behind; the retry deals exactly one', async () => {
-  server = await liveServer();
-  const t = await fullTable(server);
-  clients.push(...t.clients);
+test('a start whose table save loses to another process leaves no exchange behind; the retry deals exactly one', async ({ live }) => {
+  await live.start();
+  const t = await live.fullTable();
   // Another process changes the table row first: this process's copy is now one revision behind.
   await TableRow.sequelize!.query('UPDATE "Tables" SET "revision" = "revision" + 1 WHERE "id" = ?', { replacements: [t.table.id] });
   await t.host.ok('table:start');

@@ -1,15 +1,7 @@
 /** Each client event answers with the ack shared/protocol.ts names for it, and nothing more. */
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import type { AckPayloads, ClientEventName } from '../../shared/protocol';
-import { Client, fullTable, liveServer, simpleAction, type Server } from './live';
-
-let server: Server | undefined;
-const clients: Client[] = [];
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-});
+import { liveTest as test, simpleAction, type Client } from './live';
 
 /** Sends the event and checks that its ack holds exactly `ok: true` and the keys of its payload type. */
 async function answers<E extends ClientEventName>(c: Client, event: E, payload: unknown, keys: (keyof AckPayloads[E])[]) {
@@ -18,10 +10,9 @@ async function answers<E extends ClientEventName>(c: Client, event: E, payload: 
   return ack as unknown as { ok: true } & AckPayloads[E];
 }
 
-test('join answers the state, a table change its version, chat the message id, leave nothing', async () => {
-  server = await liveServer();
-  const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } });
-  clients.push(...t.clients);
+test('join answers the state, a table change its version, chat the message id, leave nothing', async ({ live }) => {
+  await live.start();
+  const t = await live.fullTable({ options: { secondCharleston: false, courtesy: false } });
   const [ines, theo] = t.clients;
 
   const joined = await answers(theo, 'table:join', { tableId: t.table.id, as: 'player' }, ['state']);
@@ -46,27 +37,24 @@ test('join answers the state, a table change its version, chat the message id, l
   await answers(theo, 'table:leave', undefined, []);
 });
 
-test('the host stands, sits again and closes the table: each answers a version', async () => {
-  server = await liveServer();
-  const t = await fullTable(server);
-  clients.push(...t.clients);
+test('the host stands, sits again and closes the table: each answers a version', async ({ live }) => {
+  await live.start();
+  const t = await live.fullTable();
   await answers(t.host, 'table:stand', undefined, ['version']);
   await answers(t.host, 'table:sit', { seat: 'east' }, ['version']);
   await answers(t.host, 'table:close', undefined, ['version']);
 });
 
-test('a message sent without an ack is still carried out', async () => {
-  server = await liveServer();
-  const t = await fullTable(server);
-  clients.push(...t.clients);
+test('a message sent without an ack is still carried out', async ({ live }) => {
+  await live.start();
+  const t = await live.fullTable();
   t.host.socket.emit('table:advice', { hidden: true });
   await t.clients[1].until((s) => s.options.hideAdvice === true);
 });
 
-test('once the server drains, a new message is answered SHUTTING_DOWN and changes nothing', async () => {
-  server = await liveServer();
-  const t = await fullTable(server);
-  clients.push(...t.clients);
+test('once the server drains, a new message is answered SHUTTING_DOWN and changes nothing', async ({ live }) => {
+  const server = await live.start();
+  const t = await live.fullTable();
   await server.io.drain(0);
   expect(await t.host.emit('table:start')).toMatchObject({ ok: false, code: 'SHUTTING_DOWN' });
   expect(t.host.state.phase).toBe('lobby');
