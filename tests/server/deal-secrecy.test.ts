@@ -5,36 +5,26 @@
  */
 import { createHash } from 'node:crypto';
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { createExchange, rackOf, replay } from '../../shared/exchange';
 import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
 import { SEATS, type Seat } from '../../shared/seats';
 import { User } from '../../server/db/models';
-import { Client, client, createTable, liveServer, simpleAction, type Server } from './live';
+import { createTable, liveTest, simpleAction, type Client } from './live';
 
-let server: Server;
-const clients: Client[] = [];
-beforeEach(async () => {
-  server = await liveServer();
-});
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server.close();
-});
-
-async function person(name: string, role: 'player' | 'teacher' | 'admin' = 'player') {
-  const c = await client(server, name);
-  clients.push(c);
-  if (role !== 'player') {
-    await User.update({ role }, { where: { email: `${name.toLowerCase()}@harborlane.test` } });
-    c.socket.disconnect();
-    // A fresh socket reads the new role from the session.
-    const again = await client(server, name, c.cookie);
-    clients.push(again);
-    return again;
-  }
-  return c;
-}
+/** `person` signs someone up with a role and connects them; `replayOf` asks for an exchange's replay as a cookie's owner. */
+const test = liveTest
+  .extend('person', async ({ live }) => async (name: string, role: 'player' | 'teacher' | 'admin' = 'player') => {
+    const c = await live.client(name);
+    if (role !== 'player') {
+      await User.update({ role }, { where: { email: `${name.toLowerCase()}@harborlane.test` } });
+      c.socket.disconnect();
+      // A fresh socket reads the new role from the session.
+      return live.client(name, c.cookie);
+    }
+    return c;
+  })
+  .extend('replayOf', async ({ server }) => (cookie: string, exchangeId: string) => request(server.url).get(`/api/exchanges/${exchangeId}/replay`).set('Cookie', cookie));
 
 const kinds = (rack: { kind: string }[]) => rack.map((t) => t.kind).sort().join(',');
 
@@ -58,11 +48,7 @@ async function playWithBots(host: Client, tableId: string, seat: Seat | null = '
   return dealt;
 }
 
-async function replayOf(cookie: string, exchangeId: string) {
-  return request(server.url).get(`/api/exchanges/${exchangeId}/replay`).set('Cookie', cookie);
-}
-
-test('a player cannot open a table in teaching mode; a teacher can, and every seat is told the host sees every rack', async () => {
+test('a player cannot open a table in teaching mode; a teacher can, and every seat is told the host sees every rack', async ({ server, person }) => {
   const theo = await person('Theo');
   const refused = await request(server.url).post('/api/tables').set('Cookie', theo.cookie).send({ name: 'Peek', options: { teaching: true } });
   expect(refused.status).toBe(403);
@@ -80,7 +66,7 @@ test('a player cannot open a table in teaching mode; a teacher can, and every se
   expect(listed.body.open.find((t: { id: string }) => t.id === table.id).options.teaching).toBe(true);
 });
 
-test('dealing again at a table with a fixed seed deals a new deal, so the finished replay tells nothing of it', async () => {
+test('dealing again at a table with a fixed seed deals a new deal, so the finished replay tells nothing of it', async ({ server, person, replayOf }) => {
   const theo = await person('Theo');
   const table = await createTable(server, theo.cookie, { options: { seed: 'harbor-lane-week-01', secondCharleston: false, courtesy: false } });
   const first = await playWithBots(theo, table.id);
@@ -100,7 +86,7 @@ test('dealing again at a table with a fixed seed deals a new deal, so the finish
   expect(kinds(rackOf(createExchange({ ...old.options, seed: guess }), 'east'))).not.toBe(kinds(second.myRack));
 });
 
-test('a seed name is no key to another table’s deal: the same name elsewhere deals other racks, and a seed comparison never confirms a seed', async () => {
+test('a seed name is no key to another table’s deal: the same name elsewhere deals other racks, and a seed comparison never confirms a seed', async ({ server, person, replayOf }) => {
   const theo = await person('Theo');
   const mina = await person('Mina');
   const live = await createTable(server, theo.cookie, { options: { seed: 'harbor-lane-week-01', secondCharleston: false, courtesy: false } });
@@ -134,7 +120,7 @@ test('a seed name is no key to another table’s deal: the same name elsewhere d
   expect(played.body).toEqual(unknown.body);
 });
 
-test('a replay is withheld while its reader sits at a table still to deal or play the same drill deal', async () => {
+test('a replay is withheld while its reader sits at a table still to deal or play the same drill deal', async ({ server, person, replayOf }) => {
   const ines = await person('Ines', 'teacher');
   const theo = await person('Theo');
   const drill = await request(server.url)

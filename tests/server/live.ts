@@ -117,11 +117,13 @@ export async function fullTable(server: Server, body: object = {}, names = ['Ine
 /**
  * What a live test holds: the servers it started and every socket it opened through the kit. The
  * `live` fixture closes them all after the test (sockets first, then servers, newest first), so a
- * test cannot leave one open. Helpers work on the server started last.
+ * test cannot leave one open. Its helpers work on the server started last, starting one with the
+ * test defaults when there is none.
  */
 export class LiveKit {
   private readonly servers: Server[] = [];
   private readonly sockets: (() => Socket)[] = [];
+  private starting?: Promise<Server>;
 
   /** Starts a server with these config overrides; closing it before the test ends is allowed. */
   async start(overrides: Partial<Config> = {}): Promise<Server> {
@@ -139,6 +141,12 @@ export class LiveKit {
     return latest;
   }
 
+  /** The server started last, or one started now with the test defaults when there is none. */
+  ready(): Promise<Server> {
+    const latest = this.servers.at(-1);
+    return latest ? Promise.resolve(latest) : (this.starting ??= this.start());
+  }
+
   /** Disconnects these clients (their current sockets) after the test. */
   track(...clients: Client[]) {
     for (const c of clients) this.sockets.push(() => c.socket);
@@ -146,7 +154,7 @@ export class LiveKit {
 
   /** Signs up `name` (or uses the cookie given) and connects a socket client. */
   async client(name: string, cookie?: string): Promise<Client> {
-    const c = await client(this.server, name, cookie);
+    const c = await client(await this.ready(), name, cookie);
     this.track(c);
     return c;
   }
@@ -158,13 +166,13 @@ export class LiveKit {
 
   /** A bare signed-in socket, disconnected after the test. */
   async socket(cookie: string): Promise<Socket> {
-    const socket = await openSocket(this.server, cookie);
+    const socket = await openSocket(await this.ready(), cookie);
     this.sockets.push(() => socket);
     return socket;
   }
 
   async fullTable(body: object = {}, names?: string[]) {
-    const t = await fullTable(this.server, body, names);
+    const t = await fullTable(await this.ready(), body, names);
     this.track(...t.clients);
     return t;
   }
@@ -186,7 +194,7 @@ export const liveTest = test
     onCleanup(() => kit.close());
     return kit;
   })
-  .extend('server', async ({ live }) => live.start());
+  .extend('server', async ({ live }) => live.ready());
 
 /** A plain legal choice for a seat from its own latest state: the first non-joker tiles, optional blind. */
 export function simpleAction(state: TableStateDto, opts: { blind?: number; stop?: boolean; ask?: 0 | 1 | 2 | 3 } = {}): Action | null {

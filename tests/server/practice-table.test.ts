@@ -1,20 +1,9 @@
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
-import { Client, client, liveServer, type Server } from './live';
+import { expect } from 'vitest';
+import { liveTest as test } from './live';
 
-let server: Server;
-const clients: Client[] = [];
-beforeEach(async () => {
-  server = await liveServer();
-});
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server.close();
-});
-
-test('a practice table seats the player in east and three bots, and deals at once when the player starts', async () => {
-  const ines = await client(server, 'Ines');
-  clients.push(ines);
+test('a practice table seats the player in east and three bots, and deals at once when the player starts', async ({ live, server }) => {
+  const ines = await live.client('Ines');
   const res = await request(server.url).post('/api/tables/practice').set('Cookie', ines.cookie).send({});
   expect(res.status).toBe(201);
   const table = res.body.table;
@@ -25,8 +14,7 @@ test('a practice table seats the player in east and three bots, and deals at onc
   // It is the player's own table: listed as theirs, never offered to others.
   const mine = await request(server.url).get('/api/tables').set('Cookie', ines.cookie);
   expect(mine.body.mine.map((t: { id: string }) => t.id)).toEqual([table.id]);
-  const sol = await client(server, 'Sol');
-  clients.push(sol);
+  const sol = await live.client('Sol');
   expect((await request(server.url).get('/api/tables').set('Cookie', sol.cookie)).body.open).toEqual([]);
 
   await ines.ok('table:join', { tableId: table.id, as: 'player' });
@@ -36,10 +24,9 @@ test('a practice table seats the player in east and three bots, and deals at onc
   expect(dealt.phase).not.toBe('lobby');
 });
 
-test('a practice table is only for someone signed in, and takes no fields', async () => {
+test('a practice table is only for someone signed in, and takes no fields', async ({ live, server }) => {
   expect((await request(server.url).post('/api/tables/practice').send({})).status).toBe(401);
-  const ines = await client(server, 'Ines');
-  clients.push(ines);
+  const ines = await live.client('Ines');
   const bad = await request(server.url).post('/api/tables/practice').set('Cookie', ines.cookie).send({ seats: { east: 'someone else' } });
   expect(bad.status).toBe(400);
   expect(bad.body.error.code).toBe('BAD_INPUT');

@@ -1,37 +1,29 @@
 import { noEventWriter } from '../../server/db/event-writer';
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { TableRow, User } from '../../server/db/models';
 import { TableMaster } from '../../server/realtime/table-master';
 import { rackOf } from '../../shared/exchange';
 import type { TileKind } from '../../shared/tiles';
-import { Client, client, liveServer, register, type Server } from './live';
+import { liveTest, register } from './live';
 import { smallList } from './teaching-helpers';
 
-let server: Server;
-const clients: Client[] = [];
-beforeEach(async () => {
-  server = await liveServer();
-});
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server.close();
-});
+/** `teacher` signs up a teacher and returns the cookie; `post` sends a body as a cookie's owner. */
+const test = liveTest
+  .extend('teacher', async ({ server }) => async (name: string) => {
+    const cookie = await register(server, name);
+    await User.update({ role: 'teacher' }, { where: { email: `${name.toLowerCase()}@harborlane.test` } });
+    return cookie;
+  })
+  .extend('post', async ({ server }) => (path: string, cookie: string, body: object) => request(server.url).post(path).set('Cookie', cookie).send(body));
 
-async function teacher(name: string) {
-  const cookie = await register(server, name);
-  await User.update({ role: 'teacher' }, { where: { email: `${name.toLowerCase()}@harborlane.test` } });
-  return cookie;
-}
-
-const post = (path: string, cookie: string, body: object) => request(server.url).post(path).set('Cookie', cookie).send(body);
 const sorted = (kinds: readonly TileKind[]) => [...kinds].sort();
 
 // Thirteen tiles for west (a full rack) and six for east; the engine deals the rest from what remains.
 const westRack: TileKind[] = ['crack1', 'crack1', 'crack1', 'crack5', 'crack5', 'crack9', 'wind-w', 'wind-w', 'dragon-red', 'dragon-red', 'flower', 'flower', 'dot7'];
 const eastPreset: TileKind[] = ['bam2', 'bam2', 'dot8', 'dot8', 'flower', 'joker'];
 
-test('a table opened from a drill deals its preset racks, keeps them off the wire, and its bots use its pattern list', async () => {
+test('a table opened from a drill deals its preset racks, keeps them off the wire, and its bots use its pattern list', async ({ live, server, teacher, post }) => {
   const ines = await teacher('Ines');
   const list = (await post('/api/pattern-lists', ines, smallList)).body.list;
   const drill = (await post('/api/drills', ines, { name: 'Harbor Lane week 1', seed: 'harbor-lane-week-01', secondCharleston: false, courtesy: false, racks: { east: eastPreset, west: westRack }, patternListId: list.id })).body.drill;
@@ -44,9 +36,8 @@ test('a table opened from a drill deals its preset racks, keeps them off the wir
     patternListId: list.id, drillId: drill.id, drillName: 'Harbor Lane week 1',
   });
 
-  const host = await client(server, 'Ines', ines);
-  const mina = await client(server, 'Mina');
-  clients.push(host, mina);
+  const host = await live.client('Ines', ines);
+  const mina = await live.client('Mina');
   await host.ok('table:join', { tableId: table.id, as: 'player' });
   await mina.ok('table:join', { tableId: table.id, as: 'player' });
   await host.ok('table:sit', { seat: 'east' });
@@ -79,14 +70,13 @@ test('a table opened from a drill deals its preset racks, keeps them off the wir
   expect(sorted(rackOf(rebuilt.exchange!.state, 'west').map((t) => t.kind))).toEqual(sorted(rackOf(master.exchange!.state, 'west').map((t) => t.kind)));
 });
 
-test('the same drill deals the same racks at two tables', async () => {
+test('the same drill deals the same racks at two tables', async ({ live, teacher, post }) => {
   const ines = await teacher('Ines');
   const drill = (await post('/api/drills', ines, { name: 'Same deal', seed: 'harbor-lane-week-02', racks: { east: eastPreset } })).body.drill;
   const racks: string[][] = [];
   for (const name of ['Table one', 'Table two']) {
     const table = (await post('/api/tables', ines, { name, drillId: drill.id })).body.table;
-    const host = await client(server, 'Ines', ines);
-    clients.push(host);
+    const host = await live.client('Ines', ines);
     await host.ok('table:join', { tableId: table.id, as: 'player' });
     await host.ok('table:sit', { seat: 'east' });
     for (const seat of ['south', 'west', 'north']) await host.ok('table:bot', { seat, strategy: 'random' });
@@ -96,7 +86,7 @@ test('the same drill deals the same racks at two tables', async () => {
   expect(racks[0]).toEqual(racks[1]);
 });
 
-test('only the teacher who owns a drill opens a table from it; a table picks only its host’s own lists', async () => {
+test('only the teacher who owns a drill opens a table from it; a table picks only its host’s own lists', async ({ server, teacher, post }) => {
   const ines = await teacher('Ines');
   const pat = await teacher('Pat');
   const theo = await register(server, 'Theo');

@@ -1,34 +1,20 @@
 import fc from 'fast-check';
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { clientEventSchemas } from '../../shared/protocol';
-import { client, Client, createTable, fullTable, liveServer, simpleAction, type Server } from './live';
+import { createTable, liveTest, simpleAction } from './live';
 
-let server: Server;
-const clients: Client[] = [];
-beforeEach(async () => {
-  server = await liveServer();
-});
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server.close();
-});
+/** `started` seats four and deals, waiting for every seat's first pass; `person` signs someone up and connects them. */
+const test = liveTest
+  .extend('started', async ({ live }) => async () => {
+    const t = await live.fullTable();
+    await t.host.ok('table:start');
+    await Promise.all(t.clients.map((c) => c.until((s) => s.phase === 'first-right')));
+    return t;
+  })
+  .extend('person', async ({ live }) => (name: string) => live.client(name));
 
-async function started() {
-  const t = await fullTable(server);
-  clients.push(...t.clients);
-  await t.host.ok('table:start');
-  await Promise.all(t.clients.map((c) => c.until((s) => s.phase === 'first-right')));
-  return t;
-}
-
-async function person(name: string) {
-  const c = await client(server, name);
-  clients.push(c);
-  return c;
-}
-
-test('a malformed payload gets BAD_INPUT and changes nothing', async () => {
+test('a malformed payload gets BAD_INPUT and changes nothing', async ({ started }) => {
   const { clients: [, theo] } = await started();
   const version = theo.state.version;
   for (const payload of [{ action: { type: 'pass', tiles: 'abc' } }, { action: { type: 'fly' } }, 'just a string', 42, { action: { type: 'pass', tiles: ['a', 'b', 'c', 'd'] } }]) {
@@ -39,7 +25,7 @@ test('a malformed payload gets BAD_INPUT and changes nothing', async () => {
   expect(theo.state.version).toBe(version);
 });
 
-test('an engine rule error comes back with its rule code', async () => {
+test('an engine rule error comes back with its rule code', async ({ started }) => {
   const { clients: [ines] } = await started();
   const rack = ines.state.myRack;
   const ack = await ines.emit('exchange:act', { action: { type: 'pass', tiles: rack.slice(0, 2).map((t) => t.id) } });
@@ -48,7 +34,7 @@ test('an engine rule error comes back with its rule code', async () => {
   expect(blind).toMatchObject({ ok: false, code: 'BLIND_NOT_ALLOWED' });
 });
 
-test('acting without a seat is refused', async () => {
+test('acting without a seat is refused', async ({ started, person }) => {
   const { table } = await started();
   const sol = await person('Sol');
   await sol.ok('table:join', { tableId: table.id, as: 'spectator' });
@@ -56,7 +42,7 @@ test('acting without a seat is refused', async () => {
   expect(ack).toMatchObject({ ok: false, code: 'NOT_SEATED' });
 });
 
-test('no one can act for a seat that is not theirs: a seat field is refused, and actions land on your own seat', async () => {
+test('no one can act for a seat that is not theirs: a seat field is refused, and actions land on your own seat', async ({ started }) => {
   const { clients: [, theo, mina] } = await started();
   const ack = await theo.emit('exchange:act', { action: simpleAction(theo.state), seat: 'west' });
   expect(ack).toMatchObject({ ok: false, code: 'BAD_INPUT' });
@@ -68,7 +54,7 @@ test('no one can act for a seat that is not theirs: a seat field is refused, and
   expect(s.seats.west.committed).toBe(false);
 });
 
-test('a non-host gets NOT_HOST for every host event', async () => {
+test('a non-host gets NOT_HOST for every host event', async ({ started }) => {
   const { clients: [, theo] } = await started();
   for (const [event, payload] of [
     ['table:bot', { seat: 'north', strategy: 'random' }],
@@ -83,7 +69,7 @@ test('a non-host gets NOT_HOST for every host event', async () => {
   }
 });
 
-test('a private table needs its invite, over the socket and over REST', async () => {
+test('a private table needs its invite, over the socket and over REST', async ({ server, person }) => {
   const ines = await person('Ines');
   const theo = await person('Theo');
   const t = await createTable(server, ines.cookie, { private: true });
@@ -99,7 +85,7 @@ test('a private table needs its invite, over the socket and over REST', async ()
   expect(open.body.open.map((x: { id: string }) => x.id)).not.toContain(t.id);
 });
 
-test('starting with an empty seat is refused and says which', async () => {
+test('starting with an empty seat is refused and says which', async ({ server, person }) => {
   const ines = await person('Ines');
   const t = await createTable(server, ines.cookie);
   await ines.ok('table:join', { tableId: t.id, as: 'player' });
@@ -109,7 +95,7 @@ test('starting with an empty seat is refused and says which', async () => {
   expect(ack.message).toMatch(/south, west, north/);
 });
 
-test('talking before sign-in is impossible; talking before joining gets NOT_JOINED', async () => {
+test('talking before sign-in is impossible; talking before joining gets NOT_JOINED', async ({ server, person }) => {
   const theo = await person('Theo');
   expect(await theo.emit('chat:send', { text: 'hello?' })).toMatchObject({ ok: false, code: 'NOT_JOINED' });
   expect(await theo.emit('exchange:act', { action: { type: 'withdraw' } })).toMatchObject({ ok: false, code: 'NOT_JOINED' });
@@ -117,10 +103,9 @@ test('talking before sign-in is impossible; talking before joining gets NOT_JOIN
   expect(res.status).toBe(401);
 });
 
-test('a taken seat cannot be taken, and a seated player cannot be replaced by a bot while here', async () => {
+test('a taken seat cannot be taken, and a seated player cannot be replaced by a bot while here', async ({ live }) => {
   const { host, clients: [, theo], table } = await (async () => {
-    const t = await fullTable(server);
-    clients.push(...t.clients);
+    const t = await live.fullTable();
     return t;
   })();
   expect(await theo.emit('table:sit', { seat: 'east' })).toMatchObject({ ok: false, code: 'SEAT_TAKEN' });
@@ -128,7 +113,7 @@ test('a taken seat cannot be taken, and a seated player cannot be replaced by a 
   expect(table.id).toBeTruthy();
 });
 
-test('the host replaces a player who left mid-exchange with a bot, and the bot plays on', async () => {
+test('the host replaces a player who left mid-exchange with a bot, and the bot plays on', async ({ started }) => {
   const { host, clients: cs } = await started();
   const ruth = cs[3];
   ruth.socket.disconnect();
@@ -137,7 +122,7 @@ test('the host replaces a player who left mid-exchange with a bot, and the bot p
   await host.until((s) => s.seats.north.committed);
 });
 
-test('chat reaches everyone at the table with the sender and seat', async () => {
+test('chat reaches everyone at the table with the sender and seat', async ({ started }) => {
   const { clients: cs } = await started();
   await cs[1].ok('chat:send', { text: 'Passing my flowers?' });
   for (const c of cs) await expect.poll(() => c.chats.length).toBe(1);
@@ -145,12 +130,12 @@ test('chat reaches everyone at the table with the sender and seat', async () => 
   expect((await cs[1].emit('chat:send', { text: 'x'.repeat(501) })).code).toBe('BAD_INPUT');
 });
 
-test('an unknown event gets UNKNOWN_EVENT', async () => {
+test('an unknown event gets UNKNOWN_EVENT', async ({ person }) => {
   const theo = await person('Theo');
   expect(await theo.emit('table:explode', {})).toMatchObject({ ok: false, code: 'UNKNOWN_EVENT' });
 });
 
-test('random payloads of random shapes on every client event never crash the server or change the table', async () => {
+test('random payloads of random shapes on every client event never crash the server or change the table', async ({ server, started, person }) => {
   const { table, clients: cs } = await started();
   const sol = await person('Sol');
   await sol.ok('table:join', { tableId: table.id, as: 'spectator' });
@@ -181,11 +166,10 @@ test('random payloads of random shapes on every client event never crash the ser
   expect(stored.body.table.status).toBe('playing');
 });
 
-test('a second tab or a reconnect of the same person gets that seat back, rack and all', async () => {
+test('a second tab or a reconnect of the same person gets that seat back, rack and all', async ({ live, started }) => {
   const { table, clients: cs } = await started();
   const theo = cs[1];
-  const tab = new Client('Theo tab 2', theo.cookie, await (await import('./live')).openSocket(server, theo.cookie));
-  clients.push(tab);
+  const tab = await live.reconnect({ name: 'Theo tab 2', cookie: theo.cookie });
   await tab.ok('table:join', { tableId: table.id, as: 'player' });
   expect(tab.state.mySeat).toBe('south');
   expect(tab.state.myRack).toEqual(theo.state.myRack);
@@ -193,7 +177,7 @@ test('a second tab or a reconnect of the same person gets that seat back, rack a
   await theo.until((s) => s.seats.south.committed);
 });
 
-test('the host hides and shows the advice mid-exchange; everyone sees the change', async () => {
+test('the host hides and shows the advice mid-exchange; everyone sees the change', async ({ started }) => {
   const { host, clients: cs } = await started();
   await host.ok('table:advice', { hidden: true });
   for (const c of cs) await c.until((s) => s.options.hideAdvice === true);
@@ -201,7 +185,7 @@ test('the host hides and shows the advice mid-exchange; everyone sees the change
   for (const c of cs) await c.until((s) => s.options.hideAdvice === false);
 });
 
-test('leaving a table stops its states and frees the presence', async () => {
+test('leaving a table stops its states and frees the presence', async ({ started }) => {
   const { table, clients: cs } = await started();
   const theo = cs[1];
   await theo.ok('table:leave');
@@ -216,7 +200,7 @@ test('leaving a table stops its states and frees the presence', async () => {
   expect(theo.state.mySeat).toBe('south');
 });
 
-test('two bots of one strategy get names that tell them apart', async () => {
+test('two bots of one strategy get names that tell them apart', async ({ server, person }) => {
   const ines = await person('Ines');
   const t = await createTable(server, ines.cookie);
   await ines.ok('table:join', { tableId: t.id, as: 'player' });
@@ -226,7 +210,7 @@ test('two bots of one strategy get names that tell them apart', async () => {
   expect(new Set(names).size).toBe(2);
 });
 
-test('a pass sent with the version of the current step is taken even if others committed since; one from an earlier step is stale', async () => {
+test('a pass sent with the version of the current step is taken even if others committed since; one from an earlier step is stale', async ({ started }) => {
   const { clients: cs } = await started();
   const [ines, theo, mina] = cs;
   const seenAtStep = theo.state.version;

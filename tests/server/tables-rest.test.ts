@@ -1,19 +1,9 @@
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { User } from '../../server/db/models';
-import { Client, client, createTable, fullTable, liveServer, register, type Server } from './live';
+import { createTable, liveTest as test, register } from './live';
 
-let server: Server;
-const clients: Client[] = [];
-beforeEach(async () => {
-  server = await liveServer();
-});
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server.close();
-});
-
-test('creating a table checks every field and stores the options', async () => {
+test('creating a table checks every field and stores the options', async ({ server }) => {
   const cookie = await register(server, 'Ines');
   await User.update({ role: 'teacher' }, { where: { email: 'ines@harborlane.test' } });
   const bad = await request(server.url).post('/api/tables').set('Cookie', cookie).send({ name: '', options: { seed: 'x'.repeat(200), jokers: 'yes', colour: 'red' } });
@@ -34,7 +24,7 @@ test('creating a table checks every field and stores the options', async () => {
   });
 });
 
-test('my tables and open tables are listed apart; an unknown table is 404', async () => {
+test('my tables and open tables are listed apart; an unknown table is 404', async ({ server }) => {
   const ines = await register(server, 'Ines');
   const theo = await register(server, 'Theo');
   const a = await createTable(server, ines, { name: 'Ines open' });
@@ -46,26 +36,22 @@ test('my tables and open tables are listed apart; an unknown table is 404', asyn
   expect((await request(server.url).get('/api/tables')).status).toBe(401);
 });
 
-test('a replay opens only when the exchange is done, and only to its players, its host and admins', async () => {
-  const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } });
-  clients.push(...t.clients);
+test('a replay opens only when the exchange is done, and only to its players, its host and admins', async ({ live, server }) => {
+  const t = await live.fullTable({ options: { secondCharleston: false, courtesy: false } });
   await t.host.ok('table:start');
   const exchangeId = (await t.host.until((s) => s.exchangeId !== null)).exchangeId!;
   const early = await request(server.url).get(`/api/exchanges/${exchangeId}/replay`).set('Cookie', t.host.cookie);
   expect(early.status).toBe(409);
   expect(early.body.error.code).toBe('NOT_FINISHED');
-  const outsider = await client(server, 'Sol');
-  clients.push(outsider);
+  const outsider = await live.client('Sol');
   expect((await request(server.url).get(`/api/exchanges/${exchangeId}/replay`).set('Cookie', outsider.cookie)).status).toBe(403);
   expect((await request(server.url).get('/api/exchanges').set('Cookie', outsider.cookie)).body.exchanges).toEqual([]);
   expect((await request(server.url).get('/api/exchanges/none/replay').set('Cookie', outsider.cookie)).status).toBe(404);
 });
 
-test('finished tables leave the open list; a host closes a table, which leaves every list and refuses joins', async () => {
-  const t = await fullTable(server, { options: { secondCharleston: false, courtesy: false } });
-  clients.push(...t.clients);
-  const sol = await client(server, 'Sol');
-  clients.push(sol);
+test('finished tables leave the open list; a host closes a table, which leaves every list and refuses joins', async ({ live, server }) => {
+  const t = await live.fullTable({ options: { secondCharleston: false, courtesy: false } });
+  const sol = await live.client('Sol');
   const open = async () => (await request(server.url).get('/api/tables').set('Cookie', sol.cookie)).body.open.map((x: { id: string }) => x.id);
   expect(await open()).toContain(t.table.id);
   await t.host.ok('table:start');
