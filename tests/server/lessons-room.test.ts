@@ -1,16 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { DrillRow, ExchangeRow, TableRow, User } from '../../server/db/models';
 import { STARTER_LIST_ID } from '../../shared/pattern-lists';
-import { client, liveServer, register, type Server } from './live';
+import { liveTest as test, register, type Server } from './live';
 import { lessonBody, linkIn, mailsTo } from './lesson-helpers';
-
-let server: Server | undefined;
-afterEach(async () => {
-  await server?.close();
-  server = undefined;
-});
 
 async function teacher(s: Server, name: string) {
   const cookie = await register(s, name);
@@ -35,9 +29,7 @@ async function lessonWith(s: Server, teacherCookie: string, names: string[], ext
   return { id, cookies };
 }
 
-test('the lesson room: students split over tables, bots in the gaps, one seed everywhere, the teacher in every huddle', async () => {
-  server = await liveServer();
-  const s = server;
+test('the lesson room: students split over tables, bots in the gaps, one seed everywhere, the teacher in every huddle', async ({ live, server: s }) => {
   const ines = await teacher(s, 'Ines');
   const students = ['Theo', 'Mina', 'Ruth', 'Sol', 'Ada'];
   const { id, cookies } = await lessonWith(s, ines, students);
@@ -85,10 +77,10 @@ test('the lesson room: students split over tables, bots in the gaps, one seed ev
   expect(exchanges[0].options.seed).not.toBe('harbor-lane-week-01');
 
   // Theo plays at his table; Ines steps into its huddle, and Theo sees the pass held.
-  const theo = await client(s, 'Theo', cookies.Theo);
+  const theo = await live.client('Theo', cookies.Theo);
   const joined = await theo.ok('table:join', { tableId: tables[0].id, as: 'player' });
   expect((joined.state as { mySeat: string }).mySeat).toBe('east');
-  const host = await client(s, 'Ines', ines);
+  const host = await live.client('Ines', ines);
   await host.ok('table:join', { tableId: tables[0].id, as: 'spectator' });
   await host.ok('huddle:call');
   await theo.until((st) => st.huddle.open);
@@ -97,13 +89,9 @@ test('the lesson room: students split over tables, bots in the gaps, one seed ev
   await host.ok('huddle:call');
   // Theo cannot walk into the other table.
   expect((await theo.emit('table:join', { tableId: tables[1].id, as: 'player' })).code).toBe('INVITE_REQUIRED');
-  theo.socket.close();
-  host.socket.close();
 });
 
-test('a lesson played from a drill deals the drill at every table', async () => {
-  server = await liveServer();
-  const s = server;
+test('a lesson played from a drill deals the drill at every table', async ({ server: s }) => {
   const ines = await teacher(s, 'Ines');
   const inesId = (await User.findOne({ where: { email: 'ines@harborlane.test' } }))!.id;
   const drill = await DrillRow.create({

@@ -1,5 +1,8 @@
 /** Helpers for live-table tests: a real server on port 0 and real signed-in socket.io clients. */
+import { mkdtempSync, rmSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { io as connect, type Socket } from 'socket.io-client';
 import request from 'supertest';
 import { expect, test } from 'vitest';
@@ -115,14 +118,15 @@ export async function fullTable(server: Server, body: object = {}, names = ['Ine
 }
 
 /**
- * What a live test holds: the servers it started and every socket it opened through the kit. The
- * `live` fixture closes them all after the test (sockets first, then servers, newest first), so a
- * test cannot leave one open. Its helpers work on the server started last, starting one with the
+ * What a live test holds: the servers it started, every socket it opened and every temporary folder
+ * it made through the kit. The `live` fixture closes them all after the test (sockets, then
+ * servers, newest first, then folders), so a test cannot leave one behind. Its helpers work on the server started last, starting one with the
  * test defaults when there is none.
  */
 export class LiveKit {
   private readonly servers: Server[] = [];
   private readonly sockets: (() => Socket)[] = [];
+  private readonly dirs: string[] = [];
   private starting?: Promise<Server>;
 
   /** Starts a server with these config overrides; closing it before the test ends is allowed. */
@@ -177,9 +181,17 @@ export class LiveKit {
     return t;
   }
 
+  /** A fresh temporary folder (for a database file), removed after the test. */
+  tempDir(prefix: string): string {
+    const dir = mkdtempSync(join(tmpdir(), prefix));
+    this.dirs.push(dir);
+    return dir;
+  }
+
   async close() {
     this.sockets.splice(0).forEach((socket) => socket().disconnect());
     for (const server of this.servers.splice(0).reverse()) await server.close();
+    this.dirs.splice(0).forEach((dir) => rmSync(dir, { recursive: true, force: true }));
   }
 }
 

@@ -5,19 +5,13 @@
  */
 import { UniqueConstraintError } from 'sequelize';
 import request from 'supertest';
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { openDatabase } from '../../server/db';
 import { migrate, migrator } from '../../server/db/migrate';
 import { Enrollment, Mail, Payment } from '../../server/db/models';
-import { liveServer, type Server } from './live';
+import { liveTest as test, type Server } from './live';
 import { mailsTo } from './lesson-helpers';
 import { checkout, endHold, lessonSeen, outcome, pricedLesson, sessionOf } from './payment-helpers';
-
-let server: Server | undefined;
-afterEach(async () => {
-  await server?.close();
-  server = undefined;
-});
 
 /** Starts a checkout, lets its hold run out, and starts a second one; `before` runs in between. */
 async function twoCheckouts(s: Server, cookie: string, lessonId: number, before?: (firstSession: string) => Promise<unknown>) {
@@ -43,9 +37,7 @@ async function expectOneSeat(s: Server, cookie: string, lessonId: number, email:
   expect(await lessonSeen(s, cookie, lessonId)).toMatchObject({ myStatus: 'paid', seatsTaken: 1 });
 }
 
-test('a new checkout expires the one it replaces at the payment service, so the old page takes no money', async () => {
-  server = await liveServer();
-  const s = server;
+test('a new checkout expires the one it replaces at the payment service, so the old page takes no money', async ({ server: s }) => {
   const fake = s.fakes.payments!;
   const { lessonId, cookies } = await pricedLesson(s, ['Theo'], 2);
   const { first, firstSession, secondSession } = await twoCheckouts(s, cookies.Theo, lessonId);
@@ -64,9 +56,7 @@ test('a new checkout expires the one it replaces at the payment service, so the 
   expect(fake.refunds).toEqual([]);
 });
 
-test('both checkouts paid, the older payment heard of late: the seat is paid once and the late payment refunded', async () => {
-  server = await liveServer();
-  const s = server;
+test('both checkouts paid, the older payment heard of late: the seat is paid once and the late payment refunded', async ({ server: s }) => {
   const fake = s.fakes.payments!;
   const { lessonId, cookies } = await pricedLesson(s, ['Theo'], 2);
   // The first is paid on the service's page, but its event is slow to come: too late to expire it.
@@ -97,9 +87,7 @@ test('both checkouts paid, the older payment heard of late: the seat is paid onc
   await expectOneSeat(s, cookies.Theo, lessonId, 'theo@harborlane.test');
 });
 
-test('a payment made after the seat is already paid is refunded, and the seat counts once meanwhile', async () => {
-  server = await liveServer();
-  const s = server;
+test('a payment made after the seat is already paid is refunded, and the seat counts once meanwhile', async ({ server: s }) => {
   const fake = s.fakes.payments!;
   const { lessonId, cookies } = await pricedLesson(s, ['Theo'], 2);
   // The service cannot be reached to expire anything, so both checkout pages stay open.
@@ -119,9 +107,7 @@ test('a payment made after the seat is already paid is refunded, and the seat co
   await expectOneSeat(s, cookies.Theo, lessonId, 'theo@harborlane.test');
 });
 
-test('when the refund cannot be made it stays due, and the student is told it is on its way', async () => {
-  server = await liveServer();
-  const s = server;
+test('when the refund cannot be made it stays due, and the student is told it is on its way', async ({ server: s }) => {
   const fake = s.fakes.payments!;
   const { lessonId, cookies } = await pricedLesson(s, ['Theo'], 2);
   fake.outage.add('expire');
@@ -135,9 +121,7 @@ test('when the refund cannot be made it stays due, and the student is told it is
   await expectOneSeat(s, cookies.Theo, lessonId, 'theo@harborlane.test');
 });
 
-test('completed and expired events in either order leave one paid seat and the right count', async () => {
-  server = await liveServer();
-  const s = server;
+test('completed and expired events in either order leave one paid seat and the right count', async ({ server: s }) => {
   const fake = s.fakes.payments!;
   const { lessonId, cookies } = await pricedLesson(s, ['Theo', 'Mina'], 3);
   fake.holdDeliveries = true;
@@ -164,9 +148,7 @@ test('completed and expired events in either order leave one paid seat and the r
   expect(fake.refunds).toEqual([]);
 });
 
-test('two completed payments for one seat reach the webhook at the same instant: one paid, one refunded', async () => {
-  server = await liveServer();
-  const s = server;
+test('two completed payments for one seat reach the webhook at the same instant: one paid, one refunded', async ({ server: s }) => {
   const fake = s.fakes.payments!;
   const { lessonId, cookies } = await pricedLesson(s, ['Theo', 'Mina'], 2);
   let firstEvent = '';
@@ -195,9 +177,7 @@ test('two completed payments for one seat reach the webhook at the same instant:
   expect(await lessonSeen(s, cookies.Mina, lessonId)).toMatchObject({ myStatus: 'paid', seatsTaken: 2 });
 });
 
-test('two checkouts started at the same instant by one student leave one open checkout page', async () => {
-  server = await liveServer();
-  const s = server;
+test('two checkouts started at the same instant by one student leave one open checkout page', async ({ server: s }) => {
   const fake = s.fakes.payments!;
   const { lessonId, cookies } = await pricedLesson(s, ['Theo'], 2);
   const both = await Promise.all([checkout(s, cookies.Theo, lessonId), checkout(s, cookies.Theo, lessonId)]);

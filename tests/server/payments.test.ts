@@ -1,21 +1,13 @@
 import Stripe from 'stripe';
 import request from 'supertest';
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { LOCAL_WEBHOOK_SECRET } from '../../server/config';
 import { Enrollment, Mail, Payment, PaymentEvent, User } from '../../server/db/models';
-import { liveServer, type Server } from './live';
+import { liveTest as test } from './live';
 import { lessonBody, mailsTo } from './lesson-helpers';
 import { account, checkout, pricedLesson } from './payment-helpers';
 
-let server: Server | undefined;
-afterEach(async () => {
-  await server?.close();
-  server = undefined;
-});
-
-test('a seat is paid through the SDK and the fake checkout page; a repeated webhook pays it once', async () => {
-  server = await liveServer();
-  const s = server;
+test('a seat is paid through the SDK and the fake checkout page; a repeated webhook pays it once', async ({ server: s }) => {
   const { lessonId, cookies } = await pricedLesson(s, ['Theo'], 2);
   const started = await checkout(s, cookies.Theo, lessonId);
   expect(started.status).toBe(201);
@@ -57,9 +49,7 @@ test('a seat is paid through the SDK and the fake checkout page; a repeated webh
   expect((await checkout(s, cookies.Theo, lessonId)).body.error.code).toBe('ALREADY_PAID');
 });
 
-test('an unsigned, forged, altered or stale webhook is refused and changes nothing', async () => {
-  server = await liveServer();
-  const s = server;
+test('an unsigned, forged, altered or stale webhook is refused and changes nothing', async ({ server: s }) => {
   const { lessonId, cookies } = await pricedLesson(s, ['Mina'], 2);
   const started = await checkout(s, cookies.Mina, lessonId);
   const payment = (await Payment.findByPk(started.body.paymentId))!;
@@ -92,9 +82,7 @@ test('an unsigned, forged, altered or stale webhook is refused and changes nothi
   expect(accepted.body).toEqual({ received: true, outcome: 'paid' });
 });
 
-test('two students start checkout for the last seat at once: one gets it, the other is told it is taken', async () => {
-  server = await liveServer();
-  const s = server;
+test('two students start checkout for the last seat at once: one gets it, the other is told it is taken', async ({ server: s }) => {
   const { lessonId, cookies } = await pricedLesson(s, ['Theo', 'Mina'], 1);
   const [a, b] = await Promise.all([checkout(s, cookies.Theo, lessonId), checkout(s, cookies.Mina, lessonId)]);
   expect([a.status, b.status].sort()).toEqual([201, 409]);
@@ -104,10 +92,9 @@ test('two students start checkout for the last seat at once: one gets it, the ot
   expect(s.fakes.payments!.sessions.size).toBe(1);
 });
 
-test('two payments for the last seat land at once: exactly one seat is sold, the other is refunded', async () => {
+test('two payments for the last seat land at once: exactly one seat is sold, the other is refunded', async ({ live }) => {
   // No hold, so both checkouts open, as when holds ran out while both students were on the payment page.
-  server = await liveServer({ seatHoldMs: 0 });
-  const s = server;
+  const s = await live.start({ seatHoldMs: 0 });
   const { lessonId, cookies } = await pricedLesson(s, ['Theo', 'Mina'], 1);
   const a = await checkout(s, cookies.Theo, lessonId);
   const b = await checkout(s, cookies.Mina, lessonId);
@@ -128,9 +115,7 @@ test('two payments for the last seat land at once: exactly one seat is sold, the
   expect((await mailsTo(loser.email, 'refund'))[0].subject).toMatch(/Refund for/);
 });
 
-test('the checkout form and receipts: bad input, the wrong student, a free lesson', async () => {
-  server = await liveServer();
-  const s = server;
+test('the checkout form and receipts: bad input, the wrong student, a free lesson', async ({ server: s }) => {
   const { ines, lessonId, cookies } = await pricedLesson(s, ['Theo'], 3);
   const sol = await account(s, 'Sol');
   expect((await request(s.url).post('/api/payments/checkout').set('Cookie', sol).send({})).body.error.fields.lessonId).toMatch(/Name the lesson/);

@@ -1,29 +1,15 @@
 /** One table whose stored log no longer applies does not keep the server, or any other table, from starting. */
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { ExchangeEventRow } from '../../server/db/models';
-import { Client, fullTable, liveServer, openSocket, simpleAction, type Server } from './live';
+import { liveTest as test, simpleAction } from './live';
 
-let server: Server | undefined;
-const clients: Client[] = [];
-const dirs: string[] = [];
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-  dirs.splice(0).forEach((d) => rmSync(d, { recursive: true, force: true }));
-});
-
-test('a table with a broken log is logged and closed to its players with a clear error; the server starts and the other tables play on', async () => {
-  const dir = mkdtempSync(join(tmpdir(), 'rackside-restore-'));
-  dirs.push(dir);
+test('a table with a broken log is logged and closed to its players with a clear error; the server starts and the other tables play on', async ({ live }) => {
+  const dir = live.tempDir('rackside-restore-');
   const databaseUrl = `sqlite:${join(dir, 'restore.sqlite')}`;
-  server = await liveServer({ databaseUrl, sessionSecret: 'same-secret' });
-  const broken = await fullTable(server, {}, ['Ines', 'Theo', 'Mina', 'Ruth']);
-  const fine = await fullTable(server, {}, ['Sol', 'Pat', 'Nadia', 'Omar']);
-  clients.push(...broken.clients, ...fine.clients);
+  const server = await live.start({ databaseUrl, sessionSecret: 'same-secret' });
+  const broken = await live.fullTable({}, ['Ines', 'Theo', 'Mina', 'Ruth']);
+  const fine = await live.fullTable({}, ['Sol', 'Pat', 'Nadia', 'Omar']);
   for (const t of [broken, fine]) {
     await t.host.ok('table:start');
     await t.host.until((s) => s.phase === 'first-right');
@@ -31,19 +17,17 @@ test('a table with a broken log is logged and closed to its players with a clear
     await t.host.ok('exchange:act', { action });
   }
   const exchangeId = broken.host.state.exchangeId!;
-  clients.splice(0).forEach((c) => c.socket.disconnect());
+  [...broken.clients, ...fine.clients].forEach((c) => c.socket.disconnect());
   await server.close();
-  server = undefined;
 
   // The stored pass now names a tile the seat never held.
-  const reopened = await liveServer({ databaseUrl, sessionSecret: 'same-secret', port: 0 });
+  const reopened = await live.start({ databaseUrl, sessionSecret: 'same-secret', port: 0 });
   await ExchangeEventRow.update({ payload: { type: 'pass', tiles: ['no-such-tile', 'x', 'y'] } }, { where: { exchangeId, seq: 0 } });
   await reopened.close();
 
-  server = await liveServer({ databaseUrl, sessionSecret: 'same-secret' });
-  const ines = new Client('Ines', broken.host.cookie, await openSocket(server, broken.host.cookie));
-  const sol = new Client('Sol', fine.host.cookie, await openSocket(server, fine.host.cookie));
-  clients.push(ines, sol);
+  await live.start({ databaseUrl, sessionSecret: 'same-secret' });
+  const ines = await live.reconnect({ name: 'Ines', cookie: broken.host.cookie });
+  const sol = await live.reconnect({ name: 'Sol', cookie: fine.host.cookie });
   const refused = await ines.emit('table:join', { tableId: broken.table.id, as: 'player' });
   expect(refused).toMatchObject({ ok: false, code: 'TABLE_BROKEN' });
   expect(refused.message).toMatch(/could not be restored/);
