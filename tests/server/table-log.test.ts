@@ -1,35 +1,17 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { ExchangeEventRow } from '../../server/db/models';
 import type { TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
-import { fullTable, liveServer, simpleAction, type Client, type Server } from './live';
+import { liveTest, simpleAction } from './live';
 
-let server: Server | undefined;
-let clients: Client[] = [];
-let dir: string | undefined;
-afterEach(async () => {
-  clients.forEach((c) => c.socket.disconnect());
-  clients = [];
-  await server?.close();
-  server = undefined;
-  if (dir) rmSync(dir, { recursive: true, force: true });
-  dir = undefined;
-});
-
-async function fileServer() {
-  dir = mkdtempSync(join(tmpdir(), 'rackside-table-log-'));
-  return liveServer({ databaseUrl: `sqlite:${join(dir, 'rackside.sqlite')}` });
-}
+/** Every test here has a live server on a database file of its own, removed after the test. */
+const test = liveTest.extend('fileServer', { auto: true }, async ({ live }) => live.start({ databaseUrl: `sqlite:${join(live.tempDir('rackside-table-log-'), 'rackside.sqlite')}` }));
 
 const inPhase = (phase: string) => (s: TableStateDto) => s.phase === phase;
 
-test('on a file database, four players finish an exchange; every acked move is in the log, in order, with no gaps', async () => {
-  server = await fileServer();
-  const { clients: four, host } = await fullTable(server);
-  clients = four;
+test('on a file database, four players finish an exchange; every acked move is in the log, in order, with no gaps', async ({ live }) => {
+  const { clients: four, host } = await live.fullTable();
   await host.ok('table:start');
   for (let turn = 0; turn < 12; turn++) {
     const states = await Promise.all(four.map((c) => c.until((s) => s.phase === 'done' || (s.view !== null && simpleAction(s, { ask: 1 }) !== null))));
@@ -51,10 +33,8 @@ test('on a file database, four players finish an exchange; every acked move is i
   expect(events.at(-1)!.type).toBe('resolve');
 });
 
-test('when another writer took the next place in the log, the table reads its log again and the move is tried once more', async () => {
-  server = await fileServer();
-  const { clients: four, host } = await fullTable(server);
-  clients = four;
+test('when another writer took the next place in the log, the table reads its log again and the move is tried once more', async ({ live }) => {
+  const { clients: four, host } = await live.fullTable();
   await host.ok('table:start');
   const [east, south] = four;
   const southState = await south.until(inPhase('first-right'));
@@ -78,10 +58,8 @@ test('when another writer took the next place in the log, the table reads its lo
   expect(again).toMatchObject({ ok: false, code: 'ALREADY_COMMITTED' });
 });
 
-test('when the log cannot take a move, it is refused, nobody is shown it, versions never go back, and the table goes on', async () => {
-  server = await fileServer();
-  const { clients: four, host } = await fullTable(server);
-  clients = four;
+test('when the log cannot take a move, it is refused, nobody is shown it, versions never go back, and the table goes on', async ({ live }) => {
+  const { clients: four, host } = await live.fullTable();
   await host.ok('table:start');
   const states = await Promise.all(four.map((c) => c.until(inPhase('first-right'))));
   const sequelize = ExchangeEventRow.sequelize!;

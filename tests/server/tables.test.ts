@@ -1,31 +1,12 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { replay } from '../../shared/exchange';
 import type { Phase } from '../../shared/exchange/types';
 import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
 import { ExchangeEventRow } from '../../server/db/models';
-import { client, Client, createTable, fullTable, liveServer, openSocket, simpleAction, type Server } from './live';
-
-let server: Server | undefined;
-const dirs: string[] = [];
-const clients: Client[] = [];
-
-afterEach(async () => {
-  clients.splice(0).forEach((c) => c.socket.disconnect());
-  await server?.close();
-  server = undefined;
-  dirs.splice(0).forEach((d) => rmSync(d, { recursive: true, force: true }));
-});
-
-async function table(body: object = {}) {
-  const t = await fullTable(server!, body);
-  clients.push(...t.clients);
-  return t;
-}
+import { createTable, liveTest as test, simpleAction, type Client } from './live';
 
 /** Every seated client makes its plain choice for the current step; resolves when all have acked. */
 async function everyoneActs(cs: Client[], opts: Parameters<typeof simpleAction>[1] = {}) {
@@ -39,9 +20,8 @@ async function everyoneActs(cs: Client[], opts: Parameters<typeof simpleAction>[
 
 const inPhase = (phase: Phase | 'lobby') => (s: TableStateDto) => s.phase === phase;
 
-test('a whole exchange: both Charlestons with blind passes, a courtesy pass, then a replay that matches what each seat saw', async () => {
-  server = await liveServer();
-  const { host, clients: cs, table: t } = await table({ options: { seed: 'harbor-lane-week-01' } });
+test('a whole exchange: both Charlestons with blind passes, a courtesy pass, then a replay that matches what each seat saw', async ({ live, server }) => {
+  const { host, clients: cs, table: t } = await live.fullTable({ options: { seed: 'harbor-lane-week-01' } });
   await host.ok('table:start');
   const order: Phase[] = ['first-right', 'first-across', 'first-left', 'vote', 'second-left', 'second-across', 'second-right', 'courtesy-ask', 'courtesy-pass'];
   for (const phase of order) {
@@ -68,9 +48,8 @@ test('a whole exchange: both Charlestons with blind passes, a courtesy pass, the
   expect(mine.body.exchanges).toEqual([expect.objectContaining({ id: dto.id, tableId: t.id, seat: 'west', status: 'done' })]);
 });
 
-test('a huddle holds a pass, reveals a seat, takes a revised pass and a note, then releases', async () => {
-  server = await liveServer();
-  const { host, clients: cs } = await table({ options: { seed: 'harbor-lane-week-02' } });
+test('a huddle holds a pass, reveals a seat, takes a revised pass and a note, then releases', async ({ live }) => {
+  const { host, clients: cs } = await live.fullTable({ options: { seed: 'harbor-lane-week-02' } });
   const [, theo, mina] = cs;
   await host.ok('table:start');
   await Promise.all(cs.map((c) => c.until(inPhase('first-right'))));
@@ -99,9 +78,8 @@ test('a huddle holds a pass, reveals a seat, takes a revised pass and a note, th
   expect(after.huddle.notes).toEqual([expect.objectContaining({ text: 'Theo, keep the pair of 5 dots.', seat: 'south', passIndex: 0, phase: 'first-right' })]);
 });
 
-test('a huddle on every pass opens by itself when the fourth pass is committed', async () => {
-  server = await liveServer();
-  const { host, clients: cs } = await table({ options: { huddleEveryPass: true } });
+test('a huddle on every pass opens by itself when the fourth pass is committed', async ({ live }) => {
+  const { host, clients: cs } = await live.fullTable({ options: { huddleEveryPass: true } });
   await host.ok('table:start');
   await Promise.all(cs.map((c) => c.until(inPhase('first-right'))));
   await everyoneActs(cs);
@@ -113,9 +91,8 @@ test('a huddle on every pass opens by itself when the fourth pass is committed',
   await host.until((s) => s.huddle.open && s.phase === 'first-across');
 });
 
-test('no client ever receives a tile id its seat was never dealt or passed, until the exchange is done', async () => {
-  server = await liveServer();
-  const { host, clients: cs } = await table({ options: { seed: 'harbor-lane-week-03' } });
+test('no client ever receives a tile id its seat was never dealt or passed, until the exchange is done', async ({ live }) => {
+  const { host, clients: cs } = await live.fullTable({ options: { seed: 'harbor-lane-week-03' } });
   await host.ok('table:start');
   for (const phase of ['first-right', 'first-across', 'first-left', 'vote', 'second-left', 'second-across', 'second-right', 'courtesy-ask', 'courtesy-pass'] as Phase[]) {
     await Promise.all(cs.map((c) => c.until(inPhase(phase))));
@@ -138,9 +115,8 @@ test('no client ever receives a tile id its seat was never dealt or passed, unti
   }
 });
 
-test('four commits sent at the same instant resolve exactly once', async () => {
-  server = await liveServer();
-  const { host, clients: cs } = await table();
+test('four commits sent at the same instant resolve exactly once', async ({ live }) => {
+  const { host, clients: cs } = await live.fullTable();
   await host.ok('table:start');
   await Promise.all(cs.map((c) => c.until(inPhase('first-right'))));
   const actions = cs.map((c) => simpleAction(c.state)!);
@@ -157,12 +133,11 @@ test('four commits sent at the same instant resolve exactly once', async () => {
   }
 });
 
-test('a restart mid-exchange rebuilds the table from its log; the players reconnect and finish', async () => {
-  const dir = mkdtempSync(join(tmpdir(), 'rackside-restart-'));
-  dirs.push(dir);
+test('a restart mid-exchange rebuilds the table from its log; the players reconnect and finish', async ({ live }) => {
+  const dir = live.tempDir('rackside-restart-');
   const databaseUrl = `sqlite:${join(dir, 'restart.sqlite')}`;
-  server = await liveServer({ databaseUrl, sessionSecret: 'same-secret' });
-  const { host, clients: cs, table: t } = await table({ options: { seed: 'harbor-lane-week-04' } });
+  const server = await live.start({ databaseUrl, sessionSecret: 'same-secret' });
+  const { host, clients: cs, table: t } = await live.fullTable({ options: { seed: 'harbor-lane-week-04' } });
   await host.ok('table:start');
   await Promise.all(cs.map((c) => c.until(inPhase('first-right'))));
   await everyoneActs(cs);
@@ -170,15 +145,14 @@ test('a restart mid-exchange rebuilds the table from its log; the players reconn
   await everyoneActs(cs.slice(0, 2)); // two of four have committed the across pass
   await cs[3].until((s) => s.seats.south.committed);
   const before = cs.map((c) => ({ rack: c.state.myRack, committed: SEATS.map((s) => c.state.seats[s].committed) }));
-  clients.splice(0).forEach((c) => c.socket.disconnect());
+  cs.forEach((c) => c.socket.disconnect());
   await server.close();
 
-  server = await liveServer({ databaseUrl, sessionSecret: 'same-secret' });
+  await live.start({ databaseUrl, sessionSecret: 'same-secret' });
   const again: Client[] = [];
   for (const c of cs) {
-    const next = new Client(c.name, c.cookie, await openSocket(server, c.cookie));
+    const next = await live.reconnect(c);
     again.push(next);
-    clients.push(next);
     await next.ok('table:join', { tableId: t.id, as: 'player' });
   }
   for (const [i, c] of again.entries()) {
@@ -196,10 +170,8 @@ test('a restart mid-exchange rebuilds the table from its log; the players reconn
   await Promise.all(again.map((c) => c.until(inPhase('done'))));
 });
 
-test('one person and three bots finish an exchange; the bots play by themselves', async () => {
-  server = await liveServer();
-  const ines = await client(server, 'Ines');
-  clients.push(ines);
+test('one person and three bots finish an exchange; the bots play by themselves', async ({ live, server }) => {
+  const ines = await live.client('Ines');
   const t = await createTable(server, ines.cookie);
   await ines.ok('table:join', { tableId: t.id, as: 'player' });
   await ines.ok('table:sit', { seat: 'east' });
