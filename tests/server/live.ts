@@ -151,9 +151,9 @@ export class LiveKit {
     return latest ? Promise.resolve(latest) : (this.starting ??= this.start());
   }
 
-  /** Disconnects these clients (their current sockets) after the test. */
-  track(...clients: Client[]) {
-    for (const c of clients) this.sockets.push(() => c.socket);
+  /** Disconnects these clients (their current sockets) or bare sockets after the test. */
+  track(...items: (Client | Socket)[]) {
+    for (const item of items) this.sockets.push(item instanceof Client ? () => item.socket : () => item);
   }
 
   /** Signs up `name` (or uses the cookie given) and connects a socket client. */
@@ -171,7 +171,7 @@ export class LiveKit {
   /** A bare signed-in socket, disconnected after the test. */
   async socket(cookie: string): Promise<Socket> {
     const socket = await openSocket(await this.ready(), cookie);
-    this.sockets.push(() => socket);
+    this.track(socket);
     return socket;
   }
 

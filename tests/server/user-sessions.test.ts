@@ -1,41 +1,31 @@
 /** A user's sessions and sockets follow their account: a password reset signs out everywhere else, a role change reaches open sockets. */
 import { io as connect, type Socket } from 'socket.io-client';
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import type { Ack } from '../../shared/protocol';
 import { User } from '../../server/db/models';
 import { createUser, sessionCookie } from './helpers';
 import { linkIn, mailsTo } from './lesson-helpers';
-import { liveServer, type Server } from './live';
+import { liveTest } from './live';
 
-let server: Server;
-const sockets: Socket[] = [];
-
-beforeEach(async () => {
-  server = await liveServer();
-});
-afterEach(async () => {
-  sockets.splice(0).forEach((s) => s.disconnect());
-  await server.close();
-});
-
-async function signIn(email: string, password = 'correct horse') {
-  const res = await request(server.url).post('/api/auth/login').send({ email, password });
-  expect(res.status).toBe(200);
-  return sessionCookie(res)!.split(';')[0];
-}
-
-function open(cookie: string, reconnection = false) {
-  const socket = connect(server.url, { transports: ['websocket'], reconnection, reconnectionDelay: 10, extraHeaders: { Cookie: cookie } });
-  sockets.push(socket);
-  return socket;
-}
+/** `signIn` returns a session cookie; `open` connects a socket on it, closed after the test; `me` asks who a cookie is. */
+const test = liveTest
+  .extend('signIn', async ({ server }) => async (email: string, password = 'correct horse') => {
+    const res = await request(server.url).post('/api/auth/login').send({ email, password });
+    expect(res.status).toBe(200);
+    return sessionCookie(res)!.split(';')[0];
+  })
+  .extend('open', async ({ live, server }) => (cookie: string, reconnection = false) => {
+    const socket = connect(server.url, { transports: ['websocket'], reconnection, reconnectionDelay: 10, extraHeaders: { Cookie: cookie } });
+    live.track(socket);
+    return socket;
+  })
+  .extend('me', async ({ server }) => (cookie: string) => request(server.url).get('/api/auth/me').set('Cookie', cookie));
 
 const connected = (socket: Socket) => new Promise<void>((resolve) => socket.once('connect', () => resolve()));
-const me = (cookie: string) => request(server.url).get('/api/auth/me').set('Cookie', cookie);
 const join = (socket: Socket, tableId: string) => socket.timeout(10_000).emitWithAck('table:join', { tableId, as: 'spectator' }) as Promise<Ack>;
 
-test("a password reset ends the user's other sessions and closes their sockets; the session that reset stays", async () => {
+test("a password reset ends the user's other sessions and closes their sockets; the session that reset stays", async ({ server, signIn, open, me }) => {
   await createUser('ruth@harborlane.test', 'player', 'old-password-1');
   const laptop = await signIn('ruth@harborlane.test', 'old-password-1');
   const phone = await signIn('ruth@harborlane.test', 'old-password-1');
@@ -63,7 +53,7 @@ test("a password reset ends the user's other sessions and closes their sockets; 
   expect(otherSocket.connected).toBe(true);
 });
 
-test('a reset from a signed-out browser ends every session of the user', async () => {
+test('a reset from a signed-out browser ends every session of the user', async ({ server, signIn, me }) => {
   await createUser('ruth@harborlane.test', 'player', 'old-password-1');
   const laptop = await signIn('ruth@harborlane.test', 'old-password-1');
   await request(server.url).post('/api/auth/password-reset').send({ email: 'ruth@harborlane.test' }).expect(200);
@@ -75,7 +65,7 @@ test('a reset from a signed-out browser ends every session of the user', async (
   expect(refused.body.error.code).toBe('UNAUTHENTICATED');
 });
 
-test('a demoted admin: the open socket reconnects under the new role and can no longer join a private table the REST route refuses', async () => {
+test('a demoted admin: the open socket reconnects under the new role and can no longer join a private table the REST route refuses', async ({ server, signIn, open, me }) => {
   await createUser('ines@harborlane.test', 'admin');
   await createUser('theo@harborlane.test', 'admin');
   await createUser('mina@harborlane.test', 'teacher');
