@@ -64,7 +64,8 @@ function change<P>(call: (master: TableMaster, who: Member, payload: P, ctx: Con
   };
 }
 
-const join: Command<'table:join'> = async ({ tableId, as, invite }, socket, { registry, presence, peers }) => {
+const join: Command<'table:join'> = async ({ tableId, as, invite }, socket, { io, registry, presence, peers }) => {
+  const held = (await registry.peek(tableId)) !== null;
   const master = await registry.get(tableId);
   if (!master) throw new TableError('NOT_FOUND', 'There is no table with that id.');
   if (socket.disconnected) throw new TableError('GONE', 'The connection closed before the table was joined.');
@@ -75,9 +76,12 @@ const join: Command<'table:join'> = async ({ tableId, as, invite }, socket, { re
     throw new TableError('INVITE_REQUIRED', 'This table is private. Open it from the invite link the host shared.');
   }
   if (socket.data.tableId) await presence.leave(socket);
-  // With other processes about, this one's copy of the table may be behind (its player may come
-  // from a process that just died): read the table again before showing it.
-  if (peers.shared) await master.catchUp();
+  // With other processes about, a copy of the table held here may be behind: while none of its
+  // sockets were here, or some are elsewhere, others may have changed it without telling this one
+  // (its player may come from a process that just died). Read it again before showing it. A table
+  // just read, or one whose sockets are all here, is up to date.
+  const alone = (io.of('/').adapter.rooms.get(tableRoom(tableId))?.size ?? 0) === 0;
+  if (peers.shared && held && (alone || master.remoteSockets !== 0)) await master.catchUp();
   // The socket may have gone while this join waited: a closed socket never joins or counts.
   if (socket.disconnected) throw new TableError('GONE', 'The connection closed before the table was joined.');
   socket.data.tableId = tableId;

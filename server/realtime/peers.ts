@@ -9,7 +9,7 @@ import { RateLimiterMemory, RateLimiterRedis, type RateLimiterAbstract } from 'r
 import type { Application } from '../app';
 import type { TableRegistry } from './registry';
 import type { TableMaster } from './table-master';
-import type { RacksideServer } from './wire';
+import { tableRoom, type RacksideServer } from './wire';
 
 export type PeersDeps = Pick<Application, 'config' | 'logger'>;
 
@@ -55,7 +55,13 @@ export function connectPeers(io: RacksideServer, deps: PeersDeps, closing: () =>
     limiter: (keyPrefix, points, duration) =>
       redis ? new RateLimiterRedis({ storeClient: redis.pub, keyPrefix, points, duration }) : new RateLimiterMemory({ keyPrefix, points, duration }),
     tellMoved(master, whole = false) {
-      if (telling()) io.serverSideEmit('table:moved', { tableId: master.id, ...master.position, whole });
+      if (!telling()) return;
+      // The balancer sends every socket of a table to one process: while all of them are here, no
+      // other process shows it and none is told. A process without the table's sockets (a REST
+      // request changed it here) tells, so that the process with the sockets catches up.
+      const here = io.of('/').adapter.rooms.get(tableRoom(master.id))?.size ?? 0;
+      if (here > 0 && master.remoteSockets === 0) return;
+      io.serverSideEmit('table:moved', { tableId: master.id, ...master.position, whole });
     },
     askRecount(tableId) {
       if (telling()) io.serverSideEmit('table:presence', tableId);
@@ -66,7 +72,13 @@ export function connectPeers(io: RacksideServer, deps: PeersDeps, closing: () =>
         if (typeof tableId !== 'string') return;
         registry
           .peek(tableId)
-          .then((master) => master && recount(master))
+          .then((master) => {
+            if (!master) return;
+            // Another process has a socket at this table (or had): tell it every change from now on,
+            // until the count says otherwise.
+            master.remoteSockets = Math.max(1, master.remoteSockets);
+            recount(master);
+          })
           .catch(() => undefined);
       });
       io.on('table:moved', (told) => {

@@ -59,18 +59,26 @@ export function createPresence(io: RacksideServer, { registry, logger }: Presenc
       .then((sockets) => {
         const connected = new Map<number, number>();
         let spectators = 0;
+        let remote = 0;
+        const local = io.of('/').sockets;
         for (const s of sockets) {
           // Another process may run another version of Rackside: read its sockets with care.
           const data: Partial<SocketData> = s.data;
           if (data.tableId !== master.id || typeof data.userId !== 'number') continue;
+          if (!local.has(s.id)) remote += 1;
           if (data.as === 'spectator') spectators += 1;
           else connected.set(data.userId, (connected.get(data.userId) ?? 0) + 1);
         }
         master.connected.clear();
         connected.forEach((n, userId) => master.connected.set(userId, n));
         master.spectators = spectators;
+        const shared = remote > 0 && master.remoteSockets <= 0;
+        master.remoteSockets = remote;
         master.presenceChanged();
         broadcast(master);
+        // This table's sockets are now on more than one process. The others tell this one of their
+        // changes from the count on; catch up once on any they stored before it.
+        if (shared) return master.catchUp();
       })
       .catch((err) => logger.warn({ tableId: master.id, error: (err as Error).message }, 'counting the sockets of every process failed'));
   }

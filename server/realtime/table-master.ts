@@ -68,6 +68,12 @@ export class TableMaster {
   /** User ids with at least one open socket at this table. */
   readonly connected = new Map<number, number>();
   spectators = 0;
+  /**
+   * Sockets at this table on other processes, as last counted (-1: not counted yet). While there
+   * are none and this process has the table's sockets, it is the table's one owner: no other
+   * process shows the table, so its changes need not be told to them.
+   */
+  remoteSockets = -1;
   /** The table's pattern list, which its bots judge by; loaded when an exchange starts or is rebuilt. */
   patterns: readonly Pattern[] = starterPatterns;
   /** The version last sent to the sockets, so one stored group gives each viewer one state. */

@@ -8,6 +8,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { join } from 'node:path';
+import { Redis } from 'ioredis';
 import { io as connect } from 'socket.io-client';
 import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, test } from 'vitest';
@@ -23,6 +24,7 @@ const running: ChildProcess[] = [];
 const folders: string[] = [];
 const openClients: Client[] = [];
 const balancers: RunningHaproxy[] = [];
+const listeners: Redis[] = [];
 
 beforeAll(async () => {
   [redis, postgres] = await Promise.all([startRedis(), startPostgres()]);
@@ -35,6 +37,7 @@ afterEach(async (context) => {
   // A failing test shows what HAProxy logged: each request, and each server it marked up or down.
   if (context.task.result?.state === 'fail') fronts.forEach((f) => process.stderr.write(`HAProxy said:\n${f.output()}\n`));
   await Promise.all(fronts.map((f) => f.stop()));
+  await Promise.allSettled(listeners.splice(0).map((l) => l.quit()));
 });
 
 afterAll(async () => {
@@ -128,6 +131,22 @@ async function replayOf(url: string, cookie: string, exchangeId: string) {
   return res.body.replay as ExchangeReplayDto;
 }
 
+/**
+ * Counts the notices one process sends the others about a stored table change ("table:moved"), by
+ * listening on every Redis channel (the Socket.IO adapter carries them as MessagePack, whose strings
+ * are plain bytes). Closed after the test.
+ */
+async function movedNotices() {
+  const sub = new Redis(redis.url);
+  listeners.push(sub);
+  let count = 0;
+  sub.on('pmessageBuffer', (_pattern: Buffer, _channel: Buffer, message: Buffer) => {
+    if (message.includes('table:moved')) count += 1;
+  });
+  await sub.psubscribe('*');
+  return { count: () => count };
+}
+
 /** HAProxy in front of the two processes (the config's servers a and b), stopped after the test. */
 async function balancer(a: Proc, b: Proc) {
   const front = await startHaproxy({ a: a.port, b: b.port });
@@ -174,8 +193,11 @@ describe.each(Object.keys(databases) as (keyof typeof databases)[])('two process
     // Each process counts who is here over both: every client sees all four seats connected.
     const allHere = (s: TableStateDto) => SEATS.every((seat) => (s.seats[seat].occupant as { connected?: boolean } | null)?.connected === true);
     await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby' && allHere(s))));
+    const notices = await movedNotices();
     await players[0].c.ok('table:start');
     await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 30_000)));
+    // Players on both processes: each tells the other of what it stored.
+    expect(notices.count()).toBeGreaterThan(0);
     const steps = players[0].c.state.view!.history.length;
     for (const p of players) {
       // Each client held every step: a state at every number of resolved passes from 0 to the end.
@@ -211,6 +233,23 @@ describe.each(Object.keys(databases) as (keyof typeof databases)[])('two process
     // ...and with the owner gone, every one of them is dropped.
     owner.child.kill('SIGKILL');
     await Promise.all(dropped);
+  }, 90_000);
+
+  test('through HAProxy, the process with all of a table\'s sockets owns it: a whole exchange tells the other process nothing', async () => {
+    const [a, b] = await twoProcesses(databases[kind]());
+    const front = await balancer(a, b);
+    const { names, cookies, table } = await seatedTable([a.url, b.url]);
+    const players = names.map((n, i) => player(n, cookies[i], tableUrl(front, table.id), table.id));
+    await Promise.all(players.map((p) => p.c.until((s) => s.status === 'lobby')));
+    expect(Object.values(await tableSockets(front)).sort()).toEqual([0, 4]);
+    await players[0].c.ok('table:start');
+    // Counted from the first resolved pass (every join has been counted on both processes by then) to the end.
+    await Promise.all(players.map((p) => p.c.until((s) => (s.view?.history.length ?? 0) >= 1, 20_000)));
+    const notices = await movedNotices();
+    await Promise.all(players.map((p) => p.c.until((s) => s.phase === 'done', 45_000)));
+    expect(notices.count()).toBe(0);
+    const replay = await replayOf(front.url, cookies[0], players[0].c.state.exchangeId!);
+    expectAckedInLog(replay, players);
   }, 90_000);
 
   test('SIGKILL the process that owns the table mid-exchange: its players reconnect through HAProxy to the other by themselves, and nothing acked is lost', async () => {
