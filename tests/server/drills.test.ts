@@ -1,15 +1,7 @@
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { DrillRow } from '../../server/db/models';
-import { smallList, teachingApp, upload } from './teaching-helpers';
-
-let t: Awaited<ReturnType<typeof teachingApp>>;
-beforeEach(async () => {
-  t = await teachingApp();
-});
-afterEach(async () => {
-  await t.app.dispose();
-});
+import { smallList, teachingTest as test, upload } from './teaching-helpers';
 
 const weekOne = {
   name: 'Harbor Lane week 1',
@@ -33,7 +25,7 @@ const ROUTES: [string, string][] = [
 
 type Caller = Record<string, (p: string) => request.Test>;
 
-test('every drill route answers 401 signed out and 403 to a player', async () => {
+test('every drill route answers 401 signed out and 403 to a player', async ({ teaching: t }) => {
   for (const [method, path] of ROUTES) {
     expect((await (request(t.app.app) as unknown as Caller)[method](path).send(weekOne)).status, `${method} ${path} signed out`).toBe(401);
     const player = await (t.theo as unknown as Caller)[method](path).send(weekOne);
@@ -42,7 +34,7 @@ test('every drill route answers 401 signed out and 403 to a player', async () =>
   expect(await DrillRow.count()).toBe(0);
 });
 
-test('a drill is saved with its deal, parts and pattern list, and listed for its owner only', async () => {
+test('a drill is saved with its deal, parts and pattern list, and listed for its owner only', async ({ teaching: t }) => {
   const res = await t.ines.post('/api/drills').send(weekOne);
   expect(res.status).toBe(201);
   expect(res.body.drill).toMatchObject({ ...weekOne, patternListId: 'starter', patternListName: 'Starter list' });
@@ -54,7 +46,7 @@ test('a drill is saved with its deal, parts and pattern list, and listed for its
   expect((await t.pat.get('/api/drills')).body.drills).toEqual([]);
 });
 
-test('every drill field is checked, and the deal by the engine itself', async () => {
+test('every drill field is checked, and the deal by the engine itself', async ({ teaching: t }) => {
   const blank = await t.ines.post('/api/drills').send({ name: '', seed: '   ', jokers: 'yes', courtesy: 1, racks: { east: ['bam0'], centre: [] }, colour: 'red' });
   expect(blank.status).toBe(400);
   expect(blank.body.error.fields).toMatchObject({
@@ -85,7 +77,7 @@ test('every drill field is checked, and the deal by the engine itself', async ()
   expect(await DrillRow.count()).toBe(0);
 });
 
-test("a teacher can't read, change, export or delete another teacher's drill by its id", async () => {
+test("a teacher can't read, change, export or delete another teacher's drill by its id", async ({ teaching: t }) => {
   const drill = (await t.ines.post('/api/drills').send(weekOne)).body.drill;
   for (const res of [
     await t.pat.get(`/api/drills/${drill.id}`),
@@ -101,7 +93,7 @@ test("a teacher can't read, change, export or delete another teacher's drill by 
   expect((await t.ines.get(`/api/drills/${drill.id}`)).status).toBe(404);
 });
 
-test('a drill goes out as a Rackside drill file and comes back the same; a foreign list falls back to the starter', async () => {
+test('a drill goes out as a Rackside drill file and comes back the same; a foreign list falls back to the starter', async ({ teaching: t }) => {
   const list = (await t.ines.post('/api/pattern-lists').send(smallList)).body.list;
   const drill = (await t.ines.post('/api/drills').send({ ...weekOne, patternListId: list.id })).body.drill;
   const file = await t.ines.get(`/api/drills/${drill.id}/export`);
@@ -125,7 +117,7 @@ test('a drill goes out as a Rackside drill file and comes back the same; a forei
   expect(elsewhere.body.notes[0]).toContain(`“${smallList.name}” is not one of yours`);
 });
 
-test('a broken drill file is refused with the line or field at fault, and nothing is saved', async () => {
+test('a broken drill file is refused with the line or field at fault, and nothing is saved', async ({ teaching: t }) => {
   const good = JSON.stringify({ format: 'rackside-drill', version: 1, name: 'Week 2', description: '', deal: { seed: 'harbor-lane-week-02', jokers: true, racks: {} }, parts: { secondCharleston: true, courtesy: true }, patternList: { id: 'starter' } }, null, 2);
   const cases: [string, string, string, RegExp][] = [
     ['a syntax error', good.replace('"Week 2",', '"Week 2"'), 'w.json', /^line 5, column 3: Put a comma between entries/],

@@ -1,9 +1,9 @@
 /** Every zod issue that reaches a person is in Rackside's own words: what is wrong and what to do. */
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { z } from 'zod';
 import { fieldErrors } from '../../shared/field-errors';
 import { issueMessage } from '../../shared/issue-words';
-import { smallList, teachingApp, upload, windsPattern } from './teaching-helpers';
+import { smallList, teachingTest as test, upload, windsPattern } from './teaching-helpers';
 
 /** zod's own English wording (its default messages), which must never reach a person. */
 const ZOD_WORDING = /Invalid input|Invalid option|Too (big|small)|Unrecognized key|expected .* received|Invalid string|must match pattern|Invalid email/;
@@ -86,15 +86,7 @@ test('the mapping words a single issue the same way, whatever field it sits on',
   expect(issueMessage(root.error!.issues[0])).toBe('This must be named fields written { … }.');
 });
 
-let t: Awaited<ReturnType<typeof teachingApp>>;
-beforeEach(async () => {
-  t = await teachingApp();
-});
-afterEach(async () => {
-  await t.app.dispose();
-});
-
-test('the list editor, the copy route and the drill form answer in Rackside words, never zod wording', async () => {
+test('the list editor, the copy route and the drill form answer in Rackside words, never zod wording', async ({ teaching: t }) => {
   const bad = { ...smallList, description: 5, colour: 'red' };
   const list = await t.ines.post('/api/pattern-lists').send(bad);
   expect(list.status).toBe(400);
@@ -115,7 +107,7 @@ test('the list editor, the copy route and the drill form answer in Rackside word
   }
 });
 
-test('a drill file with a wrong type or an unknown field is refused in Rackside words', async () => {
+test('a drill file with a wrong type or an unknown field is refused in Rackside words', async ({ teaching: t }) => {
   const file = {
     format: 'rackside-drill',
     version: 1,

@@ -5,6 +5,7 @@ import { openDatabase } from '../../server/db';
 import { migrate } from '../../server/db/migrate';
 import { User, type Role } from '../../server/db/models';
 import bcrypt from 'bcryptjs';
+import { test } from 'vitest';
 
 /** A fresh app on its own in-memory database. */
 export async function makeApp(overrides: Partial<Config> = {}) {
@@ -24,6 +25,37 @@ export async function makeApp(overrides: Partial<Config> = {}) {
 }
 
 export type TestApp = Awaited<ReturnType<typeof makeApp>>;
+
+/** What an app test holds: every app it made or handed over, disposed after the test, newest first. */
+export class AppKit {
+  private readonly disposers: (() => Promise<unknown>)[] = [];
+
+  /** A fresh app on its own in-memory database, disposed after the test. */
+  async make(overrides: Partial<Config> = {}): Promise<TestApp> {
+    return this.adopt(await makeApp(overrides));
+  }
+
+  /** Disposes this after the test; returns it. */
+  adopt<T extends { dispose(): Promise<unknown> }>(disposable: T): T {
+    this.disposers.push(() => disposable.dispose());
+    return disposable;
+  }
+
+  async close() {
+    for (const dispose of this.disposers.splice(0).reverse()) await dispose();
+  }
+}
+
+/** Tests with an app kit, `apps`: whatever a test makes through it is disposed when the test ends. */
+export const appTest = test.extend(
+  'apps',
+  // eslint-disable-next-line no-empty-pattern -- vitest reads a fixture's dependencies from this pattern
+  async ({}, { onCleanup }) => {
+    const kit = new AppKit();
+    onCleanup(() => kit.close());
+    return kit;
+  },
+);
 
 export async function createUser(email: string, role: Role = 'player', password = 'correct horse') {
   return User.create({ email, displayName: email.split('@')[0], role, passwordHash: await bcrypt.hash(password, 4) });

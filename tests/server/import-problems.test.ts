@@ -1,15 +1,7 @@
 /** A broken list file is refused with every pattern's problems, each at its line and pattern. */
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { PatternListRow } from '../../server/db/models';
-import { teachingApp, upload, windsPattern } from './teaching-helpers';
-
-let t: Awaited<ReturnType<typeof teachingApp>>;
-beforeEach(async () => {
-  t = await teachingApp();
-});
-afterEach(async () => {
-  await t.app.dispose();
-});
+import { teachingTest as test, upload, windsPattern } from './teaching-helpers';
 
 /** Rows of one 14-tile pattern; `value` and the last group's size are the knobs. */
 function anchorRows(id: string, { value = '30', lastSize = '3' } = {}) {
@@ -17,7 +9,7 @@ function anchorRows(id: string, { value = '30', lastSize = '3' } = {}) {
 }
 const head = ['rackside-pattern-list,2', 'name,Anchor list', 'id,name,family,value,sealed,size,tile,suit,rank,dragon'];
 
-test('a CSV broken in several patterns names every pattern at fault, each with its line', async () => {
+test('a CSV broken in several patterns names every pattern at fault, each with its line', async ({ teaching: t }) => {
   // Line 4: anchor-1, one tile short. Line 9: anchor-2, one tile short. Line 14: anchor-3, a value in words.
   const text = [...head, ...anchorRows('anchor-1', { lastSize: '2' }), ...anchorRows('anchor-2', { lastSize: '2' }), ...anchorRows('anchor-3', { value: 'forty' }), ...anchorRows('anchor-4')].join('\n');
   const res = await upload(t.ines, '/api/pattern-lists/import', text, 'anchors.csv');
@@ -31,7 +23,7 @@ test('a CSV broken in several patterns names every pattern at fault, each with i
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('a CSV with a problem in every one of thirty patterns lists all thirty', async () => {
+test('a CSV with a problem in every one of thirty patterns lists all thirty', async ({ teaching: t }) => {
   const rows = Array.from({ length: 30 }, (_, i) => anchorRows(`anchor-${i + 1}`, { lastSize: '2' })).flat();
   const res = await upload(t.ines, '/api/pattern-lists/import', [...head, ...rows].join('\n'), 'anchors.csv');
   expect(res.status).toBe(400);
@@ -40,7 +32,7 @@ test('a CSV with a problem in every one of thirty patterns lists all thirty', as
   expect(keys[29]).toBe('line 149, pattern anchor-30');
 });
 
-test('a JSON list broken in several patterns names each by its place, id and line', async () => {
+test('a JSON list broken in several patterns names each by its place, id and line', async ({ teaching: t }) => {
   const short = { ...structuredClone(windsPattern), id: 'anchor-1', groups: windsPattern.groups.slice(1) };
   const wordy = { ...structuredClone(windsPattern), id: 'anchor-2', value: 'forty' };
   const old = { ...structuredClone(windsPattern), id: 'anchor-3', points: 20 } as Record<string, unknown>;
@@ -59,7 +51,7 @@ test('a JSON list broken in several patterns names each by its place, id and lin
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('a copy of the starter list, and an imported list, do not say they can’t be changed', async () => {
+test('a copy of the starter list, and an imported list, do not say they can’t be changed', async ({ teaching: t }) => {
   const starter = await t.ines.get('/api/pattern-lists/starter');
   expect(starter.body.list.readOnly).toBe(true);
   const copy = await t.ines.post('/api/pattern-lists/starter/copy').send({});
@@ -78,7 +70,7 @@ test('a copy of the starter list, and an imported list, do not say they can’t 
   expect(again.body.list.description).toBe('Rackside’s own practice list.');
 });
 
-test('a control character in an imported file, raw or written as an escape, is refused with its place; nothing is saved', async () => {
+test('a control character in an imported file, raw or written as an escape, is refused with its place; nothing is saved', async ({ teaching: t }) => {
   const good = [...head, ...anchorRows('anchor-1')];
   const csv = await upload(t.ines, '/api/pattern-lists/import', [good[0], 'name,Anchor\u001b list', ...good.slice(2)].join('\n'), 'anchors.csv');
   expect(csv.status).toBe(400);
@@ -90,7 +82,7 @@ test('a control character in an imported file, raw or written as an escape, is r
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('a malformed or cut-short upload is answered 400, never a server error', async () => {
+test('a malformed or cut-short upload is answered 400, never a server error', async ({ teaching: t }) => {
   const body = '--XB\r\nContent-Disposition form-data; name="file"; filename="a.json"\r\n\r\n{}\r\n--XB--\r\n';
   const malformed = await t.ines.post('/api/pattern-lists/import').set('Content-Type', 'multipart/form-data; boundary=XB').send(body);
   expect(malformed.status).toBe(400);

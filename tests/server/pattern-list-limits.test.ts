@@ -3,28 +3,20 @@
  * may ask for is bounded: the server keeps answering while the costliest allowed list is handled.
  */
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { bestAway } from '../../shared/analysis';
 import { PATTERN_WORK_LIMITS } from '../../shared/analysis/pattern';
 import { patternsForTable } from '../../server/teaching/pattern-lists/service';
 import { PatternListRow } from '../../server/db/models';
 import { eightLetters, worstAllowed, worstAllowedList } from '../unit/analysis/limit-patterns';
-import { teachingApp, upload } from './teaching-helpers';
-
-let t: Awaited<ReturnType<typeof teachingApp>>;
-beforeEach(async () => {
-  t = await teachingApp();
-});
-afterEach(async () => {
-  await t.app.dispose();
-});
+import { teachingTest as test, upload, type TestTeaching } from './teaching-helpers';
 
 /**
  * Asks /api/health again and again until `busy` settles, and returns how long each answer took.
  * The first request is on its way before `busy` is started, so any stretch the event loop spends
  * on `busy` delays an answer.
  */
-async function healthWhile<T>(busy: () => Promise<T>): Promise<{ result: T; waits: number[] }> {
+async function healthWhile<T>(t: TestTeaching, busy: () => Promise<T>): Promise<{ result: T; waits: number[] }> {
   const waits: number[] = [];
   let settled = false;
   const ask = async () => {
@@ -42,7 +34,7 @@ async function healthWhile<T>(busy: () => Promise<T>): Promise<{ result: T; wait
   return { result: await work, waits };
 }
 
-test('a list with patterns of eight number letters is refused with a field error on each, by the editor and by import', async () => {
+test('a list with patterns of eight number letters is refused with a field error on each, by the editor and by import', async ({ teaching: t }) => {
   const list = { name: 'Spread thin', patterns: [eightLetters('spread-01'), eightLetters('spread-02'), eightLetters('spread-03')] };
   const res = await t.ines.post('/api/pattern-lists').send(list);
   expect(res.status).toBe(400);
@@ -60,7 +52,7 @@ test('a list with patterns of eight number letters is refused with a field error
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('a list whose patterns together ask too much is refused with a field error on the list', async () => {
+test('a list whose patterns together ask too much is refused with a field error on the list', async ({ teaching: t }) => {
   const count = Math.floor(PATTERN_WORK_LIMITS.listAssignments / PATTERN_WORK_LIMITS.assignments) + 1;
   const res = await t.ines.post('/api/pattern-lists').send({ name: 'Too costly', patterns: Array.from({ length: count }, (_, i) => worstAllowed(`worst-${i}`)) });
   expect(res.status).toBe(400);
@@ -68,12 +60,12 @@ test('a list whose patterns together ask too much is refused with a field error 
   expect(res.body.error.fields.patterns).toMatch(/^Together these patterns have up to [\d,]+ ways to choose suits and numbers; a list may have at most [\d,]+/);
 });
 
-test('health answers within a second while the costliest allowed list is checked, stored and built for a table', async () => {
+test('health answers within a second while the costliest allowed list is checked, stored and built for a table', async ({ teaching: t }) => {
   const list = { name: 'Costliest allowed', patterns: worstAllowedList() };
   expect(list.patterns).toHaveLength(200);
 
   // The upload is in flight while health is asked.
-  const saved = await healthWhile(() => t.ines.post('/api/pattern-lists').send(list).then((r) => r));
+  const saved = await healthWhile(t, () => t.ines.post('/api/pattern-lists').send(list).then((r) => r));
   expect(saved.result.status).toBe(201);
 
   const table = await t.ines.post('/api/tables').send({ name: 'Costly table', options: { patternListId: saved.result.body.list.id } });
@@ -84,6 +76,7 @@ test('health answers within a second while the costliest allowed list is checked
   // Building every pattern for the table's analysis (what a bot's first look at a rack does), on this event loop.
   const rack = ['bam1', 'bam2', 'bam3', 'bam4', 'crack5', 'crack5', 'crack5', 'dot7', 'dot7', 'wind-s', 'wind-s', 'flower', 'joker'] as const;
   const built = await healthWhile(
+    t,
     () =>
       new Promise<number>((resolve) => {
         setImmediate(() => resolve(bestAway([...rack], patterns)));
@@ -95,7 +88,7 @@ test('health answers within a second while the costliest allowed list is checked
   for (const wait of [...saved.waits, ...built.waits]) expect(wait).toBeLessThan(1000);
 }, 120_000);
 
-test('a list stored before the limits is judged without its patterns that are past them', async () => {
+test('a list stored before the limits is judged without its patterns that are past them', async ({ teaching: t }) => {
   const owner = (await t.ines.get('/api/auth/me')).body.user.id as number;
   const fine = worstAllowed('fine-01');
   const mixed = await PatternListRow.create({ id: 'older-list', ownerId: owner, name: 'Older list', description: '', patterns: [eightLetters('spread-01'), fine] });

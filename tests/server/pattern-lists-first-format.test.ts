@@ -1,12 +1,12 @@
 /** Lists written before `value` and `sealed` (version 1 files, stored rows, an open editor page) keep working. */
 import { readFileSync } from 'node:fs';
 import { QueryTypes } from 'sequelize';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { openDatabase } from '../../server/db';
 import { migrate, migrator } from '../../server/db/migrate';
 import { PatternListRow } from '../../server/db/models';
 import type { Pattern } from '../../shared/analysis';
-import { teachingApp, upload, windsPattern } from './teaching-helpers';
+import { teachingTest as test, upload, windsPattern } from './teaching-helpers';
 
 /** windsPattern as version 1 wrote it. */
 const { value: _value, sealed: _sealed, ...windsBody } = windsPattern;
@@ -43,15 +43,7 @@ test('migration 0008 renames points and concealed in stored lists, and going dow
   }
 });
 
-let t: Awaited<ReturnType<typeof teachingApp>>;
-beforeEach(async () => {
-  t = await teachingApp();
-});
-afterEach(async () => {
-  await t.app.dispose();
-});
-
-test('a version 1 JSON file and a version 1 CSV file import in today\'s names', async () => {
+test('a version 1 JSON file and a version 1 CSV file import in today\'s names', async ({ teaching: t }) => {
   const json = JSON.stringify({ format: 'rackside-pattern-list', version: 1, name: 'From version 1', patterns: [firstFormat] });
   const fromJson = await upload(t.ines, '/api/pattern-lists/import', json, 'old.json');
   expect(fromJson.status).toBe(201);
@@ -83,7 +75,7 @@ test('a version 1 JSON file and a version 1 CSV file import in today\'s names', 
   expect((await upload(t.ines, '/api/pattern-lists/import', mixed, 'old.csv')).body.error.fields.file).toMatch(/^line 3: The header row lacks "points", "concealed"/);
 });
 
-test('a version 2 file that still uses points or concealed is told the names to use', async () => {
+test('a version 2 file that still uses points or concealed is told the names to use', async ({ teaching: t }) => {
   const json = JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'Half renamed', patterns: [firstFormat] });
   const res = await upload(t.ines, '/api/pattern-lists/import', json, 'half.json');
   expect(res.status).toBe(400);
@@ -92,7 +84,7 @@ test('a version 2 file that still uses points or concealed is told the names to 
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('a list stored in the old names is served, copied, exported and saved in today\'s names', async () => {
+test('a list stored in the old names is served, copied, exported and saved in today\'s names', async ({ teaching: t }) => {
   const owner = (await t.ines.get('/api/auth/me')).body.user.id as number;
   // As a process not yet upgraded would still write it.
   await PatternListRow.create({ id: 'left-behind', ownerId: owner, name: 'Left behind', description: '', patterns: [firstFormat as unknown as Pattern] });
@@ -110,7 +102,7 @@ test('a list stored in the old names is served, copied, exported and saved in to
   expect((await PatternListRow.findByPk('left-behind'))!.patterns).toEqual([{ ...current, value: 40 }]);
 });
 
-test('the teacher\'s list in tests/fixtures imports through the route as it stands, and comes back out the same', async () => {
+test('the teacher\'s list in tests/fixtures imports through the route as it stands, and comes back out the same', async ({ teaching: t }) => {
   const text = readFileSync(new URL('../fixtures/teacher-list.json', import.meta.url), 'utf8');
   const file = JSON.parse(text) as { version: number; name: string; patterns: Pattern[] };
   expect(file.version).toBe(2);

@@ -1,17 +1,9 @@
 import request from 'supertest';
 import { parse } from 'csv-parse/sync';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { starterPatterns, type Pattern } from '../../shared/analysis';
 import { PatternListRow } from '../../server/db/models';
-import { smallList, teachingApp, upload, windsPattern } from './teaching-helpers';
-
-let t: Awaited<ReturnType<typeof teachingApp>>;
-beforeEach(async () => {
-  t = await teachingApp();
-});
-afterEach(async () => {
-  await t.app.dispose();
-});
+import { smallList, teachingTest as test, upload, windsPattern } from './teaching-helpers';
 
 const ROUTES: [string, string][] = [
   ['get', '/api/pattern-lists'],
@@ -24,7 +16,7 @@ const ROUTES: [string, string][] = [
   ['get', '/api/pattern-lists/starter/export'],
 ];
 
-test('every pattern-list route answers 401 signed out and 403 to a player', async () => {
+test('every pattern-list route answers 401 signed out and 403 to a player', async ({ teaching: t }) => {
   for (const [method, path] of ROUTES) {
     const out = await (request(t.app.app) as unknown as Record<string, (p: string) => request.Test>)[method](path).send(smallList);
     expect(out.status, `${method} ${path} signed out`).toBe(401);
@@ -34,7 +26,7 @@ test('every pattern-list route answers 401 signed out and 403 to a player', asyn
   }
 });
 
-test('the starter list is served read-only and can be copied into a list of my own', async () => {
+test('the starter list is served read-only and can be copied into a list of my own', async ({ teaching: t }) => {
   const list = await t.ines.get('/api/pattern-lists');
   expect(list.body.lists).toEqual([expect.objectContaining({ id: 'starter', readOnly: true, patternCount: starterPatterns.length })]);
   const starter = await t.ines.get('/api/pattern-lists/starter');
@@ -52,7 +44,7 @@ test('the starter list is served read-only and can be copied into a list of my o
   expect((await t.ines.get('/api/pattern-lists')).body.lists).toHaveLength(3);
 });
 
-test('a new list checks its own fields and every pattern, naming the pattern and group at fault', async () => {
+test('a new list checks its own fields and every pattern, naming the pattern and group at fault', async ({ teaching: t }) => {
   const empty = await t.ines.post('/api/pattern-lists').send({ name: ' ', patterns: [] });
   expect(empty.status).toBe(400);
   expect(empty.body.error.fields).toMatchObject({ name: 'Give the list a name.', patterns: 'A list needs at least one pattern.' });
@@ -79,7 +71,7 @@ test('a new list checks its own fields and every pattern, naming the pattern and
   expect(ok.body.list).toMatchObject({ name: smallList.name, description: smallList.description, patternCount: 2 });
 });
 
-test('editing and deleting my list; a list a drill uses is kept until the drill moves off it', async () => {
+test('editing and deleting my list; a list a drill uses is kept until the drill moves off it', async ({ teaching: t }) => {
   const made = (await t.ines.post('/api/pattern-lists').send(smallList)).body.list;
   const edited = await t.ines.put(`/api/pattern-lists/${made.id}`).send({ ...smallList, name: 'Renamed', patterns: [windsPattern] });
   expect(edited.status).toBe(200);
@@ -99,7 +91,7 @@ test('editing and deleting my list; a list a drill uses is kept until the drill 
   expect((await t.ines.get(`/api/pattern-lists/${made.id}`)).status).toBe(404);
 });
 
-test("a teacher can't read, change, copy, export or delete another teacher's list by its id", async () => {
+test("a teacher can't read, change, copy, export or delete another teacher's list by its id", async ({ teaching: t }) => {
   const mine = (await t.ines.post('/api/pattern-lists').send(smallList)).body.list;
   for (const res of [
     await t.pat.get(`/api/pattern-lists/${mine.id}`),
@@ -115,7 +107,7 @@ test("a teacher can't read, change, copy, export or delete another teacher's lis
   expect((await t.ines.get(`/api/pattern-lists/${mine.id}`)).body.list.name).toBe(smallList.name);
 });
 
-test('the starter list goes out as JSON and CSV and both come back as the same patterns', async () => {
+test('the starter list goes out as JSON and CSV and both come back as the same patterns', async ({ teaching: t }) => {
   const json = await t.ines.get('/api/pattern-lists/starter/export');
   expect(json.status).toBe(200);
   expect(json.headers['content-type']).toMatch(/^application\/json/);
@@ -142,7 +134,7 @@ test('the starter list goes out as JSON and CSV and both come back as the same p
   expect(fromCsv.body.list.name).toBe('Starter list');
 });
 
-test('a CSV download keeps formula-like names as text, and reads them back unchanged', async () => {
+test('a CSV download keeps formula-like names as text, and reads them back unchanged', async ({ teaching: t }) => {
   const sly = { name: '=HYPERLINK("x")', description: '', patterns: [{ ...windsPattern, name: '+1 winds', family: '@home' }] };
   const made = (await t.ines.post('/api/pattern-lists').send(sly)).body.list;
   const csv = (await t.ines.get(`/api/pattern-lists/${made.id}/export?format=csv`)).text;
@@ -167,7 +159,7 @@ const goodCsv = [
   'step-01,,,,,3,,bam,9,',
 ].join('\n');
 
-test('a hand-written CSV list imports with its ranks, dragons and sealed marks', async () => {
+test('a hand-written CSV list imports with its ranks, dragons and sealed marks', async ({ teaching: t }) => {
   const res = await upload(t.ines, '/api/pattern-lists/import', goodCsv, 'harbor.csv');
   expect(res.status).toBe(201);
   expect(res.body.list.patterns[0]).toEqual(windsPattern);
@@ -182,7 +174,7 @@ test('a hand-written CSV list imports with its ranks, dragons and sealed marks',
   });
 });
 
-test('a broken CSV file is refused with the line and column at fault, and nothing is saved', async () => {
+test('a broken CSV file is refused with the line and column at fault, and nothing is saved', async ({ teaching: t }) => {
   const lines = goodCsv.split('\n');
   const cases: [string, string, RegExp][] = [
     ['a size of 7', lines.map((l, i) => (i === 4 ? 'harbor-01,,,,,7,wind-n,,,' : l)).join('\n'), /^line 5, pattern harbor-01, column size: Group 2 of 5: A group holds at most 6 tiles/],
@@ -206,7 +198,7 @@ test('a broken CSV file is refused with the line and column at fault, and nothin
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('a broken JSON file is refused with the line or field at fault, and nothing is saved', async () => {
+test('a broken JSON file is refused with the line or field at fault, and nothing is saved', async ({ teaching: t }) => {
   const good = JSON.stringify({ format: 'rackside-pattern-list', version: 2, name: 'Harbor JSON', patterns: [windsPattern] }, null, 2);
   const badGroup = structuredClone(windsPattern) as Record<string, unknown> & { groups: Record<string, unknown>[] };
   badGroup.groups[3] = { size: 3, suit: 'Q', rank: 4 };
@@ -229,7 +221,7 @@ test('a broken JSON file is refused with the line or field at fault, and nothing
   expect((await upload(t.ines, '/api/pattern-lists/import', good, 'harbor.json')).status).toBe(201);
 });
 
-test('uploads are limited in size, type and shape', async () => {
+test('uploads are limited in size, type and shape', async ({ teaching: t }) => {
   const big = await upload(t.ines, '/api/pattern-lists/import', 'x'.repeat(256 * 1024 + 1), 'big.json');
   expect(big.status).toBe(413);
   expect(big.body.error.code).toBe('FILE_TOO_LARGE');
@@ -249,7 +241,7 @@ test('uploads are limited in size, type and shape', async () => {
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('a JSON file without its "format" or "version" is refused with a field error, not a server error', async () => {
+test('a JSON file without its "format" or "version" is refused with a field error, not a server error', async ({ teaching: t }) => {
   const cases: [string, Record<string, unknown>, string, RegExp][] = [
     ['no format and no version', { name: 'x', patterns: [windsPattern] }, 'format', /^This is not a Rackside pattern-list file: "format" must be "rackside-pattern-list"\./],
     ['no version', { format: 'rackside-pattern-list', name: 'x', patterns: [windsPattern] }, 'version', /^"version" must be 1 or 2\./],
@@ -265,7 +257,7 @@ test('a JSON file without its "format" or "version" is refused with a field erro
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('a JSON file nested far too deep is refused with the line and column where it goes wrong', async () => {
+test('a JSON file nested far too deep is refused with the line and column where it goes wrong', async ({ teaching: t }) => {
   const deep = '['.repeat(120_000);
   const open = await upload(t.ines, '/api/pattern-lists/import', deep, 'deep.json');
   expect(open.status).toBe(400);
@@ -285,7 +277,7 @@ test('a JSON file nested far too deep is refused with the line and column where 
   expect(await PatternListRow.count()).toBe(0);
 });
 
-test('every cell of a CSV download that a spreadsheet could run as a formula is kept as text, and reads back unchanged', async () => {
+test('every cell of a CSV download that a spreadsheet could run as a formula is kept as text, and reads back unchanged', async ({ teaching: t }) => {
   // Names as a stored list may hold them, whatever the editor trims today.
   const owner = (await t.ines.get('/api/auth/me')).body.user.id as number;
   const risky = ['\r=1+1', '\t=1+1', '=HYPERLINK("x")', '+1 winds', '-1 winds', '@home', "'=already quoted"];
