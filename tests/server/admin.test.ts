@@ -1,23 +1,21 @@
 import express from 'express';
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { requireAdmin, requireRole, requireTeacher, requireUser } from '../../server/auth/guards';
 import { User, type Role } from '../../server/db/models';
 import { errorHandler } from '../../server/errors';
-import { createUser, makeApp, signedIn, type TestApp } from './helpers';
+import { appTest, createUser, signedIn } from './helpers';
 
-let t: TestApp;
-beforeEach(async () => {
-  t = await makeApp();
+/** Every test has its own app (`t`) with Pat (an admin), Theo and Ines (a teacher); disposed after the test. */
+const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
+  const t = await apps.make();
   await createUser('pat@harborlane.test', 'admin');
   await createUser('theo@harborlane.test', 'player');
   await createUser('ines@harborlane.test', 'teacher');
-});
-afterEach(async () => {
-  await t.dispose();
+  return t;
 });
 
-test('GET /api/admin/users: signed out 401, player 403, teacher 403, admin 200', async () => {
+test('GET /api/admin/users: signed out 401, player 403, teacher 403, admin 200', async ({ t }) => {
   expect((await request(t.app).get('/api/admin/users')).status).toBe(401);
   const player = await signedIn(t.app, 'theo@harborlane.test');
   const denied = await player.get('/api/admin/users');
@@ -35,7 +33,7 @@ test('GET /api/admin/users: signed out 401, player 403, teacher 403, admin 200',
   expect(list.body.users[0].passwordHash).toBeUndefined();
 });
 
-test('PATCH /api/admin/users/:id: signed out 401, player 403 and the role stays', async () => {
+test('PATCH /api/admin/users/:id: signed out 401, player 403 and the role stays', async ({ t }) => {
   const target = (await User.findOne({ where: { email: 'theo@harborlane.test' } }))!;
   expect((await request(t.app).patch(`/api/admin/users/${target.id}`).send({ role: 'admin' })).status).toBe(401);
   const player = await signedIn(t.app, 'theo@harborlane.test');
@@ -44,7 +42,7 @@ test('PATCH /api/admin/users/:id: signed out 401, player 403 and the role stays'
   expect(target.role).toBe('player');
 });
 
-test('an admin promotes a player to teacher, and the player sees the new role', async () => {
+test('an admin promotes a player to teacher, and the player sees the new role', async ({ t }) => {
   const admin = await signedIn(t.app, 'pat@harborlane.test');
   const { body } = await admin.get('/api/admin/users');
   const theo = body.users.find((u: { email: string }) => u.email === 'theo@harborlane.test');
@@ -55,20 +53,20 @@ test('an admin promotes a player to teacher, and the player sees the new role', 
   expect((await player.get('/api/auth/me')).body.user.role).toBe('teacher');
 });
 
-test('a role outside player, teacher, admin is refused with a field error', async () => {
+test('a role outside player, teacher, admin is refused with a field error', async ({ t }) => {
   const admin = await signedIn(t.app, 'pat@harborlane.test');
   const res = await admin.patch('/api/admin/users/2').send({ role: 'emperor' });
   expect(res.status).toBe(400);
   expect(res.body.error.fields.role).toMatch(/player, teacher, admin/);
 });
 
-test('an unknown user id gets 404, a malformed one 400', async () => {
+test('an unknown user id gets 404, a malformed one 400', async ({ t }) => {
   const admin = await signedIn(t.app, 'pat@harborlane.test');
   expect((await admin.patch('/api/admin/users/999').send({ role: 'teacher' })).status).toBe(404);
   expect((await admin.patch('/api/admin/users/abc').send({ role: 'teacher' })).status).toBe(400);
 });
 
-test('an admin cannot demote themselves', async () => {
+test('an admin cannot demote themselves', async ({ t }) => {
   const admin = await signedIn(t.app, 'pat@harborlane.test');
   const me = (await admin.get('/api/auth/me')).body.user;
   const res = await admin.patch(`/api/admin/users/${me.id}`).send({ role: 'player' });

@@ -1,18 +1,13 @@
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
-import { createUser, makeApp, sessionCookie, type TestApp } from './helpers';
+import { expect } from 'vitest';
+import { appTest, createUser, sessionCookie } from './helpers';
 
-let t: TestApp;
-beforeEach(async () => {
-  t = await makeApp({ loginRateLimit: { max: 3, windowMs: 60_000 } });
-});
-afterEach(async () => {
-  await t.dispose();
-});
+/** Every test has its own app (`t`) allowing three sign-in tries a minute; disposed after the test. */
+const test = appTest.extend('t', { auto: true }, async ({ apps }) => apps.make({ loginRateLimit: { max: 3, windowMs: 60_000 } }));
 
 const newUser = { email: 'Mina@HarborLane.test', password: 'tiles-and-tea', displayName: 'Mina Castellanos' };
 
-test('register signs the new user in as a player, with an httpOnly SameSite=Lax cookie', async () => {
+test('register signs the new user in as a player, with an httpOnly SameSite=Lax cookie', async ({ t }) => {
   const agent = request.agent(t.app);
   const res = await agent.post('/api/auth/register').send(newUser);
   expect(res.status).toBe(201);
@@ -27,7 +22,7 @@ test('register signs the new user in as a player, with an httpOnly SameSite=Lax 
   expect(me.body.user.role).toBe('player');
 });
 
-test('register, sign out, sign in again: who-am-I follows each step', async () => {
+test('register, sign out, sign in again: who-am-I follows each step', async ({ t }) => {
   const agent = request.agent(t.app);
   await agent.post('/api/auth/register').send(newUser).expect(201);
   await agent.post('/api/auth/logout').expect(200);
@@ -39,7 +34,7 @@ test('register, sign out, sign in again: who-am-I follows each step', async () =
   expect(me.body.user.email).toBe('mina@harborlane.test');
 });
 
-test('passwords are stored hashed with bcrypt, never as given', async () => {
+test('passwords are stored hashed with bcrypt, never as given', async ({ t }) => {
   await request(t.app).post('/api/auth/register').send(newUser).expect(201);
   const [rows] = await t.sequelize.query("SELECT passwordHash FROM Users WHERE email = 'mina@harborlane.test'");
   const hash = (rows as { passwordHash: string }[])[0].passwordHash;
@@ -47,7 +42,7 @@ test('passwords are stored hashed with bcrypt, never as given', async () => {
   expect(hash).toMatch(/^\$2[aby]\$/); // bcrypt's modular crypt prefix
 });
 
-test('a duplicate e-mail is refused with EMAIL_TAKEN and a field error', async () => {
+test('a duplicate e-mail is refused with EMAIL_TAKEN and a field error', async ({ t }) => {
   await request(t.app).post('/api/auth/register').send(newUser).expect(201);
   const res = await request(t.app).post('/api/auth/register').send({ ...newUser, email: 'mina@harborlane.test' });
   expect(res.status).toBe(409);
@@ -55,14 +50,14 @@ test('a duplicate e-mail is refused with EMAIL_TAKEN and a field error', async (
   expect(res.body.error.fields.email).toBeTruthy();
 });
 
-test('missing and malformed fields come back as field errors', async () => {
+test('missing and malformed fields come back as field errors', async ({ t }) => {
   const res = await request(t.app).post('/api/auth/register').send({ email: 'not-an-address', password: 'short' });
   expect(res.status).toBe(400);
   expect(res.body.error.code).toBe('BAD_INPUT');
   expect(Object.keys(res.body.error.fields).sort()).toEqual(['displayName', 'email', 'password']);
 });
 
-test('an over-long field is refused and nothing is stored', async () => {
+test('an over-long field is refused and nothing is stored', async ({ t }) => {
   const res = await request(t.app).post('/api/auth/register').send({ ...newUser, displayName: 'x'.repeat(61) });
   expect(res.status).toBe(400);
   expect(res.body.error.fields.displayName).toMatch(/at most 60/);
@@ -70,20 +65,20 @@ test('an over-long field is refused and nothing is stored', async () => {
   expect((rows as { n: number }[])[0].n).toBe(0);
 });
 
-test('malformed JSON gets BAD_JSON, not a stack trace', async () => {
+test('malformed JSON gets BAD_JSON, not a stack trace', async ({ t }) => {
   const res = await request(t.app).post('/api/auth/login').set('Content-Type', 'application/json').send('{"email": ');
   expect(res.status).toBe(400);
   expect(res.body.error.code).toBe('BAD_JSON');
   expect(JSON.stringify(res.body)).not.toMatch(/at .*\.(js|ts):\d+/);
 });
 
-test('an unknown API route gets a JSON 404', async () => {
+test('an unknown API route gets a JSON 404', async ({ t }) => {
   const res = await request(t.app).get('/api/no-such-thing');
   expect(res.status).toBe(404);
   expect(res.body.error).toMatchObject({ code: 'NOT_FOUND' });
 });
 
-test('a wrong password gets BAD_CREDENTIALS and no session', async () => {
+test('a wrong password gets BAD_CREDENTIALS and no session', async ({ t }) => {
   await createUser('ruth@harborlane.test');
   const res = await request(t.app).post('/api/auth/login').send({ email: 'ruth@harborlane.test', password: 'wrong one' });
   expect(res.status).toBe(401);
@@ -91,13 +86,13 @@ test('a wrong password gets BAD_CREDENTIALS and no session', async () => {
   expect(sessionCookie(res)).toBeUndefined();
 });
 
-test('an unknown e-mail gets the same answer as a wrong password', async () => {
+test('an unknown e-mail gets the same answer as a wrong password', async ({ t }) => {
   const res = await request(t.app).post('/api/auth/login').send({ email: 'nobody@harborlane.test', password: 'whatever1' });
   expect(res.status).toBe(401);
   expect(res.body.error.code).toBe('BAD_CREDENTIALS');
 });
 
-test('signing in issues a new session id, and the old one stops working', async () => {
+test('signing in issues a new session id, and the old one stops working', async ({ t }) => {
   await createUser('theo@harborlane.test');
   const first = await request(t.app).post('/api/auth/login').send({ email: 'theo@harborlane.test', password: 'correct horse' });
   const oldCookie = sessionCookie(first)!.split(';')[0];
@@ -111,7 +106,7 @@ test('signing in issues a new session id, and the old one stops working', async 
   expect((await request(t.app).get('/api/auth/me').set('Cookie', oldCookie)).status).toBe(401);
 });
 
-test('sign-out ends the session on the server, not just in the browser', async () => {
+test('sign-out ends the session on the server, not just in the browser', async ({ t }) => {
   await createUser('sol@harborlane.test');
   const login = await request(t.app).post('/api/auth/login').send({ email: 'sol@harborlane.test', password: 'correct horse' });
   const cookie = sessionCookie(login)!.split(';')[0];
@@ -119,7 +114,7 @@ test('sign-out ends the session on the server, not just in the browser', async (
   expect((await request(t.app).get('/api/auth/me').set('Cookie', cookie)).status).toBe(401);
 });
 
-test('sign-in attempts are rate limited per address and e-mail', async () => {
+test('sign-in attempts are rate limited per address and e-mail', async ({ t }) => {
   await createUser('pat@harborlane.test');
   for (let i = 0; i < 3; i++) {
     const res = await request(t.app).post('/api/auth/login').send({ email: 'pat@harborlane.test', password: 'guess ' + i });
@@ -134,18 +129,14 @@ test('sign-in attempts are rate limited per address and e-mail', async () => {
   expect(other.status).toBe(200);
 });
 
-test('behind a TLS proxy the session cookie is Secure', async () => {
-  const proxied = await makeApp({ trustProxy: true });
-  try {
-    const res = await request(proxied.app).post('/api/auth/register').set('X-Forwarded-Proto', 'https').send(newUser);
-    expect(res.status).toBe(201);
-    expect(sessionCookie(res)).toMatch(/Secure/i);
-  } finally {
-    await proxied.dispose();
-  }
+test('behind a TLS proxy the session cookie is Secure', async ({ apps }) => {
+  const proxied = await apps.make({ trustProxy: true });
+  const res = await request(proxied.app).post('/api/auth/register').set('X-Forwarded-Proto', 'https').send(newUser);
+  expect(res.status).toBe(201);
+  expect(sessionCookie(res)).toMatch(/Secure/i);
 });
 
-test('the server keeps answering after a run of bad requests', async () => {
+test('the server keeps answering after a run of bad requests', async ({ t }) => {
   await request(t.app).post('/api/auth/register').set('Content-Type', 'application/json').send('nope');
   await request(t.app).post('/api/auth/register').send({ email: ['a'], password: { x: 1 }, displayName: 7 });
   await request(t.app).patch('/api/admin/users/abc').send({ role: 'king' });

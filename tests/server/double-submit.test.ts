@@ -1,22 +1,20 @@
 /** The same request twice at once (a double click): one takes effect, the other gets a clear answer, never a 500. */
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { Enrollment, Invitation, User } from '../../server/db/models';
 import { inviteOnce } from '../../server/teaching/invitations/service';
-import { createUser, signedIn } from './helpers';
+import { appTest, createUser, signedIn } from './helpers';
 import { createLesson, inviteToken, lessonApp, linkIn, mailsTo } from './lesson-helpers';
 
-let t: Awaited<ReturnType<typeof lessonApp>>;
-beforeEach(async () => {
-  t = await lessonApp();
+/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ines (a teacher) and Theo; disposed after the test. */
+const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
+  const t = apps.adopt(await lessonApp());
   await createUser('ines@harborlane.test', 'teacher');
   await createUser('theo@harborlane.test');
-});
-afterEach(async () => {
-  await t.dispose();
+  return t;
 });
 
-test('two registrations of one e-mail at once: one 201, one 409 EMAIL_TAKEN, and the account exists once', async () => {
+test('two registrations of one e-mail at once: one 201, one 409 EMAIL_TAKEN, and the account exists once', async ({ t }) => {
   const body = { email: 'mina@harborlane.test', password: 'tiles-and-tea', displayName: 'Mina' };
   const answers = await Promise.all([request(t.app).post('/api/auth/register').send(body), request(t.app).post('/api/auth/register').send(body)]);
   expect(answers.map((r) => r.status).sort()).toEqual([201, 409]);
@@ -29,7 +27,7 @@ for (const [who, email] of [
   ['someone with an account', 'theo@harborlane.test'],
   ['an address with no account yet', 'newcomer@harborlane.test'],
 ] as const) {
-  test(`the same invitation sent twice at once to ${who}: both answer 201, one mail goes out, one link works`, async () => {
+  test(`the same invitation sent twice at once to ${who}: both answer 201, one mail goes out, one link works`, async ({ t }) => {
     const ines = await signedIn(t.app, 'ines@harborlane.test');
     const lesson = await createLesson(ines);
     const send = () => ines.post(`/api/lessons/${lesson.id}/invitations`).send({ emails: [email] });
@@ -45,7 +43,7 @@ for (const [who, email] of [
   });
 }
 
-test('inviting the same address again later still sends a new link and ends the old one', async () => {
+test('inviting the same address again later still sends a new link and ends the old one', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   const first = await inviteToken(ines, lesson.id, 'mina@harborlane.test');
@@ -57,7 +55,7 @@ test('inviting the same address again later still sends a new link and ends the 
   expect((await request(t.app).get(`/api/invitations/${third.token}`)).status).toBe(200);
 });
 
-test('a send left half-way by a process that stopped does not block the address for good', async () => {
+test('a send left half-way by a process that stopped does not block the address for good', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   // A send whose mail never finishes, as if its process had died mid-send.

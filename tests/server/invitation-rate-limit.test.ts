@@ -1,21 +1,19 @@
 /** Sending invitations is rate limited per teacher (INVITE_RATE_MAX within INVITE_RATE_WINDOW_MS). */
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { testConfig } from '../../server/config';
 import { Invitation } from '../../server/db/models';
-import { createUser, signedIn } from './helpers';
+import { appTest, createUser, signedIn } from './helpers';
 import { createLesson, lessonApp } from './lesson-helpers';
 
-let t: Awaited<ReturnType<typeof lessonApp>>;
-beforeEach(async () => {
-  t = await lessonApp({ rateLimits: { ...testConfig().rateLimits, invitations: { max: 2, windowMs: 60 * 60 * 1000 } } });
+/** Every test has its own app (`t`), mail going to the local SMTP fake and at most two invitations an hour, with Ines and Ruth (teachers); disposed after the test. */
+const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
+  const t = apps.adopt(await lessonApp({ rateLimits: { ...testConfig().rateLimits, invitations: { max: 2, windowMs: 60 * 60 * 1000 } } }));
   await createUser('ines@harborlane.test', 'teacher');
   await createUser('ruth@harborlane.test', 'teacher');
-});
-afterEach(async () => {
-  await t.dispose();
+  return t;
 });
 
-test('a teacher past the invitation limit is refused with 429 and a message saying to wait; nothing more is sent', async () => {
+test('a teacher past the invitation limit is refused with 429 and a message saying to wait; nothing more is sent', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   for (const email of ['theo@harborlane.test', 'mina@harborlane.test']) {
@@ -27,7 +25,7 @@ test('a teacher past the invitation limit is refused with 429 and a message sayi
   expect((await Invitation.findAll()).map((i) => i.email).sort()).toEqual(['mina@harborlane.test', 'theo@harborlane.test']);
 });
 
-test('the limit is counted per teacher: another teacher may still invite', async () => {
+test('the limit is counted per teacher: another teacher may still invite', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const ruth = await signedIn(t.app, 'ruth@harborlane.test');
   const hers = await createLesson(ines);

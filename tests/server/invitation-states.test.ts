@@ -1,21 +1,19 @@
 /** Why an invitation link no longer works: replaced, expired and used each get their own code and words. */
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { Invitation } from '../../server/db/models';
-import { createUser, signedIn } from './helpers';
+import { appTest, createUser, signedIn } from './helpers';
 import { createLesson, inviteToken, lessonApp } from './lesson-helpers';
 
-let t: Awaited<ReturnType<typeof lessonApp>>;
-beforeEach(async () => {
-  t = await lessonApp();
+/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ines (a teacher) and Mina; disposed after the test. */
+const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
+  const t = apps.adopt(await lessonApp());
   await createUser('ines@harborlane.test', 'teacher');
   await createUser('mina@harborlane.test');
-});
-afterEach(async () => {
-  await t.dispose();
+  return t;
 });
 
-test('a link replaced by a newer invitation says so, on opening and on accepting, and points to the latest mail', async () => {
+test('a link replaced by a newer invitation says so, on opening and on accepting, and points to the latest mail', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   const first = await inviteToken(ines, lesson.id, 'mina@harborlane.test');
@@ -37,7 +35,7 @@ test('a link replaced by a newer invitation says so, on opening and on accepting
   expect((await request(t.app).get(`/api/invitations/${second.token}`)).status).toBe(200);
 });
 
-test('a link that ran out of time with no newer one says it expired; a used one says it was used', async () => {
+test('a link that ran out of time with no newer one says it expired; a used one says it was used', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   const only = await inviteToken(ines, lesson.id, 'mina@harborlane.test');
@@ -57,7 +55,7 @@ test('a link that ran out of time with no newer one says it expired; a used one 
   expect((await request(t.app).get(`/api/invitations/${only.token}`)).body.error.code).toBe('INVITATION_REPLACED');
 });
 
-test('the invite form names each address that is not one, as it was typed', async () => {
+test('the invite form names each address that is not one, as it was typed', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   const res = await ines.post(`/api/lessons/${lesson.id}/invitations`).send({ emails: ['mina@harborlane.test', ' Ruth@HarborLane ', 'x'.repeat(300)] });

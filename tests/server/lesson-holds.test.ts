@@ -1,22 +1,20 @@
 /** A seat held by a checkout still open is shown apart from paid seats, with when the hold ends. */
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { Enrollment, Payment, User } from '../../server/db/models';
-import { createUser, signedIn } from './helpers';
+import { appTest, createUser, signedIn } from './helpers';
 import { createLesson, inviteToken, lessonApp } from './lesson-helpers';
 
-let t: Awaited<ReturnType<typeof lessonApp>>;
-beforeEach(async () => {
-  t = await lessonApp();
+/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ines (a teacher), Theo, Mina and Ruth; disposed after the test. */
+const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
+  const t = apps.adopt(await lessonApp());
   await createUser('ines@harborlane.test', 'teacher');
   for (const name of ['theo', 'mina', 'ruth']) await createUser(`${name}@harborlane.test`);
-});
-afterEach(async () => {
-  await t.dispose();
+  return t;
 });
 
 const minutes = (n: number) => new Date(Date.now() + n * 60_000);
 
-test('paid seats, held seats and the end of the last hold are told apart; a student with two open checkouts holds one seat', async () => {
+test('paid seats, held seats and the end of the last hold are told apart; a student with two open checkouts holds one seat', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines, { priceCents: 1500, currency: 'usd', seats: 4 });
   const ids: Record<string, number> = {};
@@ -48,7 +46,7 @@ test('paid seats, held seats and the end of the last hold are told apart; a stud
   expect((await ines.get(`/api/lessons/${lesson.id}`)).body.lesson).toMatchObject({ seatsTaken: 1, seatsHeld: 0, holdEndsAt: null });
 });
 
-test('a free lesson holds nothing', async () => {
+test('a free lesson holds nothing', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines, { seats: 4 });
   expect((await ines.get(`/api/lessons/${lesson.id}`)).body.lesson).toMatchObject({ seatsTaken: 0, seatsHeld: 0, holdEndsAt: null });

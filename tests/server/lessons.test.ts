@@ -1,20 +1,18 @@
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { Enrollment, Invitation, Mail } from '../../server/db/models';
 import { zonedToUtc } from '../../server/teaching/lessons/time';
-import { createUser, signedIn } from './helpers';
+import { appTest, createUser, signedIn } from './helpers';
 import { createLesson, inviteToken, lessonBody, mailsTo, lessonApp } from './lesson-helpers';
 
-let t: Awaited<ReturnType<typeof lessonApp>>;
-beforeEach(async () => {
-  t = await lessonApp();
+/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ines (a teacher), Theo, Mina and Pat (an admin); disposed after the test. */
+const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
+  const t = apps.adopt(await lessonApp());
   await createUser('ines@harborlane.test', 'teacher');
   await createUser('theo@harborlane.test');
   await createUser('mina@harborlane.test');
   await createUser('pat@harborlane.test', 'admin');
-});
-afterEach(async () => {
-  await t.dispose();
+  return t;
 });
 
 test('wall-clock times in a zone become the right instant, DST gaps are refused', () => {
@@ -27,7 +25,7 @@ test('wall-clock times in a zone become the right instant, DST gaps are refused'
   expect(zonedToUtc('2026-02-30T10:00', 'UTC')).toBeNull();
 });
 
-test('the schedule form: every field is checked, with a message beside it', async () => {
+test('the schedule form: every field is checked, with a message beside it', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const empty = await ines.post('/api/lessons').send({});
   expect(empty.status).toBe(400);
@@ -63,7 +61,7 @@ test('the schedule form: every field is checked, with a message beside it', asyn
   expect(ok.body.lesson).toMatchObject({ title: 'Harbor Lane week 1: passing right', startsAt: '2030-05-14T23:00:00.000Z', timeZone: 'America/New_York', seats: 4, seatsTaken: 0, priceCents: 1500, seed: 'harbor-lane-week-01' });
 });
 
-test('who may do what: signed out 401, wrong role 403, another lesson 403', async () => {
+test('who may do what: signed out 401, wrong role 403, another lesson 403', async ({ t }) => {
   const anon = request(t.app);
   for (const [method, path] of [
     ['get', '/api/lessons'],
@@ -106,7 +104,7 @@ test('who may do what: signed out 401, wrong role 403, another lesson 403', asyn
   expect((await theo.get(`/api/lessons/${lesson.id}`)).body.lesson.seed).toBeNull();
 });
 
-test('an invitation goes out by mail, its link enrols the invitee once', async () => {
+test('an invitation goes out by mail, its link enrols the invitee once', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines, { seats: 4 });
   const sent = await ines.post(`/api/lessons/${lesson.id}/invitations`).send({ emails: ['Theo@HarborLane.test', 'newcomer@harborlane.test'] });
@@ -146,7 +144,7 @@ test('an invitation goes out by mail, its link enrols the invitee once', async (
   expect(await Enrollment.count()).toBe(1);
 });
 
-test('expired, altered and superseded links are refused with a clear message', async () => {
+test('expired, altered and superseded links are refused with a clear message', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   const first = await inviteToken(ines, lesson.id, 'mina@harborlane.test');
@@ -170,7 +168,7 @@ test('expired, altered and superseded links are refused with a clear message', a
   expect(await Enrollment.count({ where: { status: 'enrolled' } })).toBe(0);
 });
 
-test('the invite form: addresses are checked, an accepted student is not invited twice', async () => {
+test('the invite form: addresses are checked, an accepted student is not invited twice', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   expect((await ines.post(`/api/lessons/${lesson.id}/invitations`).send({ emails: [] })).body.error.fields.emails).toMatch(/at least one/);
@@ -183,7 +181,7 @@ test('the invite form: addresses are checked, an accepted student is not invited
   expect(await Mail.count({ where: { kind: 'invitation' } })).toBe(1);
 });
 
-test('a free lesson fills: the last seat goes to one of two students who accept at once', async () => {
+test('a free lesson fills: the last seat goes to one of two students who accept at once', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines, { seats: 1 });
   const theo = await inviteToken(ines, lesson.id, 'theo@harborlane.test');
@@ -198,7 +196,7 @@ test('a free lesson fills: the last seat goes to one of two students who accept 
   expect(await Enrollment.count({ where: { lessonId: lesson.id, status: 'enrolled' } })).toBe(1);
 });
 
-test('the outbox: teachers read what they sent, admins everything, players nothing', async () => {
+test('the outbox: teachers read what they sent, admins everything, players nothing', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');
   const lesson = await createLesson(ines);
   await inviteToken(ines, lesson.id, 'theo@harborlane.test');

@@ -1,23 +1,21 @@
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { Mail, PasswordReset } from '../../server/db/models';
 import { createMailer } from '../../server/services/mail/mailer';
 import { readToken } from '../../server/services/tokens';
-import { createUser, signedIn } from './helpers';
+import { appTest, createUser, signedIn } from './helpers';
 import { lessonApp, linkIn, mailsTo } from './lesson-helpers';
 
-let t: Awaited<ReturnType<typeof lessonApp>>;
-beforeEach(async () => {
-  t = await lessonApp();
+/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ruth; disposed after the test. */
+const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
+  const t = apps.adopt(await lessonApp());
   await createUser('ruth@harborlane.test', 'player', 'old-password-1');
-});
-afterEach(async () => {
-  await t.dispose();
+  return t;
 });
 
 const tokenOf = (link: string) => new URL(link).pathname.split('/').pop()!;
 
-test('the SMTP fake keeps what nodemailer sends: addresses, subject, both parts, our headers', async () => {
+test('the SMTP fake keeps what nodemailer sends: addresses, subject, both parts, our headers', async ({ t }) => {
   const mailer = createMailer(t.config);
   await mailer.send({ to: 'Sol Varga <sol@harborlane.test>', subject: 'Tiles on Thursday', text: 'Plain words.', html: '<p>Plain <b>words</b>.</p>', kind: 'invitation', senderId: 7 });
   mailer.close();
@@ -28,7 +26,7 @@ test('the SMTP fake keeps what nodemailer sends: addresses, subject, both parts,
   expect(mail.html).toContain('<b>words</b>');
 });
 
-test('a password reset goes by mail; its link sets a new password once', async () => {
+test('a password reset goes by mail; its link sets a new password once', async ({ t }) => {
   const anon = request(t.app);
   const asked = await anon.post('/api/auth/password-reset').send({ email: 'Ruth@HarborLane.test' });
   expect(asked.status).toBe(200);
@@ -52,7 +50,7 @@ test('a password reset goes by mail; its link sets a new password once', async (
   expect(reused.body.error).toMatchObject({ code: 'RESET_USED' });
 });
 
-test('reset links: unknown addresses get the same answer and no mail; expired and altered links are refused', async () => {
+test('reset links: unknown addresses get the same answer and no mail; expired and altered links are refused', async ({ t }) => {
   const anon = request(t.app);
   const unknown = await anon.post('/api/auth/password-reset').send({ email: 'nobody@harborlane.test' });
   const known = await anon.post('/api/auth/password-reset').send({ email: 'ruth@harborlane.test' });
@@ -73,15 +71,11 @@ test('reset links: unknown addresses get the same answer and no mail; expired an
   expect(expired.body.error.message).toMatch(/expired. Ask for a new one/);
 });
 
-test('reset requests are limited per address', async () => {
-  const limited = await lessonApp({ rateLimits: { ...t.config.rateLimits, passwordReset: { max: 2, windowMs: 60_000 } } });
-  try {
-    const anon = request(limited.app);
-    for (let i = 0; i < 2; i++) expect((await anon.post('/api/auth/password-reset').send({ email: 'sol@harborlane.test' })).status).toBe(200);
-    const third = await anon.post('/api/auth/password-reset').send({ email: 'sol@harborlane.test' });
-    expect(third.status).toBe(429);
-    expect(third.body.error.message).toMatch(/Too many reset requests/);
-  } finally {
-    await limited.dispose();
-  }
+test('reset requests are limited per address', async ({ t, apps }) => {
+  const limited = apps.adopt(await lessonApp({ rateLimits: { ...t.config.rateLimits, passwordReset: { max: 2, windowMs: 60_000 } } }));
+  const anon = request(limited.app);
+  for (let i = 0; i < 2; i++) expect((await anon.post('/api/auth/password-reset').send({ email: 'sol@harborlane.test' })).status).toBe(200);
+  const third = await anon.post('/api/auth/password-reset').send({ email: 'sol@harborlane.test' });
+  expect(third.status).toBe(429);
+  expect(third.body.error.message).toMatch(/Too many reset requests/);
 });

@@ -1,18 +1,13 @@
-import { afterEach, beforeEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { starterPatterns } from '../../shared/analysis';
 import { DrillRow, PatternListRow } from '../../server/db/models';
 import { seedDemo } from '../../server/db/seed';
-import { makeApp, signedIn, type TestApp } from './helpers';
+import { appTest, signedIn } from './helpers';
 
-let app: TestApp;
-beforeEach(async () => {
-  app = await makeApp();
-});
-afterEach(async () => {
-  await app.dispose();
-});
+/** Every test has its own app (`app`); disposed after the test. */
+const test = appTest.extend('app', { auto: true }, async ({ apps }) => apps.make());
 
-test('the demo gives Ines a copy of the starter list and the week 1 drill that uses it, once', async () => {
+test('the demo gives Ines a copy of the starter list and the week 1 drill that uses it, once', async ({ app }) => {
   expect(await seedDemo(4)).toBe(true);
   const ines = await signedIn(app.app, 'ines@harborlane.test', 'harbor-lane-demo');
   const drills = (await ines.get('/api/drills')).body.drills;
