@@ -35,10 +35,10 @@ export class AppKit {
     return this.adopt(await makeApp(overrides));
   }
 
-  /** Disposes this after the test; returns it. */
-  adopt<T extends { dispose(): Promise<unknown> }>(disposable: T): T {
-    this.disposers.push(() => disposable.dispose());
-    return disposable;
+  /** Disposes (or closes) this after the test; returns it. */
+  adopt<T extends { dispose(): Promise<unknown> } | { close(): unknown }>(app: T): T {
+    this.disposers.push(async () => ('dispose' in app ? app.dispose() : app.close()));
+    return app;
   }
 
   async close() {

@@ -195,18 +195,19 @@ export class LiveKit {
   }
 }
 
+/** The `live` fixture: a kit closed, with all it holds, when the test ends. For `test.extend('live', liveKit)`. */
+// eslint-disable-next-line no-empty-pattern -- vitest reads a fixture's dependencies from this pattern
+export async function liveKit({}: object, { onCleanup }: { onCleanup: (cleanup: () => Promise<void>) => void }) {
+  const kit = new LiveKit();
+  onCleanup(() => kit.close());
+  return kit;
+}
+
 /**
  * Tests with a live kit: `live` starts servers on demand; `server` is one started with the test
  * defaults. Both are closed, with every client made through the kit, when the test ends.
  */
-export const liveTest = test
-  // eslint-disable-next-line no-empty-pattern -- vitest reads a fixture's dependencies from this pattern
-  .extend('live', async ({}, { onCleanup }) => {
-    const kit = new LiveKit();
-    onCleanup(() => kit.close());
-    return kit;
-  })
-  .extend('server', async ({ live }) => live.ready());
+export const liveTest = test.extend('live', liveKit).extend('server', async ({ live }) => live.ready());
 
 /** A plain legal choice for a seat from its own latest state: the first non-joker tiles, optional blind. */
 export function simpleAction(state: TableStateDto, opts: { blind?: number; stop?: boolean; ask?: 0 | 1 | 2 | 3 } = {}): Action | null {

@@ -8,36 +8,19 @@ import type { AddressInfo } from 'node:net';
 import pino from 'pino';
 import { io as connect } from 'socket.io-client';
 import request from 'supertest';
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { createApplication } from '../../server/app';
 import { testConfig } from '../../server/config';
 import { AuditEntry } from '../../server/db/models';
-import { createUser, makeApp, sessionCookie, signedIn, type TestApp } from './helpers';
-import { client, Client, fullTable, liveServer, type Server } from './live';
+import { appTest, createUser, sessionCookie, signedIn, type TestApp } from './helpers';
+import { liveKit } from './live';
 
-const disposers: (() => Promise<unknown>)[] = [];
-afterEach(async () => {
-  for (const d of disposers.splice(0).reverse()) await d();
-});
-
-async function app(overrides: Parameters<typeof makeApp>[0] = {}) {
-  const t = await makeApp(overrides);
-  disposers.push(() => t.dispose());
-  return t;
-}
-async function live(overrides: Parameters<typeof liveServer>[0] = {}) {
-  const s = await liveServer(overrides);
-  disposers.push(() => s.close());
-  return s;
-}
-function track(...cs: Client[]) {
-  disposers.push(async () => cs.forEach((c) => c.socket.disconnect()));
-  return cs;
-}
+/** `apps` and `live`: whatever a test starts through them is closed after it. */
+const test = appTest.extend('live', liveKit);
 const login = (t: TestApp, email: string) => request(t.app).post('/api/auth/login').send({ email, password: 'correct horse' });
 
-test('ASVS 3.5.1: a state-changing request from another site is refused with 403; our own pages pass', async () => {
-  const t = await app();
+test('ASVS 3.5.1: a state-changing request from another site is refused with 403; our own pages pass', async ({ apps }) => {
+  const t = await apps.make();
   await createUser('theo@harborlane.test');
   const foreign = await request(t.app).post('/api/auth/login').set('Origin', 'https://elsewhere.test').send({ email: 'theo@harborlane.test', password: 'correct horse' });
   expect(foreign.status).toBe(403);
@@ -51,8 +34,8 @@ test('ASVS 3.5.1: a state-changing request from another site is refused with 403
   expect(reading.status).toBe(200);
 });
 
-test('ASVS 3.5.1: every state-changing route is covered by the origin check, signed in or not', async () => {
-  const t = await app();
+test('ASVS 3.5.1: every state-changing route is covered by the origin check, signed in or not', async ({ apps }) => {
+  const t = await apps.make();
   await createUser('pat@harborlane.test', 'admin');
   const admin = await signedIn(t.app, 'pat@harborlane.test');
   for (const [method, path] of [
@@ -68,9 +51,9 @@ test('ASVS 3.5.1: every state-changing route is covered by the origin check, sig
   }
 });
 
-test('ASVS 4.4.2: the Socket.IO handshake refuses an Origin that is not ours', async () => {
-  const s = await live();
-  const c = track(await client(s, 'Theo'))[0];
+test('ASVS 4.4.2: the Socket.IO handshake refuses an Origin that is not ours', async ({ live }) => {
+  const s = await live.start();
+  const c = await live.client('Theo');
   const foreign = connect(s.url, { transports: ['websocket'], reconnection: false, extraHeaders: { Cookie: c.cookie, Origin: 'https://elsewhere.test' } });
   const err = await new Promise<Error>((resolve) => foreign.on('connect_error', resolve));
   expect(err).toBeTruthy();
@@ -85,8 +68,8 @@ test('ASVS 4.4.2: the Socket.IO handshake refuses an Origin that is not ours', a
   own.disconnect();
 });
 
-test('ASVS 3.4.3, 3.4.4, 3.4.6: security headers and a content security policy without inline script', async () => {
-  const t = await app();
+test('ASVS 3.4.3, 3.4.4, 3.4.6: security headers and a content security policy without inline script', async ({ apps }) => {
+  const t = await apps.make();
   const res = await request(t.app).get('/api/health');
   const csp = res.headers['content-security-policy'];
   const scriptSrc = csp.split(';').find((d: string) => d.trim().startsWith('script-src '))!;
@@ -98,24 +81,24 @@ test('ASVS 3.4.3, 3.4.4, 3.4.6: security headers and a content security policy w
   expect(res.headers['x-powered-by']).toBeUndefined();
 });
 
-test('ASVS 3.3.1, 3.3.2, 3.3.4: the session cookie is HttpOnly and SameSite=Lax, and Secure behind TLS', async () => {
-  const plain = await app();
+test('ASVS 3.3.1, 3.3.2, 3.3.4: the session cookie is HttpOnly and SameSite=Lax, and Secure behind TLS', async ({ apps }) => {
+  const plain = await apps.make();
   await createUser('mina@harborlane.test');
   const cookie = sessionCookie(await login(plain, 'mina@harborlane.test'))!;
   expect(cookie).toMatch(/HttpOnly/);
   expect(cookie).toMatch(/SameSite=Lax/);
   expect(cookie).not.toMatch(/Secure/);
   const secure = createApplication({ config: testConfig({ trustProxy: true }), sequelize: plain.sequelize });
-  disposers.push(async () => secure.close());
+  apps.adopt(secure);
   const tls = await request(secure.app).post('/api/auth/login').set('X-Forwarded-Proto', 'https').send({ email: 'mina@harborlane.test', password: 'correct horse' });
   expect(sessionCookie(tls)).toMatch(/Secure/);
 });
 
 // ASVS 7.3.1 and 7.3.2 (idle and absolute session lifetimes) are in session-lifetime.test.ts, on a clock the test moves.
 
-test('ASVS 7.2.4 and 7.4.1: sign-in issues a new session id; sign-out ends it and closes its sockets', async () => {
-  const s = await live();
-  const c = track(await client(s, 'Theo'))[0];
+test('ASVS 7.2.4 and 7.4.1: sign-in issues a new session id; sign-out ends it and closes its sockets', async ({ live }) => {
+  const s = await live.start();
+  const c = await live.client('Theo');
   const again = await request(s.url).post('/api/auth/login').set('Cookie', c.cookie).send({ email: 'theo@harborlane.test', password: 'tiles-and-tea' });
   const fresh = sessionCookie(again)!.split(';')[0];
   expect(fresh).not.toBe(c.cookie);
@@ -128,8 +111,8 @@ test('ASVS 7.2.4 and 7.4.1: sign-in issues a new session id; sign-out ends it an
   expect((await request(s.url).get('/api/auth/me').set('Cookie', fresh)).status).toBe(401);
 });
 
-test('ASVS 6.3.1 and 2.4.1: registration is rate limited per address', async () => {
-  const t = await app({ rateLimits: { ...testConfig().rateLimits, register: { max: 2, windowMs: 60_000 } } });
+test('ASVS 6.3.1 and 2.4.1: registration is rate limited per address', async ({ apps }) => {
+  const t = await apps.make({ rateLimits: { ...testConfig().rateLimits, register: { max: 2, windowMs: 60_000 } } });
   for (let i = 0; i < 2; i++) {
     const ok = await request(t.app).post('/api/auth/register').send({ email: `p${i}@harborlane.test`, password: 'tiles-and-tea', displayName: `P${i}` });
     expect(ok.status).toBe(201);
@@ -139,22 +122,19 @@ test('ASVS 6.3.1 and 2.4.1: registration is rate limited per address', async () 
   expect(blocked.body.error.code).toBe('RATE_LIMITED');
 });
 
-test('ASVS 2.4.1: chat is rate limited per person', async () => {
-  const s: Server = await live({ rateLimits: { ...testConfig().rateLimits, chatPerMinute: 3 } });
-  const t = await fullTable(s);
-  track(...t.clients);
+test('ASVS 2.4.1: chat is rate limited per person', async ({ live }) => {
+  await live.start({ rateLimits: { ...testConfig().rateLimits, chatPerMinute: 3 } });
+  const t = await live.fullTable();
   for (let i = 0; i < 3; i++) await t.host.ok('chat:send', { text: `hello ${i}` });
   expect(await t.host.emit('chat:send', { text: 'one too many' })).toMatchObject({ ok: false, code: 'RATE_LIMITED' });
   await t.clients[1].ok('chat:send', { text: 'others may still talk' });
 });
 
-test('ASVS 16.3.1 and 16.2.5: failed sign-ins are logged with the e-mail and address, never the password', async () => {
+test('ASVS 16.3.1 and 16.2.5: failed sign-ins are logged with the e-mail and address, never the password', async ({ apps }) => {
   const lines: string[] = [];
   const logger = pino({ level: 'info' }, new Writable({ write: (chunk, _e, done) => (lines.push(String(chunk)), done()) }));
-  const base = await makeApp();
-  disposers.push(() => base.dispose());
-  const t = createApplication({ config: testConfig({ loginRateLimit: { max: 2, windowMs: 60_000 } }), sequelize: base.sequelize, logger });
-  disposers.push(async () => t.close());
+  const base = await apps.make();
+  const t = apps.adopt(createApplication({ config: testConfig({ loginRateLimit: { max: 2, windowMs: 60_000 } }), sequelize: base.sequelize, logger }));
   await createUser('ines@harborlane.test');
   for (let i = 0; i < 3; i++) await request(t.app).post('/api/auth/login').send({ email: 'ines@harborlane.test', password: `secret-guess-${i}` });
   const events = lines.map((l) => JSON.parse(l));
@@ -164,8 +144,8 @@ test('ASVS 16.3.1 and 16.2.5: failed sign-ins are logged with the e-mail and add
   expect(lines.join('\n')).not.toMatch(/secret-guess/);
 });
 
-test('ASVS 16.3.2: an admin role change is written to the audit log, which only admins can read', async () => {
-  const t = await app();
+test('ASVS 16.3.2: an admin role change is written to the audit log, which only admins can read', async ({ apps }) => {
+  const t = await apps.make();
   await createUser('pat@harborlane.test', 'admin');
   const theo = await createUser('theo@harborlane.test');
   const admin = await signedIn(t.app, 'pat@harborlane.test');
@@ -180,16 +160,16 @@ test('ASVS 16.3.2: an admin role change is written to the audit log, which only 
   expect((await player.get('/api/admin/audit')).status).toBe(403);
 });
 
-test('limits: an over-large JSON body gets 413 and a clear code', async () => {
-  const t = await app();
+test('limits: an over-large JSON body gets 413 and a clear code', async ({ apps }) => {
+  const t = await apps.make();
   const res = await request(t.app).post('/api/auth/register').set('Content-Type', 'application/json').send(JSON.stringify({ email: 'a@b.test', password: 'x'.repeat(200_000), displayName: 'A' }));
   expect(res.status).toBe(413);
   expect(res.body.error.code).toBe('TOO_LARGE');
 });
 
-test('limits: a socket message over the buffer limit is dropped with its connection, and the server goes on', async () => {
-  const s = await live();
-  const [c] = track(await client(s, 'Mina'));
+test('limits: a socket message over the buffer limit is dropped with its connection, and the server goes on', async ({ live }) => {
+  const s = await live.start();
+  const c = await live.client('Mina');
   const gone = new Promise((resolve) => c.socket.on('disconnect', resolve));
   c.socket.emit('chat:send', { text: 'x'.repeat(100_000) });
   await gone;
@@ -198,8 +178,8 @@ test('limits: a socket message over the buffer limit is dropped with its connect
   expect(port).toBeGreaterThan(0);
 });
 
-test('readiness: /api/health says ready while serving and not ready once shutdown begins', async () => {
-  const t = await app();
+test('readiness: /api/health says ready while serving and not ready once shutdown begins', async ({ apps }) => {
+  const t = await apps.make();
   expect((await request(t.app).get('/api/health')).body).toMatchObject({ ok: true, ready: true });
   t.drain();
   const res = await request(t.app).get('/api/health');

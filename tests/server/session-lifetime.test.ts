@@ -5,34 +5,34 @@
  */
 import { io as connect } from 'socket.io-client';
 import request from 'supertest';
-import { afterEach, beforeEach, expect, test, vi } from 'vitest';
-import { createUser, makeApp, sessionCookie } from './helpers';
-import { liveServer, register } from './live';
+import { afterEach, beforeEach, expect, vi } from 'vitest';
+import { appTest, createUser, sessionCookie } from './helpers';
+import { liveKit, register } from './live';
 
 const MINUTE = 60 * 1000;
-const disposers: (() => Promise<unknown>)[] = [];
 
 beforeEach(() => {
   // Only Date is faked: timers, sockets and the database run as usual, and the clock moves only when told.
   vi.useFakeTimers({ toFake: ['Date'] });
   vi.setSystemTime(new Date('2030-01-07T09:00:00Z'));
 });
-afterEach(async () => {
-  for (const d of disposers.splice(0).reverse()) await d();
+afterEach(() => {
   vi.useRealTimers();
 });
 
 const wait = (ms: number) => vi.setSystemTime(Date.now() + ms);
 
-async function app() {
-  const t = await makeApp();
-  disposers.push(() => t.dispose());
-  await createUser('ruth@harborlane.test');
-  const login = await request(t.app).post('/api/auth/login').send({ email: 'ruth@harborlane.test', password: 'correct horse' });
-  return { t, cookie: sessionCookie(login)!.split(';')[0] };
-}
+/** `app()` makes an app with Ruth signed in, and `live` starts servers; both are closed after the test. */
+const test = appTest
+  .extend('app', async ({ apps }) => async () => {
+    const t = await apps.make();
+    await createUser('ruth@harborlane.test');
+    const login = await request(t.app).post('/api/auth/login').send({ email: 'ruth@harborlane.test', password: 'correct horse' });
+    return { t, cookie: sessionCookie(login)!.split(';')[0] };
+  })
+  .extend('live', liveKit);
 
-test('ASVS 7.3.1: a session idle past its lifetime is refused, and stays refused with the old cookie replayed', async () => {
+test('ASVS 7.3.1: a session idle past its lifetime is refused, and stays refused with the old cookie replayed', async ({ app }) => {
   const { t, cookie } = await app();
   const idle = t.config.sessionMaxAgeMs;
   const me = () => request(t.app).get('/api/auth/me').set('Cookie', cookie);
@@ -47,7 +47,7 @@ test('ASVS 7.3.1: a session idle past its lifetime is refused, and stays refused
 });
 
 // The idle check reads the row's `expires` column, which the store's touch moves on at every request.
-test('each request pushes the idle deadline on', async () => {
+test('each request pushes the idle deadline on', async ({ app }) => {
   const { t, cookie } = await app();
   const idle = t.config.sessionMaxAgeMs;
   const me = () => request(t.app).get('/api/auth/me').set('Cookie', cookie);
@@ -58,10 +58,9 @@ test('each request pushes the idle deadline on', async () => {
   expect((await me()).status).toBe(200);
 });
 
-test('ASVS 7.3.2: a session ends at its absolute lifetime however active it is, on REST and on the socket', async () => {
+test('ASVS 7.3.2: a session ends at its absolute lifetime however active it is, on REST and on the socket', async ({ live }) => {
   // An idle lifetime longer than the absolute one, so only the absolute deadline can end the session.
-  const server = await liveServer({ sessionMaxAgeMs: 24 * 60 * MINUTE });
-  disposers.push(() => server.close());
+  const server = await live.start({ sessionMaxAgeMs: 24 * 60 * MINUTE });
   const cookie = await register(server, 'Sol');
   const me = () => request(server.url).get('/api/auth/me').set('Cookie', cookie);
   const absolute = server.config.sessionAbsoluteMs;
