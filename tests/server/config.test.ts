@@ -5,9 +5,9 @@
 import { spawn } from 'node:child_process';
 import Stripe from 'stripe';
 import request from 'supertest';
-import { afterEach, expect, test } from 'vitest';
+import { expect } from 'vitest';
 import { LOCAL_STRIPE_KEY, LOCAL_WEBHOOK_SECRET, loadConfig } from '../../server/config';
-import { makeApp, type TestApp } from './helpers';
+import { appTest as test } from './helpers';
 
 /** Secrets long enough to be accepted in production. */
 const S = 'session-secret-0123456789';
@@ -96,14 +96,8 @@ test('the server does not start in production without its secrets, and says whic
   expect(realKey.stderr).toMatch(/STRIPE_WEBHOOK_SECRET is not set/);
 }, 60_000);
 
-let app: TestApp | undefined;
-afterEach(async () => {
-  await app?.dispose();
-  app = undefined;
-});
-
-test('with payments off, no webhook is taken, not even one signed with the local stand-in secret', async () => {
-  app = await makeApp();
+test('with payments off, no webhook is taken, not even one signed with the local stand-in secret', async ({ apps }) => {
+  const app = await apps.make();
   const body = JSON.stringify({ id: 'evt_1', object: 'event', type: 'checkout.session.completed', created: Math.floor(Date.now() / 1000), data: { object: { id: 'cs_test_1' } } });
   // stripe-node docs: webhooks.generateTestHeaderString signs a payload for tests.
   const signature = Stripe.webhooks.generateTestHeaderString({ payload: body, secret: LOCAL_WEBHOOK_SECRET });

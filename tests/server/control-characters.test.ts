@@ -4,8 +4,8 @@
  * The routes are read from the Express routers themselves, so a new `:param` route is covered too.
  */
 import request from 'supertest';
-import { afterAll, beforeAll, expect, test } from 'vitest';
-import { createUser, makeApp, signedIn, type TestApp } from './helpers';
+import { afterAll, beforeAll, expect } from 'vitest';
+import { appTest as test, createUser, makeApp, signedIn, type TestApp } from './helpers';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 interface RouteLayer {
@@ -90,30 +90,22 @@ test('a control character in the query string (?seed=%00 and any other) answers 
   expect((await admin.get('/api/comparisons').query('seed=harbor-lane-week-05')).status).not.toBe(400);
 });
 
-test('a control character in any string of a JSON body is refused with 400, naming the field, before any route reads it', async () => {
-  const t = await makeApp();
+test('a control character in any string of a JSON body is refused with 400, naming the field, before any route reads it', async ({ apps }) => {
+  const t = await apps.make();
   await createUser('ines@harborlane.test', 'teacher');
   const ines = await signedIn(t.app, 'ines@harborlane.test');
-  try {
-    const table = await ines.post('/api/tables').send({ name: 't', options: { patternListId: 'a\u0000b' } });
-    expect(table.status).toBe(400);
-    expect(table.body.error.fields).toEqual({ 'options.patternListId': expect.any(String) });
-    expect((await ines.post('/api/tables').send({ name: 't', drillId: 'a\u0000b' })).status).toBe(400);
-    expect((await ines.post('/api/tables').send({ name: 'nul\u0000table' })).status).toBe(400);
-    // Line breaks and tabs are text people type: still welcome where a field takes them.
-    expect((await ines.post('/api/tables').send({ name: 'Tuesday\ttable' })).status).not.toBe(400);
-  } finally {
-    await t.dispose();
-  }
+  const table = await ines.post('/api/tables').send({ name: 't', options: { patternListId: 'a\u0000b' } });
+  expect(table.status).toBe(400);
+  expect(table.body.error.fields).toEqual({ 'options.patternListId': expect.any(String) });
+  expect((await ines.post('/api/tables').send({ name: 't', drillId: 'a\u0000b' })).status).toBe(400);
+  expect((await ines.post('/api/tables').send({ name: 'nul\u0000table' })).status).toBe(400);
+  // Line breaks and tabs are text people type: still welcome where a field takes them.
+  expect((await ines.post('/api/tables').send({ name: 'Tuesday\ttable' })).status).not.toBe(400);
 });
 
-test('C1 control characters (such as U+009B) in a JSON body are refused too', async () => {
-  const t = await makeApp();
+test('C1 control characters (such as U+009B) in a JSON body are refused too', async ({ apps }) => {
+  const t = await apps.make();
   await createUser('ines@harborlane.test', 'teacher');
   const ines = await signedIn(t.app, 'ines@harborlane.test');
-  try {
-    expect((await ines.post('/api/tables').send({ name: 'csi\u009btable' })).status).toBe(400);
-  } finally {
-    await t.dispose();
-  }
+  expect((await ines.post('/api/tables').send({ name: 'csi\u009btable' })).status).toBe(400);
 });
