@@ -3,16 +3,10 @@ import request from 'supertest';
 import { expect } from 'vitest';
 import { Enrollment, Invitation, User } from '../../server/db/models';
 import { inviteOnce } from '../../server/teaching/invitations/service';
-import { appTest, createUser, signedIn } from './helpers';
-import { createLesson, inviteToken, lessonApp, linkIn, mailsTo } from './lesson-helpers';
+import { signedIn } from './helpers';
+import { createLesson, inviteToken, lessonTest, linkIn, mailsTo } from './lesson-helpers';
 
-/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ines (a teacher) and Theo; disposed after the test. */
-const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
-  const t = apps.adopt(await lessonApp());
-  await createUser('ines@harborlane.test', 'teacher');
-  await createUser('theo@harborlane.test');
-  return t;
-});
+const test = lessonTest([['ines@harborlane.test', 'teacher'], ['theo@harborlane.test']]);
 
 test('two registrations of one e-mail at once: one 201, one 409 EMAIL_TAKEN, and the account exists once', async ({ t }) => {
   const body = { email: 'mina@harborlane.test', password: 'tiles-and-tea', displayName: 'Mina' };

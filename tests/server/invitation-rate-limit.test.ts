@@ -2,16 +2,16 @@
 import { expect } from 'vitest';
 import { testConfig } from '../../server/config';
 import { Invitation } from '../../server/db/models';
-import { appTest, createUser, signedIn } from './helpers';
-import { createLesson, lessonApp } from './lesson-helpers';
+import { signedIn } from './helpers';
+import { createLesson, lessonTest } from './lesson-helpers';
 
-/** Every test has its own app (`t`), mail going to the local SMTP fake and at most two invitations an hour, with Ines and Ruth (teachers); disposed after the test. */
-const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
-  const t = apps.adopt(await lessonApp({ rateLimits: { ...testConfig().rateLimits, invitations: { max: 2, windowMs: 60 * 60 * 1000 } } }));
-  await createUser('ines@harborlane.test', 'teacher');
-  await createUser('ruth@harborlane.test', 'teacher');
-  return t;
-});
+const test = lessonTest(
+  [
+    ['ines@harborlane.test', 'teacher'],
+    ['ruth@harborlane.test', 'teacher'],
+  ],
+  { rateLimits: { ...testConfig().rateLimits, invitations: { max: 2, windowMs: 60 * 60 * 1000 } } },
+);
 
 test('a teacher past the invitation limit is refused with 429 and a message saying to wait; nothing more is sent', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');

@@ -2,16 +2,10 @@
 import request from 'supertest';
 import { expect } from 'vitest';
 import { Invitation } from '../../server/db/models';
-import { appTest, createUser, signedIn } from './helpers';
-import { createLesson, inviteToken, lessonApp } from './lesson-helpers';
+import { signedIn } from './helpers';
+import { createLesson, inviteToken, lessonTest } from './lesson-helpers';
 
-/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ines (a teacher) and Mina; disposed after the test. */
-const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
-  const t = apps.adopt(await lessonApp());
-  await createUser('ines@harborlane.test', 'teacher');
-  await createUser('mina@harborlane.test');
-  return t;
-});
+const test = lessonTest([['ines@harborlane.test', 'teacher'], ['mina@harborlane.test']]);
 
 test('a link replaced by a newer invitation says so, on opening and on accepting, and points to the latest mail', async ({ t }) => {
   const ines = await signedIn(t.app, 'ines@harborlane.test');

@@ -1,9 +1,9 @@
 /** Helpers for lesson, mail and payment tests: the SMTP fake, mailed links, lessons in a few lines. */
 import request from 'supertest';
-import { Mail } from '../../server/db/models';
+import { Mail, type Role } from '../../server/db/models';
 import type { Config } from '../../server/config';
 import { startFakeSmtp } from '../../server/services/mail/fake-smtp';
-import { makeApp } from './helpers';
+import { appTest, createUser, makeApp } from './helpers';
 
 /** An app on its own database whose mail goes over SMTP to the local fake. */
 export async function lessonApp(overrides: Partial<Config> = {}) {
@@ -17,6 +17,18 @@ export async function lessonApp(overrides: Partial<Config> = {}) {
       await smtp.close();
     },
   };
+}
+
+/**
+ * A test API whose every test has its own lesson app (`t`, with these config overrides) and these
+ * accounts (an address, a role, a password), all disposed after the test.
+ */
+export function lessonTest(accounts: [email: string, role?: Role, password?: string][], overrides: Partial<Config> = {}) {
+  return appTest.extend('t', { auto: true }, async ({ apps }) => {
+    const t = apps.adopt(await lessonApp(overrides));
+    for (const [email, role, password] of accounts) await createUser(email, role, password);
+    return t;
+  });
 }
 
 export async function mailsTo(email: string, kind?: string) {

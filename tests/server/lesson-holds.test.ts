@@ -1,16 +1,10 @@
 /** A seat held by a checkout still open is shown apart from paid seats, with when the hold ends. */
 import { expect } from 'vitest';
 import { Enrollment, Payment, User } from '../../server/db/models';
-import { appTest, createUser, signedIn } from './helpers';
-import { createLesson, inviteToken, lessonApp } from './lesson-helpers';
+import { signedIn } from './helpers';
+import { createLesson, inviteToken, lessonTest } from './lesson-helpers';
 
-/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ines (a teacher), Theo, Mina and Ruth; disposed after the test. */
-const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
-  const t = apps.adopt(await lessonApp());
-  await createUser('ines@harborlane.test', 'teacher');
-  for (const name of ['theo', 'mina', 'ruth']) await createUser(`${name}@harborlane.test`);
-  return t;
-});
+const test = lessonTest([['ines@harborlane.test', 'teacher'], ['theo@harborlane.test'], ['mina@harborlane.test'], ['ruth@harborlane.test']]);
 
 const minutes = (n: number) => new Date(Date.now() + n * 60_000);
 

@@ -2,18 +2,10 @@ import request from 'supertest';
 import { expect } from 'vitest';
 import { Enrollment, Invitation, Mail } from '../../server/db/models';
 import { zonedToUtc } from '../../server/teaching/lessons/time';
-import { appTest, createUser, signedIn } from './helpers';
-import { createLesson, inviteToken, lessonBody, mailsTo, lessonApp } from './lesson-helpers';
+import { createUser, signedIn } from './helpers';
+import { createLesson, inviteToken, lessonBody, lessonTest, mailsTo } from './lesson-helpers';
 
-/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ines (a teacher), Theo, Mina and Pat (an admin); disposed after the test. */
-const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
-  const t = apps.adopt(await lessonApp());
-  await createUser('ines@harborlane.test', 'teacher');
-  await createUser('theo@harborlane.test');
-  await createUser('mina@harborlane.test');
-  await createUser('pat@harborlane.test', 'admin');
-  return t;
-});
+const test = lessonTest([['ines@harborlane.test', 'teacher'], ['theo@harborlane.test'], ['mina@harborlane.test'], ['pat@harborlane.test', 'admin']]);
 
 test('wall-clock times in a zone become the right instant, DST gaps are refused', () => {
   // US clocks (from memory, tz database rules): forward on 8 March 2026 at 02:00, back on 1 November 2026 at 02:00.

@@ -3,15 +3,10 @@ import { expect } from 'vitest';
 import { Mail, PasswordReset } from '../../server/db/models';
 import { createMailer } from '../../server/services/mail/mailer';
 import { readToken } from '../../server/services/tokens';
-import { appTest, createUser, signedIn } from './helpers';
-import { lessonApp, linkIn, mailsTo } from './lesson-helpers';
+import { signedIn } from './helpers';
+import { lessonApp, lessonTest, linkIn, mailsTo } from './lesson-helpers';
 
-/** Every test has its own app (`t`), mail going to the local SMTP fake, with Ruth; disposed after the test. */
-const test = appTest.extend('t', { auto: true }, async ({ apps }) => {
-  const t = apps.adopt(await lessonApp());
-  await createUser('ruth@harborlane.test', 'player', 'old-password-1');
-  return t;
-});
+const test = lessonTest([['ruth@harborlane.test', 'player', 'old-password-1']]);
 
 const tokenOf = (link: string) => new URL(link).pathname.split('/').pop()!;
 
