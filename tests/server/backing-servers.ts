@@ -118,3 +118,30 @@ export async function startPostgres(): Promise<RunningPostgres> {
     },
   };
 }
+
+/**
+ * One Rackside process as it runs in production, on its own free port, with `env` on top of this
+ * process's environment; resolves once it says it is ready. The caller kills it (`child`).
+ */
+export async function startRackside(env: Record<string, string>): Promise<{ child: ChildProcess; port: number; url: string }> {
+  const port = await freePort();
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: { ...process.env, BCRYPT_ROUNDS: '4', BOT_DELAY_MS: '0', CLIENT_DIR: 'none', LOG_LEVEL: 'error', ...env, PORT: String(port) },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  await new Promise<void>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error('a Rackside process did not start')), 30_000);
+    child.stdout!.on('data', (d: Buffer) => {
+      if (d.toString().includes('ready on')) {
+        clearTimeout(timer);
+        resolve();
+      }
+    });
+    child.stderr!.on('data', (d: Buffer) => process.stderr.write(d));
+    child.once('exit', (code) => reject(new Error(`a Rackside process exited with ${code}`)));
+  }).catch((err) => {
+    child.kill('SIGKILL');
+    throw err;
+  });
+  return { child, port, url: `http://127.0.0.1:${port}` };
+}

@@ -3,7 +3,7 @@
  * redis-server, SQLite or a real PostgreSQL server, and HAProxy with the configuration kept for
  * production (server/deploy/haproxy.cfg), all on loopback.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { performance } from 'node:perf_hooks';
@@ -14,7 +14,7 @@ import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, test } from 'vitest';
 import type { ExchangeReplayDto, TableStateDto } from '../../shared/protocol';
 import { SEATS } from '../../shared/seats';
-import { freePort, startPostgres, startRedis, waitFor, type Running, type RunningPostgres } from './backing-servers';
+import { startPostgres, startRackside, startRedis, waitFor, type Running, type RunningPostgres } from './backing-servers';
 import { startHaproxy, type RunningHaproxy } from './haproxy';
 import { autoPlayer, Client, expectAckedInLog } from './live';
 
@@ -53,29 +53,13 @@ interface Proc {
 
 /** One Rackside process, as it runs in production: its own port, the shared database and Redis. */
 async function rackside(databaseUrl: string): Promise<Proc> {
-  const port = await freePort();
   // Every test here registers four new people from one address, and the limit on new accounts
   // counts in the one Redis the whole file shares: raise it.
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, REGISTER_RATE_MAX: '1000', PORT: String(port), DATABASE_URL: databaseUrl, REDIS_URL: redis.url, WEBSOCKET_ONLY: 'true', BCRYPT_ROUNDS: '4', SESSION_SECRET: 'shared-by-every-process', SEED_DEMO: 'false', BOT_DELAY_MS: '0', CLIENT_DIR: 'none', LOG_LEVEL: 'error' },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  running.push(child);
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error('a Rackside process did not start')), 30_000);
-    child.stdout!.on('data', (d: Buffer) => {
-      if (d.toString().includes('ready on')) {
-        clearTimeout(timer);
-        resolve();
-      }
-    });
-    child.stderr!.on('data', (d: Buffer) => process.stderr.write(d));
-    child.once('exit', (code) => reject(new Error(`a Rackside process exited with ${code}`)));
-  });
-  return { child, port, url: `http://127.0.0.1:${port}` };
+  const proc = await startRackside({ REGISTER_RATE_MAX: '1000', DATABASE_URL: databaseUrl, REDIS_URL: redis.url, WEBSOCKET_ONLY: 'true', SESSION_SECRET: 'shared-by-every-process', SEED_DEMO: 'false' });
+  running.push(proc.child);
+  return proc;
 }
 
-/** Two processes on one database. The first runs the migrations before the second starts. */
 async function twoProcesses(databaseUrl: string) {
   const a = await rackside(databaseUrl);
   const b = await rackside(databaseUrl);

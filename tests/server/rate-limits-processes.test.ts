@@ -3,14 +3,14 @@
  * redis-server, every limit set to 3, the requests spread over both. Counted per process, each would
  * let 3 through on its own (6 in all); counted in Redis, the fourth anywhere is refused.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request, { type Response } from 'supertest';
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import { DEMO_PASSWORD } from '../../server/db/seed';
-import { freePort, startRedis, type Running } from './backing-servers';
+import { startRackside, startRedis, type Running } from './backing-servers';
 import { createLesson } from './lesson-helpers';
 
 const LIMIT = 3;
@@ -22,39 +22,18 @@ let b: string;
 
 /** One Rackside process as it runs in production, with every HTTP limit at LIMIT within an hour. */
 async function rackside(databaseUrl: string): Promise<string> {
-  const port = await freePort();
   const limits = { LOGIN_RATE_MAX: LIMIT, REGISTER_RATE_MAX: LIMIT, RESET_RATE_MAX: LIMIT, INVITE_RATE_MAX: LIMIT };
   const windows = { LOGIN_RATE_WINDOW_MS: 3_600_000, REGISTER_RATE_WINDOW_MS: 3_600_000, RESET_RATE_WINDOW_MS: 3_600_000, INVITE_RATE_WINDOW_MS: 3_600_000 };
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: {
-      ...process.env,
-      ...Object.fromEntries(Object.entries({ ...limits, ...windows }).map(([k, v]) => [k, String(v)])),
-      PORT: String(port),
-      DATABASE_URL: databaseUrl,
-      REDIS_URL: redis.url,
-      BCRYPT_ROUNDS: '4',
-      SESSION_SECRET: 'shared-by-every-process',
-      LINK_SECRET: 'shared-by-every-process',
-      SEED_DEMO: 'true',
-      BOT_DELAY_MS: '0',
-      CLIENT_DIR: 'none',
-      LOG_LEVEL: 'error',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
+  const proc = await startRackside({
+    ...Object.fromEntries(Object.entries({ ...limits, ...windows }).map(([k, v]) => [k, String(v)])),
+    DATABASE_URL: databaseUrl,
+    REDIS_URL: redis.url,
+    SESSION_SECRET: 'shared-by-every-process',
+    LINK_SECRET: 'shared-by-every-process',
+    SEED_DEMO: 'true',
   });
-  running.push(child);
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error('a Rackside process did not start')), 30_000);
-    child.stdout!.on('data', (d: Buffer) => {
-      if (d.toString().includes('ready on')) {
-        clearTimeout(timer);
-        resolve();
-      }
-    });
-    child.stderr!.on('data', (d: Buffer) => process.stderr.write(d));
-    child.once('exit', (code) => reject(new Error(`a Rackside process exited with ${code}`)));
-  });
-  return `http://127.0.0.1:${port}`;
+  running.push(proc.child);
+  return proc.url;
 }
 
 beforeAll(async () => {
