@@ -6,8 +6,12 @@
 export const tableCounters = {
   /** Actions tried once more after another process stored first (a conflict) and the table reloaded. */
   retried: 0,
-  /** Actions sent on to the process that owns the table rather than checked and applied here. */
-  forwarded: 0,
+  /**
+   * Actions taken here on a table whose sockets were also on another process (a split table). No
+   * action is ever forwarded: the balancer sends a table's connections to its one owner, and where a
+   * table is split anyway each process checks and stores its own, the log deciding between them.
+   */
+  split: 0,
   /** Catch-ups on another process's new events of the same exchange, read and folded alone (one query). */
   caughtUp: 0,
   /** Times a table read its row and log again whole: after a failed write, or a change it could not fold. */

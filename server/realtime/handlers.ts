@@ -9,6 +9,7 @@ import { clientEventSchemas, type AckOf, type AckPayloads, type ClientEventName 
 import { issueMessage } from '../../shared/issue-words';
 import type { Application } from '../app';
 import { controlCharacterAt } from '../security/control-characters';
+import { tableCounters } from './counters';
 import type { Peers } from './peers';
 import type { Presence } from './presence';
 import { TableError, type Member, type TableMaster } from './table-master';
@@ -134,6 +135,7 @@ const commands: { [E in ClientEventName]: Command<E> } = {
     async (master, who, { action, version }, { config, limits }) => {
       const limited = () => new TableError('RATE_LIMITED', 'You are moving faster than anyone plays. Wait a moment; nothing of that move was kept.');
       await withinLimit(limits.act, `${master.id}:${who.userId}`, limited);
+      if (master.remoteSockets > 0) tableCounters.split += 1;
       return master.dispatch({ type: 'exchange:act', action, version }, who, config.rateLimits.actionsPerExchange);
     },
     { hot: true },

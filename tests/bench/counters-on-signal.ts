@@ -1,6 +1,6 @@
 /**
  * Loaded into a benchmarked Rackside process (`--import`): SIGWINCH answers on stdout with one line,
- * `counters {"retried":…,"forwarded":…,"caughtUp":…,"rebuilt":…}`, the process's table counters
+ * `counters {"retried":…,"split":…,"caughtUp":…,"rebuilt":…}`, the process's table counters
  * (server/realtime/counters.ts) since it started. SIGWINCH because SIGUSR1 starts Node's inspector
  * and gc-on-signal.ts answers SIGUSR2; a process started without this file ignores SIGWINCH.
  */

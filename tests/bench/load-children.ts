@@ -64,7 +64,7 @@ export async function settledRssKb(child: ChildProcess): Promise<number> {
 }
 
 /** A Rackside process's table counters (server/realtime/counters.ts), as counters-on-signal.ts prints them. */
-export type TableCounts = Record<'retried' | 'forwarded' | 'caughtUp' | 'rebuilt', number>;
+export type TableCounts = Record<'retried' | 'split' | 'caughtUp' | 'rebuilt', number>;
 
 /** Asks for the counters and waits up to 10 s for them; null when the process did not answer. */
 export async function readCounters(child: ChildProcess): Promise<TableCounts | null> {

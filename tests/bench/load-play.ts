@@ -101,6 +101,8 @@ export async function play(tables: Seat4[][], startBatch: number) {
   let over = false;
   let deadline: NodeJS.Timeout | undefined;
   const starts: (() => Promise<void>)[] = [];
+  // Its listeners come off when play ends, so that the same connections can play another round.
+  const cleanups: (() => void)[] = [];
   const t0 = performance.now();
   const allDone = Promise.all(
     tables.map(
@@ -176,20 +178,24 @@ export async function play(tables: Seat4[][], startBatch: number) {
                 onState(i);
               });
           }
-          seats.forEach((s) =>
-            s.socket.on('disconnect', () => {
+          seats.forEach((s) => {
+            const onDrop = () => {
               if (!over) dropped++;
-            }),
-          );
-          seats.forEach((s, i) =>
-            s.socket.on('table:state', (st: TableStateDto) => {
+            };
+            s.socket.on('disconnect', onDrop);
+            cleanups.push(() => s.socket.off('disconnect', onDrop));
+          });
+          seats.forEach((s, i) => {
+            const onTableState = (st: TableStateDto) => {
               if (states++ % SIZE_SAMPLE === 0) {
                 sampledBytes += JSON.stringify(st).length;
                 sampled++;
               }
               onState(i);
-            }),
-          );
+            };
+            s.socket.on('table:state', onTableState);
+            cleanups.push(() => s.socket.off('table:state', onTableState));
+          });
           starts.push(() =>
             seats[0].socket
               .timeout(60_000)
@@ -216,6 +222,7 @@ export async function play(tables: Seat4[][], startBatch: number) {
   await Promise.race([allDone, overdue]);
   clearTimeout(deadline);
   over = true;
+  cleanups.forEach((off) => off());
   const seconds = (performance.now() - t0) / 1000;
   return {
     latency: summary(latencies),

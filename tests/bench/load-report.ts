@@ -129,7 +129,8 @@ export function reportProcesses(settings: LoadSettings, one: RacksideRun, two: R
     ['passes resolved per second, two / one', '', '', times(throughput)],
     ['table connections per config server (HAProxy, after seating)', split(one, true), split(two, false)],
     ['connections closed during play', String(one.dropped), String(two.dropped)],
-    ['actions forwarded to another process', counted(one, 'forwarded'), counted(two, 'forwarded')],
+    ['actions forwarded to another process', 'no such path: the balancer routes each table to its owner', ''],
+    ['actions on a table split over processes', counted(one, 'split'), counted(two, 'split')],
     ['actions retried after a conflict', counted(one, 'retried'), counted(two, 'retried')],
     ['catch-ups folded / tables read again whole', `${counted(one, 'caughtUp')} / ${counted(one, 'rebuilt')}`, `${counted(two, 'caughtUp')} / ${counted(two, 'rebuilt')}`],
   ]);

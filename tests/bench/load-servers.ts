@@ -23,6 +23,8 @@ export interface LoadSettings {
   dir: string;
   /** Says on stderr how far the run has come. */
   stage(what: string): void;
+  /** Play one unmeasured round first (`--warmup`), so that warmed-up processes are measured. */
+  warmup?: boolean;
 }
 
 /**
@@ -127,6 +129,12 @@ export async function benchRackside(settings: LoadSettings, layout: Layout) {
   // HAProxy's own count of the table connections each of its servers holds.
   const split: ServerStatus[] | null = front ? (await front.servers()).filter((s) => s.backend === 'tables') : null;
   stage(`seated ${tables * 4} connections`);
+  if (settings.warmup) {
+    // A round that is not measured: every table plays one exchange first, so that what is measured is
+    // a warmed-up process (its hot paths compiled), as a server is after its first minutes.
+    const warm = await play(seated.tables, settings.startBatch);
+    stage(`warm-up round: ${warm.finishedTables} of ${tables} tables finished, ${warm.errors} errors (not measured)`);
+  }
   // Every server process counts, and only those: the clients run in this process, not in any of them.
   const each = servers.map((s) => cpuMeter([s.child.pid!]));
   const [haproxyCpu, redisCpu] = [helperMeter('haproxy'), helperMeter('redis-server')];

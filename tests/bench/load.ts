@@ -48,6 +48,7 @@ const settings: LoadSettings = {
   tables: Number(arg('tables', '250')),
   huddleEvery: 10,
   startBatch: Number(arg('start-batch', '5')),
+  warmup: process.argv.includes('--warmup'),
   database: DATABASE,
   dir: mkdtempSync(join(tmpdir(), 'rackside-load-')),
   stage: (what) => console.error(`  … ${what} (${((performance.now() - began) / 1000).toFixed(1)} s)`),
