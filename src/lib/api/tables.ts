@@ -7,13 +7,6 @@ export const tablesQuery = queryOptions({
   queryFn: () => api<{ mine: TableDto[]; open: TableDto[] }>('/tables'),
 });
 
-export function tableQuery(id: string, invite?: string) {
-  return queryOptions({
-    queryKey: ['tables', id, invite ?? null],
-    queryFn: async () => (await api<{ table: TableDto }>(`/tables/${encodeURIComponent(id)}${invite ? `?invite=${encodeURIComponent(invite)}` : ''}`)).table,
-  });
-}
-
 export function useTables() {
   return useQuery(tablesQuery);
 }
