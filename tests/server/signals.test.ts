@@ -4,10 +4,10 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdirSync, mkdtempSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
-import { connect } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, expect, test } from 'vitest';
+import { accepts } from './ports';
 
 const dir = mkdtempSync(join(tmpdir(), 'rackside-signals-'));
 const clientDir = join(dir, 'client');
@@ -33,17 +33,6 @@ function groupAlive(pgid: number): boolean {
   } catch {
     return false;
   }
-}
-
-function accepts(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const socket = connect({ port, host: '127.0.0.1' });
-    socket.once('connect', () => {
-      socket.destroy();
-      resolve(true);
-    });
-    socket.once('error', () => resolve(false));
-  });
 }
 
 /** Polls until `done` holds or the deadline passes; returns whether it held. */

@@ -1,9 +1,9 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { connect } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, expect, test } from 'vitest';
+import { accepts } from './ports';
 
 const dir = mkdtempSync(join(tmpdir(), 'rackside-unhandled-'));
 let child: ChildProcess | undefined;
@@ -11,17 +11,6 @@ afterAll(() => {
   if (child && child.exitCode === null && child.signalCode === null) child.kill('SIGKILL');
   rmSync(dir, { recursive: true, force: true });
 });
-
-function accepts(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const socket = connect({ port, host: '127.0.0.1' });
-    socket.once('connect', () => {
-      socket.destroy();
-      resolve(true);
-    });
-    socket.once('error', () => resolve(false));
-  });
-}
 
 test('an unhandled rejection is logged and the process exits with a non-zero code, its port closed', { timeout: 60_000 }, async () => {
   const started = spawn(process.execPath, ['--import', 'tsx', 'tests/server/fixtures/unhandled-rejection.ts'], {
