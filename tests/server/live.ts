@@ -1,4 +1,8 @@
-/** Helpers for live-table tests: a real server on port 0 and real signed-in socket.io clients. */
+/**
+ * Helpers for live-table tests: a real server on port 0 and real signed-in socket.io clients.
+ * Tests take them through `liveTest` (or the `liveKit` fixture), whose kit closes every server,
+ * client and temporary folder a test made through it once the test ends.
+ */
 import { mkdtempSync, rmSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
