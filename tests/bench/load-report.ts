@@ -141,6 +141,12 @@ export function reportProcesses(settings: LoadSettings, one: RacksideRun, two: R
       `  Rackside CPU per pass on two ≤ ${GOALS.cpuPerPassAtMost}× one: ${times(cpu, 3)}, ${verdict(cpu <= GOALS.cpuPerPassAtMost)}`,
       `  passes per second on two ≥ ${GOALS.throughputAtLeast}× one: ${times(throughput, 3)}, ${verdict(throughput >= GOALS.throughputAtLeast)}`,
       '',
+      settings.warmup
+        ? 'Warmed up: every table played one exchange before the measured one, in both runs (`--cold` skips it). A fresh'
+        : 'Cold: the measured exchange is each table\'s first (no warm-up round). A fresh',
+      'process spends its first seconds compiling its hot paths; that is paid once per process, so over a short cold',
+      'play two fresh processes pay it twice, and a server that runs for hours does not pay it per pass at all.',
+      '',
       `What was compared: the same ${settings.tables} tables of four signed-in clients, the same client code and exchanges, first`,
       'on one Rackside process, then on two, one after the other in this run. Both runs set REDIS_URL (Socket.IO\'s',
       'Redis adapter, one redis-server started fresh for each run) and share one database between their processes.',

@@ -1,5 +1,5 @@
 /**
- * `npm run bench:load [-- --tables 250 --processes 1|2 --database sqlite|postgres --start-batch 5]`:
+ * `npm run bench:load [-- --tables 250 --processes 1|2 --warmup|--cold --database sqlite|postgres --start-batch 5]`:
  * plays whole exchanges on many tables at once, four signed-in clients a table, against Rackside
  * in its own process.
  *
@@ -16,6 +16,8 @@
  * Redis and behind HAProxy (server/deploy/haproxy.cfg), each client naming its table in the
  * handshake query; printed side by side with the ratios two / one, the goals, HAProxy's and
  * redis-server's CPU apart, and each process's table counters (tests/bench/counters-on-signal.ts).
+ * There every table plays one unmeasured round first (`--cold` skips it; `--warmup` adds it to a
+ * single-process run too).
  *
  * The parts: load-play.ts (the clients), load-servers.ts (the servers of each run), load-children.ts
  * (server processes and the helpers this bench starts), load-report.ts (what is printed).
@@ -48,7 +50,9 @@ const settings: LoadSettings = {
   tables: Number(arg('tables', '250')),
   huddleEvery: 10,
   startBatch: Number(arg('start-batch', '5')),
-  warmup: process.argv.includes('--warmup'),
+  // Two processes are compared warmed up (see the report's footnote): a fresh process compiles its
+  // hot paths in its first seconds, once, and two fresh processes pay that twice in a short play.
+  warmup: process.argv.includes('--warmup') || (PROCESSES > 1 && !process.argv.includes('--cold')),
   database: DATABASE,
   dir: mkdtempSync(join(tmpdir(), 'rackside-load-')),
   stage: (what) => console.error(`  … ${what} (${((performance.now() - began) / 1000).toFixed(1)} s)`),
