@@ -1,12 +1,13 @@
 /**
  * The HTTP rate limits hold across processes: two real Rackside processes on one SQLite file and one
- * redis-server, every limit set to 3, the requests spread over both. Counted per process, each would
+ * redis-server, every limit set to 3 (chat and moves on the sockets too), the requests spread over both. Counted per process, each would
  * let 3 through on its own (6 in all); counted in Redis, the fourth anywhere is refused.
  */
 import type { ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { io as connect, type Socket } from 'socket.io-client';
 import request, { type Response } from 'supertest';
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import { DEMO_PASSWORD } from '../../server/db/seed';
@@ -17,13 +18,14 @@ const LIMIT = 3;
 let redis: Running;
 let folder: string;
 const running: ChildProcess[] = [];
+const sockets: Socket[] = [];
 let a: string;
 let b: string;
 
 /** One Rackside process as it runs in production, with every HTTP limit at LIMIT within an hour. */
 async function rackside(databaseUrl: string): Promise<string> {
-  const limits = { LOGIN_RATE_MAX: LIMIT, REGISTER_RATE_MAX: LIMIT, RESET_RATE_MAX: LIMIT, INVITE_RATE_MAX: LIMIT };
-  const windows = { LOGIN_RATE_WINDOW_MS: 3_600_000, REGISTER_RATE_WINDOW_MS: 3_600_000, RESET_RATE_WINDOW_MS: 3_600_000, INVITE_RATE_WINDOW_MS: 3_600_000 };
+  const limits = { LOGIN_RATE_MAX: LIMIT, REGISTER_RATE_MAX: LIMIT, RESET_RATE_MAX: LIMIT, INVITE_RATE_MAX: LIMIT, CHAT_RATE_PER_MINUTE: LIMIT, ACTION_RATE_MAX: LIMIT };
+  const windows = { LOGIN_RATE_WINDOW_MS: 3_600_000, REGISTER_RATE_WINDOW_MS: 3_600_000, RESET_RATE_WINDOW_MS: 3_600_000, INVITE_RATE_WINDOW_MS: 3_600_000, ACTION_RATE_WINDOW_MS: 3_600_000 };
   const proc = await startRackside({
     ...Object.fromEntries(Object.entries({ ...limits, ...windows }).map(([k, v]) => [k, String(v)])),
     DATABASE_URL: databaseUrl,
@@ -46,6 +48,7 @@ beforeAll(async () => {
 }, 90_000);
 
 afterAll(async () => {
+  sockets.splice(0).forEach((s) => s.disconnect());
   running.splice(0).forEach((p) => p.exitCode === null && p.kill('SIGKILL'));
   await redis?.stop();
   if (folder) rmSync(folder, { recursive: true, force: true });
@@ -114,4 +117,29 @@ test('invitations: one teacher signed in on both processes shares one limit of 3
   expect(remaining(third)).toBe(0);
   expectRefused(await invite(onA, 4), /wait a while and try again/);
   expectRefused(await invite(onB, 5), /wait a while and try again/);
+});
+
+test('chat and moves: one player with a socket on each process shares one limit of 3 for each', async () => {
+  const cookieOn = async (url: string) => {
+    const res = await request(url).post('/api/auth/login').send({ email: 'mina@harborlane.test', password: DEMO_PASSWORD }).expect(200);
+    return String(res.headers['set-cookie'][0]).split(';')[0];
+  };
+  const [cookieA, cookieB] = [await cookieOn(a), await cookieOn(b)];
+  const table = (await request(a).post('/api/tables').set('Cookie', cookieA).send({ name: 'Harbor Lane, limits', options: { seed: 'harbor-lane-limits' } }).expect(201)).body.table as { id: string };
+  const [onA, onB] = [connect(a, { transports: ['websocket'], extraHeaders: { Cookie: cookieA } }), connect(b, { transports: ['websocket'], extraHeaders: { Cookie: cookieB } })];
+  sockets.push(onA, onB);
+  for (const s of [onA, onB]) expect((await s.emitWithAck('table:join', { tableId: table.id, as: 'player' })).ok).toBe(true);
+
+  const chat = (s: Socket, n: number) => s.emitWithAck('chat:send', { text: `Tea at the harbour, ${n}` });
+  expect((await chat(onA, 1)).ok).toBe(true);
+  expect((await chat(onA, 2)).ok).toBe(true);
+  expect((await chat(onB, 3)).ok).toBe(true);
+  expect(await chat(onB, 4)).toMatchObject({ ok: false, code: 'RATE_LIMITED' });
+  expect(await chat(onA, 5)).toMatchObject({ ok: false, code: 'RATE_LIMITED' });
+
+  // Every move counts against the seat's limit before it is checked, so moves the lobby refuses count too.
+  const move = (s: Socket) => s.emitWithAck('exchange:act', { action: { type: 'withdraw' } });
+  for (const s of [onA, onA, onB]) expect((await move(s)).code).not.toBe('RATE_LIMITED');
+  expect(await move(onB)).toMatchObject({ ok: false, code: 'RATE_LIMITED' });
+  expect(await move(onA)).toMatchObject({ ok: false, code: 'RATE_LIMITED' });
 });
