@@ -59,6 +59,8 @@ export async function startRedis(): Promise<Running> {
   const { default: Redis } = await import('ioredis');
   await waitFor(async () => {
     const probe = new Redis(port, '127.0.0.1', { lazyConnect: true, maxRetriesPerRequest: 0, retryStrategy: () => null });
+    // Refused while redis-server is still starting: that is what the wait is for, not an error to print.
+    probe.on('error', () => undefined);
     try {
       await probe.connect();
       return (await probe.ping()) === 'PONG';
