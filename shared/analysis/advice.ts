@@ -21,6 +21,9 @@
  *    small prior for breaking a pair or giving a flower that a live family uses (a teacher
  *    wants a reason for either), less a hair of the price so ties go to the cheaper rack.
  *    Passes that were not played out rank below those that were, in price order.
+ *
+ * Long because ranking the passes, their reasons and how each compares with the choices around it
+ * read as one argument; the wording of reasons is the part to move out if it grows.
  */
 import type { ExchangeView, PassRecord, Phase } from '../exchange/types';
 import { PASS_SIZE } from '../exchange/constants';

@@ -19,6 +19,9 @@
  * is made of what the neighbour passes away) with plain words.
  * These weights are a teaching choice (common practice, no published source), kept small: the
  * advice weighs them beside the odds of finishing, never above them.
+ *
+ * A little over 300 lines: what the neighbours passed and kept, and the risk words built on that,
+ * are one model.
  */
 import { PASS_DIRECTION } from '../exchange/constants';
 import type { PassRecord, Phase } from '../exchange/types';

@@ -13,6 +13,9 @@
  *   uses two). Flexible: serves two live families or more. Spare: serves none.
  * - Pick a hand when the likeliest family has odds worth the name (PICK.minOdds) and is the
  *   only one live, or has at least PICK.lead times the odds of the next; otherwise keep gathering.
+ *
+ * Long because each family's test of being live sits beside the words a teacher uses for it;
+ * splitting them apart would separate a rule from its explanation.
  */
 import type { Phase } from '../exchange/types';
 import { suitOf, rankOf, TILE_KINDS, type Suit, type TileKind } from '../tiles';

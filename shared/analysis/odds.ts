@@ -30,6 +30,9 @@
  *   target as above, finishes any of them. Only the `nearest` patterns by price are simulated;
  *   the others, and families with none of them, are left out of the result (they are further
  *   than every pattern shown).
+ *
+ * Long because the play-out (draws, discards, jokers, calls) is one simulation whose parts share
+ * its state; the discard policy is the seam to split along if it grows.
  */
 import { rngFor } from '../random';
 import type { TileKind } from '../tiles';

@@ -17,6 +17,9 @@
  * - The four seats of one deal are not independent, so the unit of every interval is the deal:
  *   a deal's figure for a strategy is the mean over its measured seats, and strategies are
  *   compared by the mean of their per-deal differences.
+ *
+ * Long because the paired-deal schedule and its Student-t intervals are one measurement; the
+ * interval arithmetic is the part to move out if it grows.
  */
 import { act, canResolve, createExchange, resolve, viewFor } from '../exchange';
 import type { ExchangeState } from '../exchange/types';
