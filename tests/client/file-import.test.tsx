@@ -1,30 +1,10 @@
 /** Importing pattern lists and drills from files, as a teacher meets it. */
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { expect, test, vi } from 'vitest';
+import { expect, test } from 'vitest';
 import { starterPatterns } from '../../shared/analysis';
-import { renderAt, signedInAs } from './render';
+import { fakeApi, type Reply, renderAt, signedInAs } from './render';
 
-type Reply = { status: number; body: unknown };
-type Answers = Record<string, Reply | ((body: unknown) => Reply)>;
-
-/** Like fakeApi in render.tsx, but takes uploads: a FormData body is recorded as the uploaded file's name. */
-function stubApi(answers: Answers) {
-  const calls: { key: string; body: unknown }[] = [];
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async (url: string, init?: RequestInit) => {
-      const key = `${init?.method ?? 'GET'} ${url}`;
-      const raw = init?.body;
-      const body = raw instanceof FormData ? { file: (raw.get('file') as File).name } : raw ? JSON.parse(String(raw)) : undefined;
-      calls.push({ key, body });
-      const answer = answers[key];
-      const reply = typeof answer === 'function' ? answer(body) : (answer ?? { status: 404, body: { error: { code: 'NOT_FOUND', message: 'nope' } } });
-      return new Response(JSON.stringify(reply.body), { status: reply.status, headers: { 'Content-Type': 'application/json' } });
-    }),
-  );
-  return calls;
-}
 
 const teacher = signedInAs('teacher');
 const starterSummary = { id: 'starter', name: 'Starter list', description: 'Rackside’s own practice list.', patternCount: starterPatterns.length, readOnly: true, updatedAt: null };
@@ -52,7 +32,7 @@ async function importFile(label: string, name: string) {
 }
 
 test('a file with several problems shows each one once, in a list under a count', async () => {
-  stubApi({ ...teacher, 'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary] } }, 'POST /api/pattern-lists/import': brokenTwice });
+  fakeApi({ ...teacher, 'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary] } }, 'POST /api/pattern-lists/import': brokenTwice });
   renderAt('/pattern-lists');
   await screen.findByRole('heading', { name: 'Starter list' });
   await importFile('Import a pattern list', 'anchors.csv');
@@ -67,7 +47,7 @@ test('a file with several problems shows each one once, in a list under a count'
 });
 
 test('a file with one problem shows it once, without a list', async () => {
-  stubApi({
+  fakeApi({
     ...teacher,
     'GET /api/drills': { status: 200, body: { drills: [] } },
     'POST /api/drills/import': {
@@ -84,7 +64,7 @@ test('a file with one problem shows it once, without a list', async () => {
 });
 
 test('an upload refused before reading shows the server’s message, once', async () => {
-  stubApi({
+  fakeApi({
     ...teacher,
     'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary] } },
     'POST /api/pattern-lists/import': {
@@ -102,7 +82,7 @@ test('an upload refused before reading shows the server’s message, once', asyn
 
 test('a new import takes away the last import’s “Open the imported list”', async () => {
   let next: Reply = { status: 201, body: { list: { ...oneAnchor, patterns: [starterPatterns[0]] } } };
-  stubApi({ ...teacher, 'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary] } }, 'POST /api/pattern-lists/import': () => next });
+  fakeApi({ ...teacher, 'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary] } }, 'POST /api/pattern-lists/import': () => next });
   renderAt('/pattern-lists');
   await screen.findByRole('heading', { name: 'Starter list' });
   await importFile('Import a pattern list', 'one.json');
@@ -117,7 +97,7 @@ test('a new import takes away the last import’s “Open the imported list”',
 });
 
 test('counts of patterns take the singular for one, and only the starter list says it can’t be changed', async () => {
-  stubApi({ ...teacher, 'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary, oneAnchor] } } });
+  fakeApi({ ...teacher, 'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary, oneAnchor] } } });
   renderAt('/pattern-lists');
   const mine = (await screen.findByRole('heading', { name: 'One anchor' })).closest('li')!;
   expect(within(mine).getByText('1 pattern')).toBeTruthy();
@@ -129,7 +109,7 @@ test('counts of patterns take the singular for one, and only the starter list sa
 
 test('the starter list’s page says it can’t be changed; a copy of it is a form to change, and saving one pattern says so', async () => {
   const copy = { ...oneAnchor, id: 'l2', name: 'Copy of Starter list', description: 'Rackside’s own practice list.', patterns: [starterPatterns[0]] };
-  stubApi({
+  fakeApi({
     ...teacher,
     'GET /api/pattern-lists/starter': { status: 200, body: { list: { ...starterSummary, patterns: starterPatterns } } },
     'GET /api/pattern-lists/l2': { status: 200, body: { list: copy } },

@@ -4,7 +4,7 @@ import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { vi } from 'vitest';
 import { routes } from '../../src/router';
 
-type Reply = { status: number; body: unknown };
+export type Reply = { status: number; body: unknown };
 export type FakeApi = Record<string, Reply | ((body: unknown) => Reply)>;
 
 /** Stubs fetch with answers keyed by "METHOD /api/path", and records every call. */
@@ -14,11 +14,13 @@ export function fakeApi(answers: FakeApi) {
     'fetch',
     vi.fn(async (url: string, init?: RequestInit) => {
       const key = `${init?.method ?? 'GET'} ${url}`;
-      const body = init?.body ? JSON.parse(String(init.body)) : undefined;
+      // An upload (FormData) is recorded as the uploaded file's name.
+      const raw = init?.body;
+      const body = raw instanceof FormData ? { file: (raw.get('file') as File).name } : raw ? JSON.parse(String(raw)) : undefined;
       calls.push({ key, body });
       const answer = answers[key];
       const reply = typeof answer === 'function' ? answer(body) : (answer ?? { status: 404, body: { error: { code: 'NOT_FOUND', message: 'nope' } } });
-      return new Response(JSON.stringify(reply.body), { status: reply.status, headers: { 'Content-Type': 'application/json' } });
+      return new Response(reply.status === 204 ? null : JSON.stringify(reply.body), { status: reply.status, headers: { 'Content-Type': 'application/json' } });
     }),
   );
   return calls;

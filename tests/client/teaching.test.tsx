@@ -3,30 +3,10 @@ import userEvent from '@testing-library/user-event';
 import { expect, test, vi } from 'vitest';
 import { starterPatterns } from '../../shared/analysis';
 import type { DrillDto } from '../../shared/drills';
-import { renderAt, signedInAs } from './render';
+import { fakeApi, renderAt, signedInAs } from './render';
 
 vi.mock('../../src/features/table/api/socket', () => ({ send: vi.fn(async () => ({ ok: true })), joinTable: vi.fn(async () => ({ ok: true })), leaveTable: vi.fn() }));
 
-type Reply = { status: number; body: unknown };
-type Answers = Record<string, Reply | ((body: unknown) => Reply)>;
-
-/** Like fakeApi, but also takes uploads: a FormData body is recorded as the uploaded file's name. */
-function stubApi(answers: Answers) {
-  const calls: { key: string; body: unknown }[] = [];
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async (url: string, init?: RequestInit) => {
-      const key = `${init?.method ?? 'GET'} ${url}`;
-      const raw = init?.body;
-      const body = raw instanceof FormData ? { file: (raw.get('file') as File).name } : raw ? JSON.parse(String(raw)) : undefined;
-      calls.push({ key, body });
-      const answer = answers[key];
-      const reply = typeof answer === 'function' ? answer(body) : (answer ?? { status: 404, body: { error: { code: 'NOT_FOUND', message: 'nope' } } });
-      return new Response(reply.status === 204 ? null : JSON.stringify(reply.body), { status: reply.status, headers: { 'Content-Type': 'application/json' } });
-    }),
-  );
-  return calls;
-}
 
 const teacher = signedInAs('teacher');
 const starterSummary = { id: 'starter', name: 'Starter list', description: 'Rackside’s own practice list.', patternCount: starterPatterns.length, readOnly: true, updatedAt: null };
@@ -45,7 +25,7 @@ const weekOne: DrillDto = {
 };
 
 test('a player is told drills are for teachers, and no drill is asked for', async () => {
-  const calls = stubApi(signedInAs('player'));
+  const calls = fakeApi(signedInAs('player'));
   renderAt('/drills');
   expect(await screen.findByRole('heading', { name: 'Drills are for teachers' })).toBeTruthy();
   expect(calls.some((c) => c.key.includes('/api/drills'))).toBe(false);
@@ -53,7 +33,7 @@ test('a player is told drills are for teachers, and no drill is asked for', asyn
 });
 
 test('the drills page lists drills and opens a table from one in one click', async () => {
-  const calls = stubApi({
+  const calls = fakeApi({
     ...teacher,
     'GET /api/drills': { status: 200, body: { drills: [weekOne] } },
     'POST /api/tables': { status: 201, body: { table: { id: 'table-7', name: weekOne.name } } },
@@ -70,7 +50,7 @@ test('the drills page lists drills and opens a table from one in one click', asy
 });
 
 test('the drill form builds preset racks from tiles, sends every field and shows the server’s errors beside them', async () => {
-  const calls = stubApi({
+  const calls = fakeApi({
     ...teacher,
     'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary, { ...starterSummary, id: 'l2', name: 'Tuesday list', readOnly: false, patternCount: 2 }] } },
     'POST /api/drills': {
@@ -119,7 +99,7 @@ test('the drill form builds preset racks from tiles, sends every field and shows
 });
 
 test('an existing drill loads into the form and saves with PUT', async () => {
-  const calls = stubApi({
+  const calls = fakeApi({
     ...teacher,
     'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary] } },
     'GET /api/drills/d1': { status: 200, body: { drill: weekOne } },
@@ -136,7 +116,7 @@ test('an existing drill loads into the form and saves with PUT', async () => {
 });
 
 test('a broken drill file is refused with each problem listed', async () => {
-  stubApi({
+  fakeApi({
     ...teacher,
     'GET /api/drills': { status: 200, body: { drills: [] } },
     'POST /api/drills/import': {
@@ -155,7 +135,7 @@ test('a broken drill file is refused with each problem listed', async () => {
 });
 
 test('the pattern lists page copies the starter list and opens the copy', async () => {
-  const calls = stubApi({
+  const calls = fakeApi({
     ...teacher,
     'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary] } },
     'POST /api/pattern-lists/starter/copy': { status: 201, body: { list: { ...starterSummary, id: 'l9', name: 'Copy of Starter list', readOnly: false, patterns: starterPatterns } } },
@@ -170,7 +150,7 @@ test('the pattern lists page copies the starter list and opens the copy', async 
 });
 
 test('the starter list is shown read-only, each pattern as tiles', async () => {
-  stubApi({ ...teacher, 'GET /api/pattern-lists/starter': { status: 200, body: { list: { ...starterSummary, patterns: starterPatterns } } } });
+  fakeApi({ ...teacher, 'GET /api/pattern-lists/starter': { status: 200, body: { list: { ...starterSummary, patterns: starterPatterns } } } });
   renderAt('/pattern-lists/starter');
   expect(await screen.findByRole('button', { name: 'Copy into a list of my own' })).toBeTruthy();
   expect(screen.queryByRole('button', { name: /Save/ })).toBeNull();
@@ -178,7 +158,7 @@ test('the starter list is shown read-only, each pattern as tiles', async () => {
 });
 
 test('the pattern editor draws the pattern as tiles while it is built and puts server errors beside the group', async () => {
-  const calls = stubApi({
+  const calls = fakeApi({
     ...teacher,
     'POST /api/pattern-lists': {
       status: 400,
@@ -211,7 +191,7 @@ test('the pattern editor draws the pattern as tiles while it is built and puts s
 });
 
 test('the pattern editor sets a value and the sealed mark, sent in today\'s field names; a list shows both', async () => {
-  const calls = stubApi({ ...teacher, 'POST /api/pattern-lists': { status: 400, body: { error: { code: 'BAD_INPUT', message: 'Look again.', fields: { 'patterns.0.value': 'A value is a whole number from 0 to 1000.' } } } } });
+  const calls = fakeApi({ ...teacher, 'POST /api/pattern-lists': { status: 400, body: { error: { code: 'BAD_INPUT', message: 'Look again.', fields: { 'patterns.0.value': 'A value is a whole number from 0 to 1000.' } } } } });
   renderAt('/pattern-lists/new');
   await userEvent.type(await screen.findByLabelText('List name'), 'Harbor Lane sealed');
   const sealed = screen.getByRole('checkbox', { name: /^Sealed/ });
@@ -229,14 +209,14 @@ test('the pattern editor sets a value and the sealed mark, sent in today\'s fiel
   expect(sent.patterns[0]).not.toHaveProperty('concealed');
 
   const shown = { ...starterSummary, patterns: [{ ...starterPatterns[0], id: 'x-01', name: 'Shown sealed', value: 85, sealed: true }] };
-  stubApi({ ...teacher, 'GET /api/pattern-lists/starter': { status: 200, body: { list: shown } } });
+  fakeApi({ ...teacher, 'GET /api/pattern-lists/starter': { status: 200, body: { list: shown } } });
   renderAt('/pattern-lists/starter');
   const heading = await screen.findByRole('heading', { name: /^Shown sealed/ });
   expect(heading.textContent).toBe(`Shown sealed · ${starterPatterns[0].family} · value 85 · sealed: build it from your own draws, no calls`);
 });
 
 test('a pattern-list upload shows the line at fault', async () => {
-  const calls = stubApi({
+  const calls = fakeApi({
     ...teacher,
     'GET /api/pattern-lists': { status: 200, body: { lists: [starterSummary] } },
     'POST /api/pattern-lists/import': {
