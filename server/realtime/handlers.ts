@@ -132,11 +132,12 @@ const commands: { [E in ClientEventName]: Command<E> } = {
   'table:advice': change((master, who, { hidden }) => master.dispatch({ type: 'table:advice', hidden }, who)),
   'table:close': change((master, who) => master.dispatch({ type: 'table:close' }, who)),
   'exchange:act': change(
-    async (master, who, { action, version }, { config, limits }) => {
+    async (master, who, { action, version }, { limits }) => {
       const limited = () => new TableError('RATE_LIMITED', 'You are moving faster than anyone plays. Wait a moment; nothing of that move was kept.');
       await withinLimit(limits.act, `${master.id}:${who.userId}`, limited);
       if (master.remoteSockets > 0) tableCounters.split += 1;
-      return master.dispatch({ type: 'exchange:act', action, version }, who, config.rateLimits.actionsPerExchange);
+      // The move budget per exchange is the registry's (`movesPerExchange`, from the same config).
+      return master.dispatch({ type: 'exchange:act', action, version }, who);
     },
     { hot: true },
   ),
