@@ -32,6 +32,8 @@ test('the analysis beside the rack judges by the table’s own pattern list', as
   reactAct(() => useTableStore.getState().stateArrived(tableState(fresh(), 'west')));
   const panel = (await screen.findByRole('heading', { name: 'Nearest patterns' })).parentElement!;
   // The nearest pattern named beside the rack is the table's one pattern, not one of the starter list.
-  expect(await within(panel).findByText('Harbor steps', { selector: 'span' })).toBeTruthy();
+  // Named once in the nearest patterns, and again in the advice once the worker has weighed the passes:
+  // how many show at the first look depends on how fast the worker answers.
+  expect((await within(panel).findAllByText('Harbor steps', { selector: 'span' })).length).toBeGreaterThan(0);
   expect(calls.some((c) => c.key === 'GET /api/tables/t1/patterns')).toBe(true);
 });
